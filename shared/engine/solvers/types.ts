@@ -1,0 +1,81 @@
+import type { Problem, ProblemKind } from '../problem/types';
+
+/** Progress reported while a solver runs (published by workers, printed by the CLI). */
+export interface SolveProgress {
+  /** Share of the time or iteration budget used, 0…1. */
+  fraction: number;
+  iteration?: number;
+  /** Best business value found so far (cut weight or crossing weight). */
+  bestValue?: number;
+  /** Current energy estimate and its standard error (variational solvers). */
+  energy?: number;
+  stdError?: number;
+}
+
+export interface TracePoint {
+  iteration: number;
+  energy: number;
+  stdError?: number;
+  bestValue?: number;
+  seconds: number;
+}
+
+export interface SampledAssignment {
+  /** Assignment per depot in input order. */
+  assignment: number[];
+  count: number;
+  value: number;
+}
+
+/** What every solver returns; field names match `spinyard solve --json`. */
+export interface SolveResult {
+  /** Business value of `assignment`: cut weight (maxcut) or crossing weight (bisection, kway). */
+  value: number;
+  /** Side 0/1 or region 0…k−1 per depot, in input order. */
+  assignment: number[];
+  /** Proven bound on the optimum (upper for maxcut, lower for min problems), or null. */
+  bound: number | null;
+  /** (bound − value)/bound for max, (value − bound)/value for min; null without a bound. */
+  gap: number | null;
+  provenOptimal: boolean;
+  /** Final energy of the cost operator (variational), or null. */
+  energy: number | null;
+  /** Exact expected business value at the final parameters (variational), or null. */
+  expectation: number | null;
+  params: number[] | null;
+  seconds: number;
+  evaluations: number;
+  shots: number;
+  trace?: TracePoint[];
+  samples?: SampledAssignment[];
+  /** True when the assignment violates the balance rule (reported, never hidden). */
+  infeasible?: boolean;
+  notes?: string[];
+}
+
+/** Cooperative cancellation: solvers check it between iterations. */
+export interface CancelToken {
+  readonly cancelled: boolean;
+}
+
+export interface SolveContext {
+  seed: number;
+  timeLimitSeconds: number;
+  cancel?: CancelToken;
+  onProgress?: (progress: SolveProgress) => void;
+}
+
+export interface SolverDefinition<Settings = Record<string, unknown>> {
+  name: string;
+  /** Plain-words label for the UI. */
+  label: string;
+  family: 'exact' | 'bound' | 'heuristic' | 'variational';
+  kinds: ProblemKind[];
+  /** What the solver guarantees, in one sentence (README, UI and CLI read this). */
+  guarantee: string;
+  /** Parse and default the settings; throws a SettingsError with field messages on bad input. */
+  parseSettings(input: unknown): Settings;
+  /** Null when the solver can take the problem, else the reason it refuses. */
+  refuses(problem: Problem, settings: Settings): string | null;
+  solve(problem: Problem, settings: Settings, ctx: SolveContext): Promise<SolveResult>;
+}
