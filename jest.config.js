@@ -5,7 +5,7 @@
  *  components — React Native components under the jest-expo web preset
  *  e2e        — playwright-core driving Debian's Chromium against the exported web app
  */
-const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.jest.json', isolatedModules: true, diagnostics: false }];
+const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.jest.json', diagnostics: false }];
 
 const nodeProject = (name, extra = {}) => ({
   displayName: name,
@@ -23,6 +23,7 @@ module.exports = {
     nodeProject('api', {
       globalSetup: '<rootDir>/tests/api/setup/global-setup.ts',
       globalTeardown: '<rootDir>/tests/api/setup/global-teardown.ts',
+      setupFilesAfterEnv: ['<rootDir>/tests/support/long-timeout.ts'],
     }),
     {
       displayName: 'components',
@@ -32,6 +33,6 @@ module.exports = {
       // jest-expo/web otherwise loads the native react-native package (see DEVELOPERS.md).
       moduleNameMapper: { '^react-native$': 'react-native-web', '^@/(.*)$': '<rootDir>/$1' },
     },
-    nodeProject('e2e', { testTimeout: 120000 }),
+    nodeProject('e2e', { setupFilesAfterEnv: ['<rootDir>/tests/support/long-timeout.ts'] }),
   ],
 };

@@ -1,0 +1,17 @@
+import { Redirect, Slot } from 'expo-router';
+import { AppShell } from '../../components/shell/AppShell';
+import { FullScreenStatus } from '../../components/shell/FullScreenStatus';
+import { useMeQuery } from '../../components/queries/auth';
+
+/** Signed-in area: everything under it needs a session; the shell shows the current organisation. */
+export default function SignedInLayout() {
+  const me = useMeQuery();
+  if (me.isPending) return <FullScreenStatus label="Loading your organisation…" />;
+  if (me.isError) return <FullScreenStatus label="Spinyard cannot be reached right now." error={me.error.message} onRetry={() => me.refetch()} />;
+  if (!me.data) return <Redirect href="/sign-in" />;
+  return (
+    <AppShell organisationName={me.data.current?.name ?? 'No organisation'} role={me.data.current?.role ?? null}>
+      <Slot />
+    </AppShell>
+  );
+}

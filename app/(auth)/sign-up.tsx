@@ -1,0 +1,5 @@
+import { SignUpForm } from '../../components/auth/SignUpForm';
+
+export default function SignUpScreen() {
+  return <SignUpForm />;
+}

@@ -1,0 +1,46 @@
+import { StyleSheet, View } from 'react-native';
+import { Link, useRouter } from 'expo-router';
+import { SignInSchema, type SignIn } from '../../shared/schemas/auth';
+import { useSignInMutation } from '../queries/auth';
+import { colors, space } from '../theme';
+import { Button } from '../ui/Button';
+import { Card } from '../ui/Card';
+import { Notice } from '../ui/Notice';
+import { TextField } from '../ui/TextField';
+import { Heading, Small } from '../ui/Text';
+import { useZodForm } from '../ui/useZodForm';
+
+export function SignInForm() {
+  const router = useRouter();
+  const form = useZodForm(SignInSchema, { email: '', password: '' });
+  const signIn = useSignInMutation();
+  const submit = () => {
+    const body = form.validate() as SignIn | null;
+    if (!body) return;
+    signIn.mutate(body, { onSuccess: () => router.replace('/networks'), onError: form.fromServer });
+  };
+  return (
+    <Card style={styles.card} testID="sign-in-form">
+      <Heading>Sign in</Heading>
+      {form.errors._ ? <Notice tone="error">{form.errors._}</Notice> : null}
+      <TextField label="E-mail" value={form.values.email} onChangeText={form.set('email')} error={form.errors.email} autoCapitalize="none" autoComplete="email" keyboardType="email-address" inputMode="email" testID="sign-in-email" />
+      <TextField label="Password" value={form.values.password} onChangeText={form.set('password')} error={form.errors.password} secureTextEntry autoComplete="current-password" onSubmitEditing={submit} testID="sign-in-password" />
+      <Button label="Sign in" onPress={submit} busy={signIn.isPending} testID="sign-in-submit" />
+      <View style={styles.links}>
+        <Link href="/sign-up" style={styles.link}>
+          <Small style={styles.linkText}>Create an organisation</Small>
+        </Link>
+        <Link href="/reset" style={styles.link}>
+          <Small style={styles.linkText}>Forgot your password?</Small>
+        </Link>
+      </View>
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  card: { gap: space.md },
+  links: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between', gap: space.sm },
+  link: { minHeight: 44, justifyContent: 'center', paddingVertical: space.sm },
+  linkText: { color: colors.ink, textDecorationLine: 'underline' },
+});

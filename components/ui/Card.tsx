@@ -1,0 +1,10 @@
+import { StyleSheet, View, type ViewProps } from 'react-native';
+import { colors, radius, space } from '../theme';
+
+export function Card(props: ViewProps) {
+  return <View {...props} style={[styles.card, props.style]} />;
+}
+
+const styles = StyleSheet.create({
+  card: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, padding: space.lg, gap: space.sm },
+});

@@ -1,0 +1,101 @@
+import path from 'node:path';
+import fs from 'node:fs';
+import express, { type Request, type Response, type NextFunction } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import pinoHttp from 'pino-http';
+// eslint-disable-next-line @typescript-eslint/no-require-imports
+const SequelizeStoreFactory = require('connect-session-sequelize');
+import type { Deps } from './deps';
+import { apiRoutes } from './routes';
+import { errorBody, mountRoutes, type RouteSpec } from './lib/routes';
+
+export const SESSION_COOKIE = 'spinyard.sid';
+export const SESSION_MAX_AGE_MS = 14 * 24 * 3600 * 1000;
+
+export interface AppExtras {
+  /** Middleware that sets req.auth from the session or a Bearer token (accounts). */
+  authenticate?: (req: Request, res: Response, next: NextFunction) => void;
+  /** Extra routes (tests). */
+  routes?: RouteSpec[];
+}
+
+/** The Express application: API under /api, the exported web app from the same origin. */
+export function createApp(deps: Deps, extras: AppExtras = {}) {
+  const { config, logger } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.NODE_ENV === 'production' ? 1 : false);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"], // react-native-web writes its styles into <style> tags
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          frameAncestors: ["'none'"],
+          formAction: ["'self'"],
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+  if (config.NODE_ENV !== 'test') app.use(
+      pinoHttp({
+        logger,
+        autoLogging: { ignore: (req) => !req.url?.startsWith('/api') || req.url === '/api/health' },
+        serializers: { req: (r) => ({ method: r.method, url: r.url }), res: (r) => ({ status: r.statusCode }) },
+      }),
+    );
+
+  const SequelizeStore = SequelizeStoreFactory(session.Store);
+  const store = new SequelizeStore({ db: deps.db, table: 'Session', checkExpirationInterval: 15 * 60 * 1000, expiration: SESSION_MAX_AGE_MS });
+  const api = express.Router();
+  api.use('/billing/webhook', express.raw({ type: '*/*', limit: '1mb' }));
+  api.use(express.json({ limit: '25mb' }));
+  api.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: config.SESSION_SECRET,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.NODE_ENV === 'production', maxAge: SESSION_MAX_AGE_MS },
+    }),
+  );
+  api.use((req, _res, next) => {
+    req.auth = null;
+    next();
+  });
+  if (extras.authenticate) api.use(extras.authenticate);
+  mountRoutes(api, [...apiRoutes(deps), ...(extras.routes ?? [])]);
+  api.use((_req, res) => res.status(404).json({ error: 'No such API route. See /api/openapi.json for the list.' }));
+  api.use((err: unknown, req: Request, res: Response, _next: NextFunction) => {
+    const { status, body } = errorBody(err);
+    if (status >= 500) logger.error({ err, url: req.originalUrl }, 'request failed');
+    res.status(status).json(body);
+  });
+  app.use('/api', api);
+
+  const webDir = config.WEB_DIR ?? path.resolve(__dirname, '..', 'dist', 'web');
+  const indexHtml = path.join(webDir, 'index.html');
+  app.use(express.static(webDir, { index: false, maxAge: '1h', setHeaders: (res, file) => { if (file.includes(`${path.sep}_expo${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable'); } }));
+  // Single-page app fallback (Express 5 has no '*' route): every other GET gets index.html.
+  app.use((req, res, next) => {
+    if (req.method !== 'GET' && req.method !== 'HEAD') return next();
+    if (!fs.existsSync(indexHtml)) {
+      res.status(503).type('text/plain').send('The web app has not been built yet. Run `npm run build:web` (npm start does this for you).');
+      return;
+    }
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(indexHtml);
+  });
+  return { app, sessionStore: store };
+}

@@ -1,0 +1,8 @@
+import type { Deps } from '../deps';
+import type { RouteSpec } from '../lib/routes';
+import { healthRoutes } from './health';
+
+/** The API's route table, in one list (mounted under /api; read by the OpenAPI and isolation tests). */
+export function apiRoutes(deps: Deps): RouteSpec[] {
+  return [...healthRoutes(deps)];
+}

@@ -1,0 +1,27 @@
+#!/usr/bin/env bash
+# `npm test`: the same installs as `npm start`, then private MariaDB/Redis instances on other
+# ports and data folders (profile "test"), then every jest project. Non-zero exit on any failure.
+source "$(dirname "$0")/services.sh"
+profile_env test
+mkdir -p "$ROOT/.data"
+ensure_debian_packages
+ensure_node_modules
+build_web_if_stale
+
+cleanup() { trap - INT TERM EXIT; stop_redis; stop_mariadb; }
+trap cleanup INT TERM EXIT
+start_mariadb
+start_redis
+
+cd "$ROOT"
+export NODE_ENV=test CI="${CI:-}"
+# Two workers suit the 2-core machines; e2e and api suites share services, so they run serially.
+extra=(); [ $# -gt 0 ] && extra=(--passWithNoTests)
+set +e
+npx jest --selectProjects unit components --maxWorkers=2 "${extra[@]}" "$@"
+status=$?
+npx jest --selectProjects api e2e --runInBand "${extra[@]}" "$@"
+status2=$?
+set -e
+if [ $status -ne 0 ] || [ $status2 -ne 0 ]; then say "tests failed"; exit 1; fi
+say "all test projects passed"
