@@ -75,7 +75,7 @@ describe('pinned depots substitute fixed spins (fewer qubits, same energies)', (
     const edges = randomGraph(rng, n, 0.6, () => 1 + rng.int(3));
     const tolerance = name.includes('tolerance') ? 0.3 : 0;
     const weights = Array.from({ length: n }, () => 1 + rng.int(2));
-    const pins = kind === 'kway' ? { '2': 1 } : { '2': 1, '5': 0 };
+    const pins: Record<string, number> = kind === 'kway' ? { '2': 1 } : { '2': 1, '5': 0 };
     const spec = { kind, k: kind === 'kway' ? 3 : undefined, tolerance };
     const full = encode(problemOf(n, edges, spec, weights));
     const pinnedProblem = problemOf(n, edges, { ...spec, pins }, weights);
