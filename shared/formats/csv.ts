@@ -27,13 +27,11 @@ function readRows(file: CsvFile, issues: FormatIssue[]): CsvRow[] {
   let start = 0, line = 1;
   Papa.parse<string[]>(text, {
     skipEmptyLines: false,
-    delimitersToGuess: [',', ';', '\t', '|'],
+    delimiter: headerDelimiter(text),
     step: (result) => {
       const end = result.meta.cursor;
-      for (const e of result.errors) {
-        if (e.code === 'UndetectableDelimiter') continue; // one-column files: reported by the header check
-        issues.push({ ...(file.name ? { file: file.name } : {}), line, severity: 'error', message: `${e.message.replace(/\.$/, '')}; close the quote or remove it` });
-      }
+      const e = result.errors[0];
+      if (e) issues.push({ ...(file.name ? { file: file.name } : {}), line, severity: 'error', message: `${e.message.replace(/\.$/, '')}; close the quote or remove it` });
       const cells = result.data;
       if (!(cells.length === 1 && cells[0].trim() === '') && result.errors.length === 0) rows.push({ cells, line });
       for (let i = start; i < end && i < text.length; i++) if (text.charCodeAt(i) === 10) line++;
@@ -41,6 +39,20 @@ function readRows(file: CsvFile, issues: FormatIssue[]): CsvRow[] {
     },
   });
   return rows;
+}
+
+/**
+ * The delimiter is read off the header row alone (plain column names), so commas or semicolons
+ * inside quoted ids further down cannot mislead the guess. Comma unless another wins.
+ */
+function headerDelimiter(text: string): string {
+  const header = text.split('\n').find((l) => l.trim() !== '') ?? '';
+  let best = ',', bestCount = 0;
+  for (const d of [',', ';', '\t', '|']) {
+    const count = header.split(d).length - 1;
+    if (count > bestCount) { best = d; bestCount = count; }
+  }
+  return best;
 }
 
 /** Maps header names (case-insensitive, trimmed) to column indices; warns about the rest. */
@@ -140,11 +152,13 @@ export function parseCsvNetwork(lanesFile: CsvFile, depotsFile?: CsvFile): Parse
 
 /** Lanes as CSV with header from,to,weight. */
 export function writeLanesCsv(doc: NetworkDocument): string {
+  if (doc.lanes.length === 0) return `${LANE_COLUMNS.join(',')}\n`; // unparse drops the header of an empty table
   return Papa.unparse({ fields: [...LANE_COLUMNS], data: doc.lanes.map((l) => [l.from, l.to, l.weight]) }, { newline: '\n' }) + '\n';
 }
 
 /** Depots as CSV with header id,name,lat,lon,weight (empty cells for absent fields). */
 export function writeDepotsCsv(doc: NetworkDocument): string {
   const cell = (v: string | number | undefined) => (v === undefined ? '' : v);
+  if (doc.depots.length === 0) return `${DEPOT_COLUMNS.join(',')}\n`;
   return Papa.unparse({ fields: [...DEPOT_COLUMNS], data: doc.depots.map((d) => [d.id, cell(d.name), cell(d.lat), cell(d.lon), cell(d.weight)]) }, { newline: '\n' }) + '\n';
 }

@@ -62,6 +62,7 @@ export function finishNetwork(draft: DraftNetwork, issues: FormatIssue[], option
   }
 
   // Dropping a bad depot can orphan lanes, which the next pass then reports; two passes settle it.
+  const droppedIds = new Set<string>();
   for (let pass = 0; pass < 3; pass++) {
     const found = checkNetwork({ depots, lanes });
     if (found.length === 0) break;
@@ -69,7 +70,18 @@ export function finishNetwork(draft: DraftNetwork, issues: FormatIssue[], option
     const badLanes = new Set<number>();
     for (const f of found) {
       const at = f.where === 'depots' ? depotAt[f.row - 1] : laneAt[f.row - 1];
-      issues.push({ ...locate(at), where: f.where, severity: 'error', message: f.message });
+      let message = f.message;
+      if (f.where === 'lanes') {
+        if (badLanes.has(f.row - 1)) continue; // one message per lane is enough
+        const l = lanes[f.row - 1];
+        const orphan = [l.from, l.to].find((id) => droppedIds.has(id));
+        if (orphan !== undefined) message = `lane ${l.from}–${l.to} uses depot "${orphan}", which was left out because of its own error; fix that depot's row`;
+      } else {
+        const id = depots[f.row - 1].id;
+        // A repeated id keeps its first row, so lanes to it stay valid.
+        if (!message.includes('appears twice') && typeof id === 'string') droppedIds.add(id);
+      }
+      issues.push({ ...locate(at), where: f.where, severity: 'error', message });
       (f.where === 'depots' ? badDepots : badLanes).add(f.row - 1);
     }
     const keepD = depots.map((_, i) => i).filter((i) => !badDepots.has(i));
@@ -116,7 +128,8 @@ export function finishNetwork(draft: DraftNetwork, issues: FormatIssue[], option
 
 /** Errors first, then by file and position, so the first line printed is the one to fix first. */
 function sortIssues(issues: FormatIssue[]): FormatIssue[] {
-  const pos = (i: FormatIssue) => i.line ?? i.feature ?? i.row ?? -1;
+  // Rows (JSON, GraphML without positions) sort depots before lanes; lines and features by place.
+  const pos = (i: FormatIssue) => i.line ?? i.feature ?? (i.row !== undefined ? (i.where === 'lanes' ? 1e9 : 0) + i.row : -1);
   return issues
     .map((issue, k) => ({ issue, k }))
     .sort((a, b) =>
