@@ -35,3 +35,10 @@ export function totalAbsLaneWeight(problem: Problem): number {
   for (let e = 0; e < problem.network.m; e++) s += Math.abs(problem.network.laneWeight[e]);
   return s;
 }
+
+/** Depot-qubit bits of a side assignment (inverse of decodeSides on free depots). */
+export function encodeSides(qubitOfDepot: Int32Array, free: number, assignment: ArrayLike<number>): Uint8Array {
+  const bits = new Uint8Array(free);
+  for (let i = 0; i < qubitOfDepot.length; i++) if (qubitOfDepot[i] >= 0) bits[qubitOfDepot[i]] = assignment[i] ? 1 : 0;
+  return bits;
+}

@@ -47,10 +47,13 @@ export function encodeKwayOneHot(problem: Problem, opts: KwayEncodingOptions = {
   const A2 = margin * scale;
   const A1 = margin * k * scale;
   const b = createQuboBuilder(numQubits);
+  const crossing = createQuboBuilder(numQubits);
   const ref = (i: number, c: number): VarRef => (qubitOfDepot[i] >= 0 ? qubitOfDepot[i] + c : pinnedRef(problem.pins[i] === c ? 1 : 0));
   for (let e = 0; e < m; e++) {
-    b.constant(laneWeight[e]);
-    for (let c = 0; c < k; c++) b.xx(ref(laneFrom[e], c), ref(laneTo[e], c), -laneWeight[e]);
+    for (const t of [b, crossing]) {
+      t.constant(laneWeight[e]);
+      for (let c = 0; c < k; c++) t.xx(ref(laneFrom[e], c), ref(laneTo[e], c), -laneWeight[e]);
+    }
   }
   const ones = new Array(k).fill(1);
   for (let i = 0; i < n; i++) {
@@ -82,6 +85,13 @@ export function encodeKwayOneHot(problem: Problem, opts: KwayEncodingOptions = {
     method: 'kway-onehot',
     numQubits,
     operator: quboToIsing(b.build()),
+    // On valid one-hot states this is the crossing weight; broken states count lanes per shared region.
+    valueOperator: quboToIsing(crossing.build()),
+    encodeAssignment: (a) => {
+      const bits = new Uint8Array(depotQubits);
+      for (let i = 0; i < n; i++) if (qubitOfDepot[i] >= 0) bits[qubitOfDepot[i] + a[i]] = 1;
+      return bits;
+    },
     depotQubits,
     qubitOfDepot,
     decode,

@@ -1,7 +1,7 @@
 import { crossingWeight } from '../problem/evaluate';
 import type { Problem } from '../problem/types';
 import { createIsingBuilder, pinnedRef } from './builder';
-import { decodeSides, freeDepotQubits } from './depots';
+import { decodeSides, encodeSides, freeDepotQubits } from './depots';
 import type { Encoding } from './types';
 
 /**
@@ -14,10 +14,13 @@ export function encodeMaxCut(problem: Problem): Encoding {
   const { qubitOfDepot, free } = freeDepotQubits(problem);
   const ref = (i: number) => (qubitOfDepot[i] >= 0 ? qubitOfDepot[i] : pinnedRef(problem.pins[i]));
   const b = createIsingBuilder(free);
+  const cut = createIsingBuilder(free);
   const { m, laneFrom, laneTo, laneWeight } = problem.network;
   for (let e = 0; e < m; e++) {
     b.zz(ref(laneFrom[e]), ref(laneTo[e]), laneWeight[e] / 2);
     b.constant(-laneWeight[e] / 2);
+    cut.zz(ref(laneFrom[e]), ref(laneTo[e]), -laneWeight[e] / 2);
+    cut.constant(laneWeight[e] / 2);
   }
   return {
     kind: 'maxcut',
@@ -26,6 +29,8 @@ export function encodeMaxCut(problem: Problem): Encoding {
     operator: b.build(),
     depotQubits: free,
     qubitOfDepot,
+    valueOperator: cut.build(),
+    encodeAssignment: (a) => encodeSides(qubitOfDepot, free, a),
     decode: (state) => decodeSides(problem, qubitOfDepot, state),
     valueOf: (a) => crossingWeight(problem, a),
     feasible: () => true,

@@ -45,6 +45,13 @@ export interface Encoding {
   qubitOfDepot: Int32Array;
   /** Region/side per depot (input order, pinned depots included) from a basis index or bits. */
   decode(state: number | Uint8Array): Int32Array;
+  /**
+   * The business value as an operator on the same qubits (maxcut: the cut; partitions: the
+   * crossing weight without penalties), so its exact expectation is one diagonal pass.
+   */
+  valueOperator: IsingOperator;
+  /** Depot-qubit bits (length depotQubits) that encode an assignment (warm starts). */
+  encodeAssignment(assignment: ArrayLike<number>): Uint8Array;
   /** Business value of an assignment (crossingWeight: cut for maxcut, crossing for partitions). */
   valueOf(assignment: ArrayLike<number>): number;
   /** Balance rule of shared/engine/problem/evaluate.ts (always true for maxcut). */
