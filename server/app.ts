@@ -97,5 +97,7 @@ export function createApp(deps: Deps, extras: AppExtras = {}) {
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(indexHtml);
   });
-  return { app, sessionStore: store };
+  /** Stop background timers (the session store's expiry sweep). */
+  const dispose = () => store.stopExpiringSessions?.();
+  return { app, sessionStore: store, dispose };
 }

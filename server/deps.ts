@@ -20,12 +20,13 @@ export function createDeps(config: Config): Deps {
   const logger = createLogger(config.NODE_ENV === 'test' ? (process.env.LOG_LEVEL ?? 'silent') : config.LOG_LEVEL);
   const db = createDatabase(config);
   const models = defineModels(db);
-  const redis = new Redis(config.REDIS_URL, { maxRetriesPerRequest: null, enableOfflineQueue: true, lazyConnect: true, retryStrategy: (n) => Math.min(n * 200, 2000) });
+  const redis = new Redis(config.REDIS_URL, { maxRetriesPerRequest: null, enableOfflineQueue: true, lazyConnect: true, disconnectTimeout: 200, retryStrategy: (n) => Math.min(n * 200, 2000) });
   redis.on('error', () => {}); // health checks report Redis state; reconnects happen in the background
   const mailer = createMailer(config, logger);
   return { config, db, models, redis, mailer, logger };
 }
 
 export async function closeDeps(deps: Deps): Promise<void> {
-  await Promise.allSettled([deps.db.close(), deps.redis.quit().catch(() => deps.redis.disconnect()), deps.mailer.close()]);
+  const redisClosed = deps.redis.status === 'ready' ? deps.redis.quit().catch(() => deps.redis.disconnect()) : Promise.resolve(deps.redis.disconnect());
+  await Promise.allSettled([deps.db.close(), redisClosed, deps.mailer.close()]);
 }

@@ -20,7 +20,7 @@ export async function startServer(opts: { seedDemo?: boolean } = {}): Promise<{ 
   }
   const applied = await migrate(deps.db);
   if (applied.length) deps.logger.info({ applied }, 'migrations applied');
-  const { app } = createApp(deps, serverExtras(deps));
+  const { app, dispose } = createApp(deps, serverExtras(deps));
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.PORT, config.HOST, () => resolve(s));
     s.on('error', (err: NodeJS.ErrnoException) =>
@@ -29,8 +29,10 @@ export async function startServer(opts: { seedDemo?: boolean } = {}): Promise<{ 
   });
   await afterStart(deps, { seedDemo: !!opts.seedDemo });
   const stop = async () => {
-    await new Promise<void>((resolve) => server.close(() => resolve()));
+    const closed = new Promise<void>((resolve) => server.close(() => resolve()));
     server.closeAllConnections?.();
+    await closed;
+    dispose();
     await closeDeps(deps);
   };
   return { server, deps, stop };

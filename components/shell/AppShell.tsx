@@ -41,7 +41,7 @@ export function AppShell(props: { organisationName: string; role: Role | null; h
           </View>
           {visible.map((d) => (
             <Link key={d.href} href={d.href} asChild>
-              <Pressable accessibilityRole="link" accessibilityLabel={d.label} accessibilityState={{ selected: isActive(d.href) }} style={[styles.railItem, isActive(d.href) && styles.railItemActive]} testID={`nav-${d.glyph}`}>
+              <Pressable accessibilityRole="link" accessibilityLabel={d.label} aria-current={isActive(d.href) ? 'page' : undefined} style={[styles.railItem, isActive(d.href) && styles.railItemActive]} testID={`nav-${d.glyph}`}>
                 <Glyph name={d.glyph} color={isActive(d.href) ? colors.ink : colors.onInk} />
                 <Text style={[styles.railText, isActive(d.href) && styles.railTextActive]}>{d.label}</Text>
               </Pressable>
@@ -63,7 +63,7 @@ export function AppShell(props: { organisationName: string; role: Role | null; h
       <View style={[styles.bar, { paddingBottom: Math.max(insets.bottom, space.xs) }]} accessibilityRole="navigation" accessibilityLabel="Main" testID="shell-tabbar">
         {visible.map((d) => (
           <Link key={d.href} href={d.href} asChild>
-            <Pressable accessibilityRole="link" accessibilityLabel={d.label} accessibilityState={{ selected: isActive(d.href) }} style={styles.barItem} testID={`nav-${d.glyph}`}>
+            <Pressable accessibilityRole="link" accessibilityLabel={d.label} aria-current={isActive(d.href) ? 'page' : undefined} style={styles.barItem} testID={`nav-${d.glyph}`}>
               <View style={[styles.barPill, isActive(d.href) && styles.barPillActive]}>
                 <Glyph name={d.glyph} color={isActive(d.href) ? colors.ink : colors.inkSoft} />
               </View>
