@@ -5,6 +5,7 @@
  * classical bounds and kept only when consistent, gap and proof of optimality derived here.
  * Nothing a solver says about its own answer is passed on unchecked.
  */
+import { encodeProblem, type EncodingOptions, type PenaltyTerm } from '../encodings';
 import { crossingWeight, gapOf, isBalanced, respectsPins } from '../problem/evaluate';
 import { senseOf, type Problem, type Sense } from '../problem/types';
 import { computeBounds } from './classical';
@@ -151,4 +152,96 @@ const defaultOrchestrator = createOrchestrator(getSolver, computeBounds as Bound
 /** Runs a registered solver on a problem and returns the independently checked result. */
 export function solveProblem(problem: Problem, solverName: string, settings: unknown, ctx: SolveContext, options?: RunOptions): Promise<RunResult> {
   return defaultOrchestrator.solveProblem(problem, solverName, settings, ctx, options);
+}
+
+/** What `spinyard inspect` and the UI show about the cost operator of a problem. */
+export interface EncodingSummary {
+  method: string;
+  qubits: number;
+  depotQubits: number;
+  slackQubits: number;
+  /** Non-zero Pauli terms besides the identity (Z_i and Z_iZ_j). */
+  pauliTerms: number;
+  linearTerms: number;
+  quadraticTerms: number;
+  /** Coefficient of the identity. */
+  offset: number;
+  penalties: PenaltyTerm[];
+  rule: string;
+  approximate: boolean;
+  /** Measurement groups: every term of a diagonal (Ising) operator is a Z-string, so one group. */
+  commutingGroups: number;
+  /** Σ|c_k| over the non-identity terms (sets the state-independent shot budget). */
+  coefficientNorm: number;
+  /** Target standard error of the energy estimate the shot budget is for. */
+  precision: number;
+  /** Shots that reach `precision` in any state: ⌈(Σ|c_k|)²/ε²⌉. */
+  shots: number;
+  shotRule: string;
+}
+
+export interface DescribeOptions extends EncodingOptions {
+  /** Target standard error ε of the energy; default 1 % of the total |lane weight|. */
+  precision?: number;
+}
+
+/** Above this many estimated Pauli terms the operator is not built (memory, not physics). */
+export const MAX_DESCRIBED_TERMS = 5_000_000;
+
+/** Rough size of the operator before building it: penalties square sums over all depots. */
+export function estimatedPauliTerms(problem: Problem): number {
+  const { n, m } = problem.network;
+  if (problem.kind === 'maxcut') return n + m;
+  if (problem.kind === 'bisection') return n + m + ((n + 8) * (n + 7)) / 2;
+  const k = problem.k;
+  return n * k + m * k + (n * k * (k - 1)) / 2 + (k * (n + 6) * (n + 5)) / 2;
+}
+
+/**
+ * The encoding of a problem as the variational solvers would use it: qubits, terms, offset,
+ * penalty weights with their rule, measurement groups and a shot budget. Shots use the
+ * state-independent bound Var(Ê) ≤ (Σ|c_k|)²/S for one commuting group (textbook; allocation
+ * usually credited to Wecker, Hastings, Troyer, PRA 92, 042303 (2015)).
+ */
+export function describeEncoding(problem: Problem, opts: DescribeOptions = {}): EncodingSummary {
+  const estimate = estimatedPauliTerms(problem);
+  if (estimate > MAX_DESCRIBED_TERMS) {
+    throw new Error(`the ${problem.kind} operator would have about ${Math.round(estimate).toLocaleString('en')} Pauli terms (limit ${MAX_DESCRIBED_TERMS.toLocaleString('en')}); use a smaller network`);
+  }
+  const enc = encodeProblem(problem, opts);
+  const op = enc.operator;
+  let linearTerms = 0, quadraticTerms = 0, norm = 0;
+  for (let q = 0; q < op.numQubits; q++) if (op.linear[q] !== 0) { linearTerms++; norm += Math.abs(op.linear[q]); }
+  for (let t = 0; t < op.quadCoeff.length; t++) if (op.quadCoeff[t] !== 0) { quadraticTerms++; norm += Math.abs(op.quadCoeff[t]); }
+  let totalAbs = 0;
+  for (const w of problem.network.laneWeight) totalAbs += Math.abs(w);
+  const precision = opts.precision ?? 0.01 * Math.max(totalAbs, 1e-12);
+  if (!(precision > 0) || !Number.isFinite(precision)) throw new Error(`precision must be a positive number (got ${opts.precision})`);
+  const shots = norm === 0 ? 0 : Math.ceil((norm / precision) ** 2 - 1e-9);
+  return {
+    method: enc.method,
+    qubits: enc.numQubits,
+    depotQubits: enc.depotQubits,
+    slackQubits: enc.numQubits - enc.depotQubits,
+    pauliTerms: linearTerms + quadraticTerms,
+    linearTerms,
+    quadraticTerms,
+    offset: op.offset,
+    penalties: enc.penalties,
+    rule: enc.rule,
+    approximate: enc.approximate,
+    commutingGroups: linearTerms + quadraticTerms > 0 ? 1 : 0,
+    coefficientNorm: norm,
+    precision,
+    shots,
+    shotRule: `one Z-basis measurement per shot gives every term; S = ⌈(Σ|c_k|)²/ε²⌉ = ⌈(${fmt(norm)}/${fmt(precision)})²⌉ bounds the standard error by ε in any state`,
+  };
+}
+
+const fmt = (x: number) => (Number.isInteger(x) ? String(x) : x.toPrecision(6));
+
+/** Qubits of the direct encoding, or null when the operator would be too large to build. */
+export function qubitsFor(problem: Problem, opts: EncodingOptions = {}): number | null {
+  if (estimatedPauliTerms(problem) > MAX_DESCRIBED_TERMS) return null;
+  return encodeProblem(problem, opts).numQubits;
 }
