@@ -1,8 +1,9 @@
 import type { Deps } from '../deps';
 import type { RouteSpec } from '../lib/routes';
 import { healthRoutes } from './health';
+import { networksRoutes } from './networks';
 
 /** The API's route table, in one list (mounted under /api; read by the OpenAPI and isolation tests). */
 export function apiRoutes(deps: Deps): RouteSpec[] {
-  return [...healthRoutes(deps)];
+  return [...healthRoutes(deps), ...networksRoutes(deps)];
 }
