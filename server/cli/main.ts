@@ -1,0 +1,201 @@
+/**
+ * `spinyard` command line: solve, inspect and list solvers on network files. All numerics
+ * come from shared/engine (the same code the server and workers run); this file only turns
+ * flags into calls and results into text or one JSON object on stdout.
+ */
+import { parseArgs } from 'node:util';
+import type { NetworkFormat } from '../../shared/formats';
+import type { SolveProgress } from '../../shared/engine/solvers/types';
+import { loadNetwork, numberFlag, problemFrom, UserError } from './load';
+import { inspectReport, inspectText, solveReport, solveSummary, solversText } from './report';
+import { USAGE } from './usage';
+
+type Orchestrate = typeof import('../../shared/engine/solvers/orchestrate');
+type Registry = typeof import('../../shared/engine/solvers/registry');
+// Loaded on demand so file and flag errors are reported without loading every solver.
+const orchestrate = (): Orchestrate => require('../../shared/engine/solvers/orchestrate');
+const registry = (): Registry => require('../../shared/engine/solvers/registry');
+
+const OPTIONS = {
+  problem: { type: 'string', default: 'maxcut' },
+  k: { type: 'string' },
+  solver: { type: 'string' },
+  layers: { type: 'string' },
+  shots: { type: 'string' },
+  set: { type: 'string', multiple: true, default: [] as string[] },
+  seed: { type: 'string', default: '1' },
+  'time-limit': { type: 'string', default: '10' },
+  tolerance: { type: 'string' },
+  pin: { type: 'string', multiple: true, default: [] as string[] },
+  depots: { type: 'string' },
+  format: { type: 'string' },
+  precision: { type: 'string' },
+  'no-bounds': { type: 'boolean', default: false },
+  json: { type: 'boolean', default: false },
+  progress: { type: 'boolean', default: false },
+  help: { type: 'boolean', short: 'h', default: false },
+} as const;
+
+type Flags = ReturnType<typeof parseArgs<{ options: typeof OPTIONS; allowPositionals: true }>>['values'];
+
+export interface CliIo {
+  out: (text: string) => void;
+  err: (text: string) => void;
+  /** Progress lines are shown only on a terminal, or with --progress. */
+  errIsTty: boolean;
+}
+
+const FORMATS: NetworkFormat[] = ['edgelist', 'csv', 'json', 'graphml', 'geojson'];
+
+function fileFlags(flags: Flags, positionals: string[], command: string): { file: string; format?: NetworkFormat } {
+  if (positionals.length !== 1) throw new UserError(`${command} needs exactly one network FILE (got ${positionals.length})`, [USAGE]);
+  if (flags.format !== undefined && !FORMATS.includes(flags.format as NetworkFormat)) throw new UserError(`--format ${flags.format}: choose one of ${FORMATS.join(', ')}`);
+  return { file: positionals[0], ...(flags.format ? { format: flags.format as NetworkFormat } : {}) };
+}
+
+/** --layers, --shots and --set KEY=VALUE become the solver's settings object. */
+function settingsFrom(flags: Flags): Record<string, unknown> {
+  const settings: Record<string, unknown> = {};
+  const layers = numberFlag('layers', flags.layers, (v) => Number.isInteger(v) && v >= 1, 'a whole number of layers ≥ 1');
+  const shots = numberFlag('shots', flags.shots, (v) => Number.isInteger(v) && v >= 0, 'a whole number of shots ≥ 0 (0 = exact expectation)');
+  if (layers !== undefined) settings.layers = layers;
+  if (shots !== undefined) settings.shots = shots;
+  for (const item of flags.set) {
+    const eq = item.indexOf('=');
+    if (eq <= 0) throw new UserError(`--set ${item}: write KEY=VALUE, e.g. --set tenure=20`);
+    const key = item.slice(0, eq), raw = item.slice(eq + 1).trim();
+    settings[key] = raw === 'true' ? true : raw === 'false' ? false : raw !== '' && Number.isFinite(Number(raw)) ? Number(raw) : raw;
+  }
+  return settings;
+}
+
+function warn(io: CliIo, warnings: string[]) {
+  for (const w of warnings) io.err(`spinyard: warning: ${w}`);
+}
+
+async function solveCommand(flags: Flags, positionals: string[], io: CliIo, signals: Signals): Promise<number> {
+  const { file, format } = fileFlags(flags, positionals, 'solve');
+  if (flags.solver === undefined) throw new UserError(`solve needs --solver NAME; choose one of: ${registry().solverRegistry.names.join(', ')}`);
+  const seed = numberFlag('seed', flags.seed, Number.isInteger, 'a whole number')!;
+  const timeLimitSeconds = numberFlag('time-limit', flags['time-limit'], (v) => v > 0, 'a positive number of seconds')!;
+  const settings = settingsFrom(flags);
+  const { network, warnings } = loadNetwork(file, { ...(flags.depots ? { depots: flags.depots } : {}), ...(format ? { format } : {}) });
+  const { formatIssue } = require('../../shared/formats') as typeof import('../../shared/formats');
+  const warningText = warnings.map(formatIssue);
+  warn(io, warningText);
+  const problem = problemFrom(network, { problem: flags.problem, k: flags.k, tolerance: flags.tolerance, pins: flags.pin });
+  const { solveProblem, qubitsFor } = orchestrate();
+
+  const cancel = { cancelled: false };
+  signals.onInterrupt = () => {
+    cancel.cancelled = true;
+    io.err('spinyard: cancelling — the best answer so far will be printed (Ctrl-C again to quit at once)');
+  };
+  const showProgress = flags.progress || io.errIsTty;
+  let lastShown = 0;
+  const onProgress = (p: SolveProgress) => {
+    const now = Date.now();
+    if (!showProgress || (now - lastShown < 250 && p.fraction < 1)) return;
+    lastShown = now;
+    const parts = [`${Math.round(100 * p.fraction)}%`];
+    if (p.iteration !== undefined) parts.push(`iteration ${p.iteration}`);
+    if (p.bestValue !== undefined) parts.push(`best ${p.bestValue}`);
+    if (p.energy !== undefined) parts.push(`energy ${p.energy.toPrecision(6)}${p.stdError !== undefined ? ` ± ${p.stdError.toPrecision(2)}` : ''}`);
+    io.err(`spinyard: ${parts.join('  ')}`);
+  };
+  const result = await solveProblem(problem, flags.solver, settings, { seed, timeLimitSeconds, cancel, onProgress }, { bounds: !flags['no-bounds'] });
+  signals.onInterrupt = null;
+  const report = solveReport(file, problem, result, { qubits: qubitsFor(problem), seed, timeLimitSeconds, cancelled: cancel.cancelled, warnings: warningText });
+  io.out(flags.json ? JSON.stringify(report) : solveSummary(report));
+  return cancel.cancelled ? 130 : 0;
+}
+
+function inspectCommand(flags: Flags, positionals: string[], io: CliIo): number {
+  const { file, format } = fileFlags(flags, positionals, 'inspect');
+  const { network, warnings } = loadNetwork(file, { ...(flags.depots ? { depots: flags.depots } : {}), ...(format ? { format } : {}) });
+  const { formatIssue } = require('../../shared/formats') as typeof import('../../shared/formats');
+  warn(io, warnings.map(formatIssue));
+  const problem = problemFrom(network, { problem: flags.problem, k: flags.k, tolerance: flags.tolerance, pins: flags.pin });
+  const precision = numberFlag('precision', flags.precision, (v) => v > 0, 'a positive standard error, e.g. 0.5');
+  let summary;
+  try {
+    summary = orchestrate().describeEncoding(problem, precision !== undefined ? { precision } : {});
+  } catch (e) {
+    if (e instanceof Error && /Pauli terms/.test(e.message)) throw new UserError(e.message);
+    throw e;
+  }
+  const report = inspectReport(file, problem, summary);
+  io.out(flags.json ? JSON.stringify(report) : inspectText(report));
+  return 0;
+}
+
+function solversCommand(flags: Flags, io: CliIo): number {
+  const list = registry().listSolvers();
+  io.out(flags.json ? JSON.stringify(list) : solversText(list));
+  return 0;
+}
+
+/** SIGINT handling shared with the bootstrap: the first Ctrl-C asks the solver to stop. */
+export interface Signals {
+  onInterrupt: (() => void) | null;
+}
+
+const USER_ERRORS = new Set(['UserError', 'UnknownSolverError', 'SolverRefusedError', 'SettingsError', 'ProblemError']);
+
+/** Runs one command; returns the exit code. Never calls process.exit (tests call it directly). */
+export async function main(argv: string[], io: CliIo, signals: Signals = { onInterrupt: null }): Promise<number> {
+  try {
+    let parsed;
+    try {
+      parsed = parseArgs({ args: argv, options: OPTIONS, allowPositionals: true, strict: true });
+    } catch (e) {
+      const err = e as Error & { code?: string };
+      const flag = /'(-[^' ]+)/.exec(err.message)?.[1];
+      const message = err.code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION' && flag ? `unknown flag ${flag}`
+        : err.code === 'ERR_PARSE_ARGS_INVALID_OPTION_VALUE' && flag ? `flag ${flag} needs a value`
+        : err.message.replace(/\s+/g, ' ');
+      throw new UserError(message, [USAGE]);
+    }
+    const { values: flags, positionals } = parsed;
+    const [command, ...rest] = positionals;
+    if (flags.help || command === 'help' || command === undefined) {
+      (command === undefined && !flags.help ? io.err : io.out)(USAGE);
+      return command === undefined && !flags.help ? 2 : 0;
+    }
+    switch (command) {
+      case 'solve': return await solveCommand(flags, rest, io, signals);
+      case 'inspect': return inspectCommand(flags, rest, io);
+      case 'solvers': return solversCommand(flags, io);
+      default: throw new UserError(`unknown command "${command}"; use solve, inspect, solvers or help`, [USAGE]);
+    }
+  } catch (e) {
+    if (e instanceof Error && USER_ERRORS.has(e.name)) {
+      io.err(`spinyard: ${e.message}`);
+      for (const d of (e as UserError).details ?? []) io.err(d.startsWith('usage:') ? d : `spinyard: ${d}`);
+      return 2;
+    }
+    io.err(`spinyard: internal error: ${e instanceof Error ? e.stack ?? e.message : String(e)}`);
+    return 1;
+  }
+}
+
+/** Entry point used by spinyard.cjs: wires stdout/stderr, Ctrl-C and the exit code. */
+export function runCli(argv: string[]): void {
+  const signals: Signals = { onInterrupt: null };
+  let interrupts = 0;
+  process.on('SIGINT', () => {
+    interrupts++;
+    if (interrupts === 1 && signals.onInterrupt) signals.onInterrupt();
+    else process.exit(130);
+  });
+  const io: CliIo = {
+    out: (text) => process.stdout.write(text + '\n'),
+    err: (text) => process.stderr.write(text + '\n'),
+    errIsTty: Boolean(process.stderr.isTTY),
+  };
+  main(argv, io, signals).then((code) => {
+    process.exitCode = code;
+    // Solvers may leave worker threads or timers behind; do not wait for them once output is flushed.
+    process.stdout.write('', () => process.stderr.write('', () => process.exit(code)));
+  });
+}

@@ -1,0 +1,18 @@
+/** The help text; every flag the parser accepts is listed here. */
+export const USAGE = `usage:
+  spinyard solve FILE --solver NAME [--problem maxcut|bisection|kway] [--k K]
+                 [--layers P] [--shots M] [--set KEY=VALUE ...] [--seed S]
+                 [--time-limit SECONDS] [--tolerance T] [--pin ID=SIDE ...]
+                 [--depots DEPOTS.csv] [--format FORMAT] [--no-bounds] [--json] [--progress]
+  spinyard inspect FILE [--problem …] [--k K] [--tolerance T] [--pin ID=SIDE ...]
+                 [--precision EPS] [--depots DEPOTS.csv] [--format FORMAT] [--json]
+  spinyard solvers [--json]
+  spinyard help
+
+FILE formats (by extension): .txt edge list "n m" then "i j w" (G-set / Biq Mac layout),
+.csv lanes from,to,weight (depots id,name,lat,lon,weight via --depots), .json Spinyard
+network document, .graphml, .geojson. --format edgelist|csv|json|graphml|geojson overrides.
+Defaults: --problem maxcut, --k 3 (kway), --seed 1, --time-limit 10, --tolerance 0.
+Exit codes: 0 done, 2 bad input (file, flags, settings, refusal), 1 internal error,
+130 cancelled with Ctrl-C (the best answer so far is still printed).
+See docs/cli.md.`;

@@ -1,0 +1,140 @@
+/**
+ * The `spinyard` CLI run as a child process, the way users run it. Checks the exit codes,
+ * the messages for bad input, and that the JSON contract agrees with an independent
+ * recomputation of the printed assignment.
+ */
+import { spawn, spawnSync } from 'child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'fs';
+import os from 'os';
+import path from 'path';
+import Papa from 'papaparse';
+
+const ROOT = path.resolve(__dirname, '../../..');
+const CLI = path.join(ROOT, 'server/cli/spinyard.cjs');
+const dir = mkdtempSync(path.join(os.tmpdir(), 'spinyard-cli-'));
+const write = (name: string, text: string) => { writeFileSync(path.join(dir, name), text); return name; };
+
+function cli(...args: string[]) {
+  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: dir, encoding: 'utf8', timeout: 60_000 });
+  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+/** Cut / crossing weight of an assignment, computed here from the lanes file. */
+function crossing(lanes: [string, string, number][], ids: string[], assignment: number[]): number {
+  const side = new Map(ids.map((id, i) => [id, assignment[i]]));
+  return lanes.reduce((s, [a, b, w]) => s + (side.get(a) !== side.get(b) ? w : 0), 0);
+}
+
+// A 6-depot network: two triangles joined by one heavy lane.
+const LANES: [string, string, number][] = [['A', 'B', 1], ['B', 'C', 1], ['C', 'A', 1], ['D', 'E', 1], ['E', 'F', 1], ['F', 'D', 1], ['C', 'D', 5]];
+write('lanes.csv', `from,to,weight\n${LANES.map((l) => l.join(',')).join('\n')}\n`);
+
+describe('spinyard CLI: bad input', () => {
+  test('a malformed file: one message naming file and line, exit 2, nothing on stdout', () => {
+    write('bad.csv', 'from,to,weight\nA,B,1\nB,C,abc\n');
+    const r = cli('solve', 'bad.csv', '--solver', 'tabu');
+    expect(r.code).toBe(2);
+    expect(r.stderr.trim()).toBe('spinyard: bad.csv line 3: weight "abc" is not a number; use a number such as 12.5');
+    expect(r.stdout).toBe('');
+  });
+
+  test('a missing file and a bad flag: exit 2 (the flag with the usage)', () => {
+    expect(cli('solve', 'nowhere.csv', '--solver', 'tabu')).toMatchObject({ code: 2, stderr: expect.stringContaining('cannot read nowhere.csv') });
+    const r = cli('solve', 'lanes.csv', '--solver', 'tabu', '--colour', 'red');
+    expect(r.code).toBe(2);
+    expect(r.stderr).toContain('unknown flag --colour');
+    expect(r.stderr).toContain('usage:');
+    expect(cli('solve', 'lanes.csv', '--solver', 'tabu', '--problem', 'tsp')).toMatchObject({ code: 2, stderr: expect.stringContaining('choose one of maxcut, bisection, kway') });
+    expect(cli('solve', 'lanes.csv', '--solver', 'tabu', '--pin', 'A')).toMatchObject({ code: 2, stderr: expect.stringContaining('write ID=SIDE') });
+    expect(cli('frobnicate')).toMatchObject({ code: 2, stderr: expect.stringContaining('unknown command') });
+  });
+});
+
+describe('spinyard CLI: solving', () => {
+  test('an unknown solver lists the valid names; a refusal is exit 2', () => {
+    const r = cli('solve', 'lanes.csv', '--solver', 'nosuch');
+    expect(r.code).toBe(2);
+    expect(r.stderr).toContain('choose one of:');
+    expect(r.stderr).toContain('tabu');
+  });
+
+  test('--json max-cut: one JSON object whose value is the cut of its own assignment', () => {
+    const r = cli('solve', 'lanes.csv', '--solver', 'exact', '--json', '--progress');
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout); // progress never reaches stdout
+    for (const key of ['problem', 'solver', 'n', 'qubits', 'sense', 'value', 'assignment', 'energy', 'expectation', 'params', 'bound', 'gap', 'provenOptimal', 'seconds', 'evaluations', 'shots']) expect(out).toHaveProperty(key);
+    expect(out).toMatchObject({ problem: 'maxcut', solver: 'exact', n: 6, qubits: 6, sense: 'max', energy: null, expectation: null });
+    expect(out.assignment).toHaveLength(6);
+    expect(out.value).toBe(crossing(LANES, out.depots, out.assignment));
+    // Max-cut of two triangles joined by a lane: 2 per triangle (odd cycle, n − 1) + the 5 lane.
+    expect(out.value).toBe(9);
+    expect(out.provenOptimal).toBe(true);
+    expect(out.gap).toBe(0);
+  });
+
+  test('--json bisection: sense min, a balanced assignment, the crossing weight recomputed', () => {
+    const r = cli('solve', 'lanes.csv', '--problem', 'bisection', '--solver', 'exact', '--json');
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.sense).toBe('min');
+    expect(out.assignment.filter((a: number) => a === 0)).toHaveLength(3);
+    expect(out.value).toBe(crossing(LANES, out.depots, out.assignment));
+    expect(out.value).toBe(5); // the triangles split apart along the heavy lane
+  });
+
+  test('readable summary shows value, bound, gap and the sides', () => {
+    const r = cli('solve', 'lanes.csv', '--solver', 'exact');
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/value\s+9/);
+    expect(r.stdout).toMatch(/bound\s+9/);
+    expect(r.stdout).toContain('side 0');
+  });
+
+  test('Biq Mac g05_60.0 (G-set layout) with tabu in 2 s reaches its proven optimum 536', () => {
+    // Wiegele 2007, Biq Mac library; optimum proven by BiqBin (data/biqmac/OPTIMA.csv).
+    const optima = Papa.parse<Record<string, string>>(readFileSync('/work/shared/data/biqmac/OPTIMA.csv', 'utf8'), { header: true }).data;
+    const row = optima.find((o) => o.instance === 'g05_60.0')!;
+    expect(row.status).toBe('proven');
+    const file = '/work/shared/data/biqmac/g05_60.0';
+    const r = cli('solve', file, '--solver', 'tabu', '--time-limit', '2', '--json');
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.n).toBe(60);
+    const lanes = readFileSync(file, 'utf8').trim().split('\n').slice(1).map((l) => l.trim().split(/\s+/)).map(([a, b, w]) => [a, b, Number(w)] as [string, string, number]);
+    expect(out.value).toBe(crossing(lanes, out.depots, out.assignment));
+    expect(out.value).toBe(Number(row.optimum));
+    if (out.bound !== null) expect(out.bound).toBeGreaterThanOrEqual(536);
+  });
+
+  test('inspect --json: g05_60.0 max-cut needs 60 qubits and 885 ZZ terms, one measurement group', () => {
+    const r = cli('inspect', '/work/shared/data/biqmac/g05_60.0', '--json', '--precision', '1');
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out).toMatchObject({ depots: 60, lanes: 885, qubits: 60, pauliTerms: 885, commutingGroups: 1, offset: -442.5 });
+    expect(out.shots).toBe(Math.ceil(885 ** 2 / 4)); // (Σ|w|)²/(4ε²), ε = 1
+  });
+
+  test('solvers lists the registry', () => {
+    const r = cli('solvers', '--json');
+    expect(r.code).toBe(0);
+    const names = JSON.parse(r.stdout).map((s: { name: string }) => s.name);
+    expect(names).toEqual(expect.arrayContaining(['exact', 'tabu', 'vqe', 'qaoa']));
+  });
+});
+
+describe('spinyard CLI: Ctrl-C', () => {
+  test('SIGINT cancels the run, prints the best answer so far and exits 130', async () => {
+    // 200 depots, each joined to the next and to the one 37 further on (400 lanes).
+    const lines = Array.from({ length: 400 }, (_, e) => { const i = e % 200; return `${i + 1} ${((i + (e < 200 ? 1 : 37)) % 200) + 1} 1`; });
+    const file = write('ring.txt', `200 ${lines.length}\n${lines.join('\n')}\n`);
+    const child = spawn(process.execPath, [CLI, 'solve', file, '--solver', 'anneal', '--time-limit', '60', '--json', '--no-bounds'], { cwd: dir });
+    let stdout = '';
+    child.stdout.on('data', (d) => (stdout += d));
+    const started = Date.now();
+    setTimeout(() => child.kill('SIGINT'), 2500);
+    const code = await new Promise<number | null>((resolve) => child.on('exit', resolve));
+    expect(code).toBe(130);
+    expect(Date.now() - started).toBeLessThan(20_000);
+    expect(JSON.parse(stdout).cancelled).toBe(true);
+  }, 30_000);
+});
