@@ -14,6 +14,7 @@
  * Rotation convention: R_σ(θ) = exp(−iθσ/2); the mixer exp(−iβ Σ_j X_j) = ⊗_j R_X(2β).
  */
 import type { StateVector } from './state';
+import { pairGeneral, pairRx, quadGeneral, quadRx } from './layer-kernels';
 
 /** 2×2 complex matrix, row-major interleaved: [re00,im00,re01,im01,re10,im10,re11,im11]. */
 export type Gate2 = Float64Array;
@@ -24,7 +25,7 @@ export interface LayerBlocking {
   runBits: number;
   tileBits: number;
 }
-export const DEFAULT_BLOCKING: LayerBlocking = { lowBits: 12, runBits: 4, tileBits: 16 };
+export const DEFAULT_BLOCKING: LayerBlocking = { lowBits: 12, runBits: 3, tileBits: 15 };
 
 // ---------------------------------------------------------------- matrices
 
@@ -57,19 +58,6 @@ function pairsGeneral(a: Float64Array, x0: number, x1: number, len: number, m: F
     a[i0 + 1] = m0r * ai + m0i * ar + m1r * bi + m1i * br;
     a[i1] = m2r * ar - m2i * ai + m3r * br - m3i * bi;
     a[i1 + 1] = m2r * ai + m2i * ar + m3r * bi + m3i * br;
-  }
-}
-
-/** R_X-type pair update [[c, −is], [−is, c]] (half the arithmetic of the general kernel). */
-function pairsRx(a: Float64Array, x0: number, x1: number, len: number, c: number, s: number): void {
-  let i0 = 2 * x0, i1 = 2 * x1;
-  const end = i0 + 2 * len;
-  for (; i0 < end; i0 += 2, i1 += 2) {
-    const ar = a[i0], ai = a[i0 + 1], br = a[i1], bi = a[i1 + 1];
-    a[i0] = c * ar + s * bi;
-    a[i0 + 1] = c * ai - s * br;
-    a[i1] = c * br + s * ai;
-    a[i1 + 1] = c * bi - s * ar;
   }
 }
 
@@ -255,13 +243,14 @@ export function applyDiagonalPhase(s: StateVector, diag: Diagonal, gamma: number
 // ---------------------------------------------------------------- fused layers
 
 /**
- * The fused, blocked product layer: optional diagonal phase, then gate q on every qubit q with
- * active[q] (gates from mats[8q…8q+7], or the R_X kernel with (rxCos, rxSin) when mats is null).
+ * The fused, blocked product layer: optional diagonal phase, then one gate on every qubit
+ * (kernels from layer-kernels.ts, two qubits per pass over a block or tile).
  */
 function productLayer(
   s: StateVector,
-  mats: Float64Array | null,
-  rx: { c: number; s: number } | null,
+  /** R_X mixer: coef = [cos β, sin β]; otherwise 8 numbers per qubit. */
+  rx: boolean,
+  coef: Float64Array,
   phase: { diag: Diagonal; gamma: number } | null,
   blocking: LayerBlocking,
 ): void {
@@ -269,36 +258,53 @@ function productLayer(
   const low = Math.min(n, blocking.lowBits);
   const blockLen = 1 << low;
   const tables = phase ? phaseTables(phase.diag, phase.gamma) : null;
-  const c = rx ? rx.c : 0, sn = rx ? rx.s : 0;
   // Sweep 1: phase + qubits 0…low−1 inside each contiguous block.
   for (let start = 0; start < dim; start += blockLen) {
     const end = start + blockLen;
     if (phase) phaseRange(a, phase.diag, phase.gamma, start, end, tables);
-    for (let q = 0; q < low; q++) {
-      const half = 1 << q;
-      if (mats) for (let base = start; base < end; base += 2 * half) pairsGeneral(a, base, base + half, half, mats, 8 * q);
-      else for (let base = start; base < end; base += 2 * half) pairsRx(a, base, base + half, half, c, sn);
+    let q = 0;
+    for (; q + 1 < low; q += 2) {
+      if (rx) quadRx(a, start, end, 4 << q, 1 << q, 1 << q, coef);
+      else quadGeneral(a, start, end, 4 << q, 1 << q, 1 << q, coef, q);
+    }
+    if (q < low) {
+      if (rx) pairRx(a, start, end, 2 << q, 1 << q, 1 << q, coef);
+      else pairGeneral(a, start, end, 2 << q, 1 << q, 1 << q, coef, q);
     }
   }
-  // Further sweeps: high qubits in groups of g, tiles of 2^run contiguous × 2^g strided rows.
+  // Further sweeps: high qubits lo…hi−1. Each tile (2^run contiguous amplitudes from each of
+  // 2^(hi−lo) rows 2^lo apart) is copied into a contiguous scratch block first: rows at a
+  // power-of-two stride all fall into the same cache sets, so working on them in place thrashes
+  // L1/L2, while the scratch copy is conflict-free and the state is still read and written once.
   const run = Math.min(blocking.runBits, low);
   const g = Math.max(1, blocking.tileBits - run);
-  for (let lo = low; lo < n; lo += g) {
+  const runLen = 1 << run, runDoubles = 2 * runLen;
+  const scratch = low < n ? new Float64Array(2 << Math.min(run + g, n)) : null;
+  for (let lo = low; lo < n && scratch; lo += g) {
     const hi = Math.min(n, lo + g);
-    const rows = 1 << (hi - lo), runLen = 1 << run;
-    const midCount = 1 << (lo - run), outerCount = 1 << (n - hi);
-    for (let outer = 0; outer < outerCount; outer++) {
+    const rows = 2 ** (hi - lo), rowStride = 2 ** lo, tileSpan = 2 ** hi;
+    const tileLen = rows * runLen;
+    const midCount = 2 ** (lo - run);
+    for (let outer = 0; outer < dim; outer += tileSpan) {
       for (let mid = 0; mid < midCount; mid++) {
-        const base = outer * (1 << hi) + mid * runLen;
-        for (let q = lo; q < hi; q++) {
-          const t = q - lo, tHalf = 1 << t, qStride = 1 << q;
-          for (let jh = 0; jh < rows; jh += 2 * tHalf) {
-            for (let jl = 0; jl < tHalf; jl++) {
-              const x0 = base + (jh + jl) * (1 << lo);
-              if (mats) pairsGeneral(a, x0, x0 + qStride, runLen, mats, 8 * q);
-              else pairsRx(a, x0, x0 + qStride, runLen, c, sn);
-            }
-          }
+        const base = outer + mid * runLen;
+        for (let j = 0, src = 2 * base, dst = 0; j < rows; j++, src += 2 * rowStride) {
+          for (let k = 0; k < runDoubles; k++, dst++) scratch[dst] = a[src + k];
+        }
+        // In the scratch block qubit lo+t is bit run+t.
+        let t = 0;
+        for (; t + 1 < hi - lo; t += 2) {
+          const h = runLen * 2 ** t;
+          if (rx) quadRx(scratch, 0, tileLen, 4 * h, h, h, coef);
+          else quadGeneral(scratch, 0, tileLen, 4 * h, h, h, coef, lo + t);
+        }
+        if (t < hi - lo) {
+          const h = runLen * 2 ** t;
+          if (rx) pairRx(scratch, 0, tileLen, 2 * h, h, h, coef);
+          else pairGeneral(scratch, 0, tileLen, 2 * h, h, h, coef, lo + t);
+        }
+        for (let j = 0, dst = 2 * base, src = 0; j < rows; j++, dst += 2 * rowStride) {
+          for (let k = 0; k < runDoubles; k++, src++) a[dst + k] = scratch[src];
         }
       }
     }
@@ -307,7 +313,7 @@ function productLayer(
 
 /** exp(−iβ Σ_j X_j), fused and cache-blocked (2 passes up to 24 qubits). */
 export function applyTransverseMixer(s: StateVector, beta: number, blocking: LayerBlocking = DEFAULT_BLOCKING): void {
-  productLayer(s, null, { c: Math.cos(beta), s: Math.sin(beta) }, null, blocking);
+  productLayer(s, true, Float64Array.of(Math.cos(beta), Math.sin(beta)), null, blocking);
 }
 
 /**
@@ -322,7 +328,7 @@ export function applyQaoaLayer(
   blocking: LayerBlocking = DEFAULT_BLOCKING,
 ): void {
   checkDiagonal(s, diag);
-  productLayer(s, null, { c: Math.cos(beta), s: Math.sin(beta) }, { diag, gamma }, blocking);
+  productLayer(s, true, Float64Array.of(Math.cos(beta), Math.sin(beta)), { diag, gamma }, blocking);
 }
 
 /** Any product of single-qubit gates ⊗_q mats[q] (mats: 8·n numbers, Gate2 per qubit), fused. */
@@ -330,7 +336,7 @@ export function applyProductLayer(s: StateVector, mats: Float64Array, blocking: 
   if (mats.length !== 8 * s.numQubits) {
     throw new RangeError(`product layer needs 8 numbers per qubit (${8 * s.numQubits}), got ${mats.length}`);
   }
-  productLayer(s, mats, null, null, blocking);
+  productLayer(s, false, mats, null, blocking);
 }
 
 /** R_axis(angles[q]) on every qubit q, fused/blocked; R(θ) = exp(−iθσ/2). */
@@ -346,7 +352,7 @@ export function applyRotationLayer(
   const mats = new Float64Array(8 * n);
   const make = axis === 'x' ? rxMatrix : ryMatrix;
   for (let q = 0; q < n; q++) mats.set(make(angles[q]), 8 * q);
-  productLayer(s, mats, null, null, blocking);
+  productLayer(s, false, mats, null, blocking);
 }
 
 /** ⊗ R_Z is diagonal: phase(x) = low-bits table × high-bits table, one pass. */
