@@ -68,6 +68,10 @@ export function parseGraphml(content: string, file?: string, mapping: GraphmlMap
   if (big) return emptyResult([big]);
   const f = file !== undefined ? { file } : {};
   const issues: FormatIssue[] = [];
+  // Entity declarations can expand without bound ("billion laughs"); GraphML never needs them.
+  if (/<!ENTITY/i.test(content)) {
+    return emptyResult([{ ...f, severity: 'error', message: 'the file declares XML entities (<!ENTITY …>); GraphML does not need them — remove the DOCTYPE block' }]);
+  }
   const valid = XMLValidator.validate(content);
   if (valid !== true) {
     return emptyResult([{ ...f, line: valid.err.line, severity: 'error', message: `the file is not well-formed XML (${valid.err.msg}); fix the markup at that line` }]);

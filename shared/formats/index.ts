@@ -30,6 +30,15 @@ export interface ReadNetworkOptions {
 /** Reads one network file in any supported format. */
 export function readNetwork(fileName: string, content: string, options: ReadNetworkOptions = {}): ParseResult {
   const format = options.format ?? detectFormat(fileName, content);
+  if (options.depots && format !== 'csv') {
+    const r = readNetworkAs(format, fileName, content, options);
+    r.issues.push({ ...(options.depots.name ? { file: options.depots.name } : {}), severity: 'warning', message: `a depots file only goes with a CSV lanes file; it was not read (the ${format ?? 'unknown'} file carries its own depots)` });
+    return r;
+  }
+  return readNetworkAs(format, fileName, content, options);
+}
+
+function readNetworkAs(format: NetworkFormat | null, fileName: string, content: string, options: ReadNetworkOptions): ParseResult {
   switch (format) {
     case 'edgelist': return parseEdgeList(content, fileName);
     case 'csv': return parseCsvNetwork({ name: fileName, content }, options.depots);

@@ -41,3 +41,9 @@ describe('detectFormat and readNetwork', () => {
     expect(formatIssue(j.issues[0])).toBe('net.json lane 1: lane ends at unknown depot "Q"; add the depot or fix the id');
   });
 });
+
+test('a depots file given with a non-CSV network is reported, not silently dropped', () => {
+  const r = readNetwork('g.txt', '2 1\n1 2 1\n', { depots: { name: 'depots.csv', content: 'id\n1\n2\n' } });
+  expect(r.document.lanes).toHaveLength(1);
+  expect(r.issues).toEqual([expect.objectContaining({ file: 'depots.csv', severity: 'warning' })]);
+});

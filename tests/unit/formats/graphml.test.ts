@@ -79,3 +79,9 @@ describe('GraphML', () => {
     }));
   });
 });
+
+test('GraphML with entity declarations is refused before expansion (billion laughs)', () => {
+  const bomb = '<?xml version="1.0"?><!DOCTYPE g [<!ENTITY a "aaaaaaaaaa"><!ENTITY b "&a;&a;&a;&a;&a;&a;&a;&a;&a;&a;">]><graphml><graph><node id="&b;"/></graph></graphml>';
+  const r = parseGraphml(bomb);
+  expect(r.issues).toEqual([expect.objectContaining({ severity: 'error', message: expect.stringContaining('<!ENTITY') })]);
+});
