@@ -19,7 +19,14 @@ export interface BoundReport {
   details?: unknown;
 }
 
-export type BoundsProvider = (problem: Problem, opts?: { timeLimitSeconds?: number }) => BoundReport | Promise<BoundReport>;
+/** Options the orchestrator gives the bound provider (a subset of classical BoundOptions). */
+export interface BoundRequest {
+  /** A feasible value found by the run, which aims bound tightening at it. */
+  knownValue?: number | null;
+  seed?: number;
+}
+
+export type BoundsProvider = (problem: Problem, opts?: BoundRequest) => BoundReport | Promise<BoundReport>;
 
 /** Thrown when a solver does not take this problem (wrong kind, too many qubits, …). */
 export class SolverRefusedError extends Error {
@@ -41,8 +48,6 @@ export interface RunResult extends SolveResult {
 export interface RunOptions {
   /** Also ask computeBounds for a bound (default true). */
   bounds?: boolean;
-  /** Time given to computeBounds (default: min(10 s, a fifth of the solve budget)). */
-  boundTimeLimitSeconds?: number;
 }
 
 export interface Orchestrator {
@@ -101,8 +106,7 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
       const candidates: { bound: number; source: string }[] = [];
       if (typeof raw.bound === 'number' && Number.isFinite(raw.bound)) candidates.push({ bound: raw.bound, source: 'solver' });
       if (options.bounds !== false) {
-        const limit = options.boundTimeLimitSeconds ?? Math.min(10, Math.max(0.5, ctx.timeLimitSeconds / 5));
-        const report = await bounds(problem, { timeLimitSeconds: limit });
+        const report = await bounds(problem, { knownValue: infeasible ? null : value, seed: ctx.seed });
         if (report.bound !== null && Number.isFinite(report.bound)) candidates.push({ bound: report.bound, source: report.source });
       }
       let bound: number | null = null, boundSource: string | null = null;
