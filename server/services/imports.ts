@@ -170,7 +170,8 @@ export async function importNetwork(deps: Deps, actor: Actor, files: ImportFiles
   const p = prepareImport(files, fields);
   const errors = hasErrors(p.result.issues);
   const preview = previewOf(p);
-  const fileLevel = p.result.issues.some((i) => i.severity === 'error' && i.where === undefined);
+  // An error with no position at all concerns the whole file (size limits, wrong kind of file).
+  const fileLevel = p.result.issues.some((i) => i.severity === 'error' && i.where === undefined && i.line === undefined && i.feature === undefined && i.row === undefined);
   if (errors && (fields.dropBadRows !== 'true' || fileLevel || p.result.document.depots.length === 0)) {
     const first = preview.issues.find((i) => i.severity === 'error');
     const why = fields.dropBadRows === 'true'
