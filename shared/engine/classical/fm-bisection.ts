@@ -1,0 +1,280 @@
+import type { Rng } from '../random';
+import { createGainHeap } from './gain-heap';
+
+/**
+ * Balanced two-way partitioning of a weighted graph: Fiduccia–Mattheyses refinement
+ * (Fiduccia & Mattheyses, DAC 1982; Kernighan & Lin, Bell Syst. Tech. J. 49(2) 1970) inside
+ * a multilevel scheme with heavy-edge matching (Karypis & Kumar, SIAM J. Sci. Comput. 20(1)
+ * 1998). Side-1 weight must end inside [lo, hi]; pinned depots (pin 0/1) never move and are
+ * only merged with depots of the same pin or free ones.
+ */
+export interface PartGraph {
+  n: number;
+  adjStart: Int32Array;
+  adjIndex: Int32Array;
+  adjWeight: Float64Array;
+  /** Depot (or merged depot) weight. */
+  vw: Float64Array;
+  /** −1 free, else the side the depot must take. */
+  pin: Int8Array;
+}
+
+export interface Window {
+  lo: number;
+  hi: number;
+}
+
+const violation = (w1: number, win: Window): number => (w1 > win.hi ? w1 - win.hi : w1 < win.lo ? win.lo - w1 : 0);
+
+export function cutOf(g: PartGraph, side: Int8Array): number {
+  let cut = 0;
+  for (let i = 0; i < g.n; i++) for (let p = g.adjStart[i]; p < g.adjStart[i + 1]; p++) if (g.adjIndex[p] > i && side[g.adjIndex[p]] !== side[i]) cut += g.adjWeight[p];
+  return cut;
+}
+
+/**
+ * FM passes until a pass gains nothing. Each pass moves every free depot at most once, always
+ * the highest-gain move whose side can take it (moves that shrink a balance violation are
+ * forced first), then rolls back to the best prefix. Gains live in one indexed heap per side,
+ * so a pass costs O(|E| log n). Returns the final crossing weight.
+ */
+export function fmRefine(g: PartGraph, side: Int8Array, win: Window, opts: { maxPasses: number; stall: number }): number {
+  const { n, adjStart, adjIndex, adjWeight, vw, pin } = g;
+  const gain = new Float64Array(n); // crossing-weight reduction if the depot moves
+  const heaps = [createGainHeap(n), createGainHeap(n)];
+  const locked = new Uint8Array(n);
+  const moved = new Int32Array(n);
+  let w1 = 0;
+  for (let i = 0; i < n; i++) if (side[i] === 1) w1 += vw[i];
+  let cut = cutOf(g, side);
+  for (let pass = 0; pass < opts.maxPasses; pass++) {
+    heaps[0].clear();
+    heaps[1].clear();
+    for (let i = 0; i < n; i++) {
+      let gi = 0;
+      for (let p = adjStart[i]; p < adjStart[i + 1]; p++) gi += side[adjIndex[p]] !== side[i] ? adjWeight[p] : -adjWeight[p];
+      gain[i] = gi;
+      locked[i] = 0;
+      if (pin[i] < 0) heaps[side[i]].insert(i, gi);
+    }
+    const startCut = cut, startViolation = violation(w1, win);
+    let bestCut = cut, bestViolation = startViolation, bestLen = 0;
+    let len = 0, since = 0;
+    let curCut = cut, curW1 = w1;
+    while (since < opts.stall) {
+      // Candidate from each side; a side is blocked when its best move would break the window
+      // further (moving from s changes w1 by ∓vw).
+      let pick = -1, pickGain = -Infinity;
+      const v0 = violation(curW1, win);
+      for (let s = 0; s < 2; s++) {
+        const v = heaps[s].top();
+        if (v < 0) continue;
+        const nw1 = s === 0 ? curW1 + vw[v] : curW1 - vw[v];
+        const nv = violation(nw1, win);
+        if (nv > v0 + 1e-12) continue;
+        const gk = heaps[s].topKey() + (v0 > 0 && nv < v0 ? 1e15 : 0);
+        if (gk > pickGain) { pickGain = gk; pick = v; }
+      }
+      if (pick < 0) break;
+      const s = side[pick];
+      heaps[s].remove(pick);
+      locked[pick] = 1;
+      curCut -= gain[pick];
+      curW1 += s === 0 ? vw[pick] : -vw[pick];
+      side[pick] = (1 - s) as 0 | 1;
+      gain[pick] = -gain[pick];
+      for (let p = adjStart[pick]; p < adjStart[pick + 1]; p++) {
+        const j = adjIndex[p], w2 = 2 * adjWeight[p];
+        // j on pick's old side: the lane now crosses, so moving j would now save it.
+        gain[j] += side[j] === s ? w2 : -w2;
+        if (!locked[j] && pin[j] < 0) heaps[side[j]].update(j, gain[j]);
+      }
+      moved[len++] = pick;
+      since++;
+      const vio = violation(curW1, win);
+      if (vio < bestViolation - 1e-12 || (vio <= bestViolation + 1e-12 && curCut < bestCut - 1e-9)) {
+        bestViolation = vio;
+        bestCut = curCut;
+        bestLen = len;
+        since = 0;
+      }
+    }
+    // Roll back to the best prefix.
+    for (let t = len - 1; t >= bestLen; t--) {
+      const v = moved[t];
+      side[v] = (1 - side[v]) as 0 | 1;
+    }
+    w1 = 0;
+    for (let i = 0; i < n; i++) if (side[i] === 1) w1 += vw[i];
+    cut = bestCut;
+    if (!(bestCut < startCut - 1e-9 || bestViolation < startViolation - 1e-12)) break;
+  }
+  return cut;
+}
+
+/** Heavy-edge matching: returns the coarse graph and the fine → coarse map, or null when it stalls. */
+export function coarsen(g: PartGraph, rng: Rng, maxVertexWeight: number): { coarse: PartGraph; map: Int32Array } | null {
+  const { n, adjStart, adjIndex, adjWeight, vw, pin } = g;
+  const match = new Int32Array(n).fill(-1);
+  const order = Array.from({ length: n }, (_, i) => i);
+  for (let i = n - 1; i > 0; i--) {
+    const j = rng.int(i + 1);
+    [order[i], order[j]] = [order[j], order[i]];
+  }
+  for (const u of order) {
+    if (match[u] >= 0) continue;
+    let best = -1, bw = 0;
+    for (let p = adjStart[u]; p < adjStart[u + 1]; p++) {
+      const v = adjIndex[p];
+      if (match[v] >= 0 || v === u || adjWeight[p] <= bw) continue;
+      if (pin[u] >= 0 && pin[v] >= 0 && pin[u] !== pin[v]) continue;
+      if (vw[u] + vw[v] > maxVertexWeight) continue;
+      best = v;
+      bw = adjWeight[p];
+    }
+    match[u] = best >= 0 ? best : u;
+    if (best >= 0) match[best] = u;
+  }
+  const map = new Int32Array(n).fill(-1);
+  let cn = 0;
+  for (let u = 0; u < n; u++) {
+    if (map[u] >= 0) continue;
+    map[u] = cn;
+    if (match[u] !== u) map[match[u]] = cn;
+    cn++;
+  }
+  if (cn > 0.95 * n) return null;
+  const cvw = new Float64Array(cn);
+  const cpin = new Int8Array(cn).fill(-1);
+  for (let u = 0; u < n; u++) {
+    cvw[map[u]] += vw[u];
+    if (pin[u] >= 0) cpin[map[u]] = pin[u];
+  }
+  // Coarse adjacency: merge parallel lanes with a marker array, drop lanes inside a pair.
+  const members = new Int32Array(n);
+  const memberStart = new Int32Array(cn + 1);
+  for (let u = 0; u < n; u++) memberStart[map[u] + 1]++;
+  for (let c = 0; c < cn; c++) memberStart[c + 1] += memberStart[c];
+  const fill = memberStart.slice(0, cn);
+  for (let u = 0; u < n; u++) members[fill[map[u]]++] = u;
+  const marker = new Int32Array(cn).fill(-1);
+  const starts = new Int32Array(cn + 1);
+  const idx: number[] = [];
+  const wts: number[] = [];
+  for (let c = 0; c < cn; c++) {
+    const begin = idx.length;
+    for (let q = memberStart[c]; q < memberStart[c + 1]; q++) {
+      const u = members[q];
+      for (let p = adjStart[u]; p < adjStart[u + 1]; p++) {
+        const d = map[adjIndex[p]];
+        if (d === c) continue;
+        if (marker[d] < begin) {
+          marker[d] = idx.length;
+          idx.push(d);
+          wts.push(adjWeight[p]);
+        } else wts[marker[d]] += adjWeight[p];
+      }
+    }
+    starts[c + 1] = idx.length;
+  }
+  return {
+    coarse: { n: cn, adjStart: starts, adjIndex: Int32Array.from(idx), adjWeight: Float64Array.from(wts), vw: cvw, pin: cpin },
+    map,
+  };
+}
+
+/** Initial two-way split: pins first, then grow side 1 from a random seed by strongest pull. */
+function growSplit(g: PartGraph, win: Window, rng: Rng): Int8Array {
+  const { n, adjStart, adjIndex, adjWeight, vw, pin } = g;
+  const side = new Int8Array(n);
+  let w1 = 0;
+  for (let i = 0; i < n; i++) if (pin[i] === 1) { side[i] = 1; w1 += vw[i]; }
+  const target = (win.lo + win.hi) / 2;
+  const pull = new Float64Array(n);
+  const heap = createGainHeap(n);
+  for (let i = 0; i < n; i++) if (pin[i] < 0) heap.insert(i, 0);
+  const join = (v: number): void => {
+    side[v] = 1;
+    w1 += vw[v];
+    heap.remove(v);
+    for (let p = adjStart[v]; p < adjStart[v + 1]; p++) {
+      const j = adjIndex[p];
+      pull[j] += adjWeight[p];
+      if (heap.has(j)) heap.update(j, pull[j]);
+    }
+  };
+  for (let i = 0; i < n; i++) if (pin[i] === 1) for (let p = adjStart[i]; p < adjStart[i + 1]; p++) {
+    const j = adjIndex[p];
+    pull[j] += adjWeight[p];
+    if (heap.has(j)) heap.update(j, pull[j]);
+  }
+  while (w1 < target && heap.size() > 0) {
+    // No pull yet (start, or a finished component): take a random free depot as the next seed.
+    let v = heap.top();
+    if (heap.topKey() <= 0) {
+      const cand: number[] = [];
+      for (let i = 0; i < n && cand.length < 64; i++) if (heap.has(i)) cand.push(i);
+      v = cand[rng.int(cand.length)];
+    }
+    if (w1 + vw[v] > win.hi) {
+      heap.remove(v);
+      continue;
+    }
+    join(v);
+  }
+  return side;
+}
+
+export interface MultilevelOptions {
+  coarsestSize: number;
+  initialTries: number;
+  maxPasses: number;
+  stall: number;
+}
+
+export const multilevelDefaults: MultilevelOptions = { coarsestSize: 80, initialTries: 8, maxPasses: 8, stall: 200 };
+
+/** One multilevel V-cycle: coarsen, split the coarsest graph a few ways, refine on the way up. */
+export function multilevelBisect(g: PartGraph, win: Window, rng: Rng, opts: MultilevelOptions = multilevelDefaults): Int8Array {
+  let total = 0, maxW = 0;
+  for (let i = 0; i < g.n; i++) { total += g.vw[i]; maxW = Math.max(maxW, g.vw[i]); }
+  const maxVertexWeight = Math.max(maxW, (1.5 * total) / opts.coarsestSize);
+  const levels: Array<{ graph: PartGraph; map: Int32Array }> = [];
+  let cur = g;
+  while (cur.n > opts.coarsestSize) {
+    const next = coarsen(cur, rng, maxVertexWeight);
+    if (!next) break;
+    levels.push({ graph: cur, map: next.map });
+    cur = next.coarse;
+  }
+  const refine = { maxPasses: opts.maxPasses, stall: Math.max(opts.stall, 50) };
+  let bestSide: Int8Array | null = null;
+  let bestScore = Infinity;
+  for (let t = 0; t < opts.initialTries; t++) {
+    const side = growSplit(cur, win, rng);
+    const cut = fmRefine(cur, side, win, refine);
+    let w1 = 0;
+    for (let i = 0; i < cur.n; i++) if (side[i] === 1) w1 += cur.vw[i];
+    const score = violation(w1, win) * 1e12 + cut;
+    if (score < bestScore) { bestScore = score; bestSide = side; }
+  }
+  let side = bestSide!;
+  for (let l = levels.length - 1; l >= 0; l--) {
+    const { graph, map } = levels[l];
+    const fine = new Int8Array(graph.n);
+    for (let i = 0; i < graph.n; i++) fine[i] = side[map[i]];
+    for (let i = 0; i < graph.n; i++) if (graph.pin[i] >= 0) fine[i] = graph.pin[i];
+    fmRefine(graph, fine, win, refine);
+    side = fine;
+  }
+  return side;
+}
+
+/** Side-1 weight of an assignment. */
+export function sideWeight(g: PartGraph, side: Int8Array): number {
+  let w1 = 0;
+  for (let i = 0; i < g.n; i++) if (side[i] === 1) w1 += g.vw[i];
+  return w1;
+}
+
+export { violation as windowViolation };
