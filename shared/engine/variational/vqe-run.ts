@@ -1,0 +1,112 @@
+import { createLadderAnsatz } from '../ansatz/ladder';
+import { createQaoaAnsatz } from '../ansatz/qaoa';
+import type { Ansatz } from '../ansatz/types';
+import type { Encoding } from '../encodings/types';
+import type { Estimate } from '../optimizers/types';
+import type { Rng } from '../random';
+import { expectationOfDiagonal, isingDiagonal } from '../statevector/diagonal';
+import { diagonalLevels } from '../statevector/gates';
+import type { StateOptions, StateVector } from '../statevector/state';
+import { createDiagonalEstimator } from './estimate';
+import { restartStarts } from './initial-angles';
+import { optimizeAnsatz, type OptimizerName } from './optimize';
+import { defaultClock, type VariationalOutcome, type VariationalTracePoint } from './qaoa-run';
+import { readOut } from './samples';
+
+export type VqeAnsatzName = 'ladder' | 'alternating';
+
+export interface VqeCommonOptions {
+  ansatz: VqeAnsatzName;
+  layers: number;
+  entangler?: 'line' | 'ring';
+  optimizer: OptimizerName;
+  shots: number;
+  restarts: number;
+  maxIterations: number;
+  rng: Rng;
+  shouldStop?: () => boolean;
+  onIteration?: (point: VariationalTracePoint) => void;
+  initialParams?: Float64Array;
+  stateOptions?: StateOptions;
+  clock?: () => number;
+  /** Initial simplex edge / Adam learning rate / SPSA first step. */
+  step?: number;
+}
+
+/**
+ * Informed first start for the ladder: the first rotation layer at R_Y(π/2) (every qubit in
+ * |+⟩, an unbiased superposition of all answers) and the rest at zero, plus a small seeded
+ * jitter so the rungs are not stuck at a symmetric point.
+ */
+export function ladderStart(numQubits: number, layers: number, rng: Rng): Float64Array {
+  const x = new Float64Array(2 * numQubits * (layers + 1));
+  for (let j = 0; j < x.length; j++) x[j] = 0.05 * rng.normal();
+  for (let q = 0; q < numQubits; q++) x[q] += Math.PI / 2;
+  return x;
+}
+
+/** The shared loop: optimise, then exact energy at the best parameters. */
+export function runVqeLoop(
+  ansatz: Ansatz,
+  estimate: (s: StateVector) => Estimate,
+  exactEnergy: (s: StateVector) => number,
+  first: Float64Array,
+  opts: VqeCommonOptions,
+) {
+  const clock = opts.clock ?? defaultClock;
+  const t0 = clock();
+  const trace: VariationalTracePoint[] = [];
+  const loop = optimizeAnsatz({
+    ansatz,
+    estimate,
+    optimizer: opts.optimizer,
+    starts: restartStarts(first, Math.max(1, opts.restarts), opts.rng, 0.3),
+    maxIterations: opts.maxIterations,
+    rng: opts.rng,
+    shouldStop: opts.shouldStop ?? (() => false),
+    differenceStep: opts.shots > 0 ? 0.1 : 1e-5,
+    step: opts.step,
+    onIteration: (iteration, energy, stdError) => {
+      const point = { iteration, energy, stdError, seconds: clock() - t0 };
+      trace.push(point);
+      opts.onIteration?.(point);
+    },
+  });
+  return { loop, trace, energy: exactEnergy(loop.state) };
+}
+
+/**
+ * VQE on an encoding's (diagonal) cost operator with the ladder or the alternating ansatz
+ * (the alternating one is QAOA's circuit with free angles; see ansatz/qaoa.ts).
+ */
+export function runVqeOnEncoding(encoding: Encoding, opts: VqeCommonOptions & { readoutShots?: number; topSamples?: number }): VariationalOutcome {
+  const n = encoding.numQubits;
+  const diag = isingDiagonal(encoding.operator, opts.stateOptions);
+  const ansatz = opts.ansatz === 'alternating'
+    ? createQaoaAnsatz({ numQubits: n, layers: opts.layers, energyDiagonal: diagonalLevels(diag) ?? diag, stateOptions: opts.stateOptions })
+    : createLadderAnsatz({ numQubits: n, layers: opts.layers, entangler: opts.entangler, stateOptions: opts.stateOptions });
+  const first = opts.initialParams ?? (opts.ansatz === 'alternating'
+    ? Float64Array.from({ length: 2 * opts.layers }, (_, j) => (j < opts.layers ? 0.3 : 0.3))
+    : ladderStart(n, opts.layers, opts.rng));
+  const { loop, trace, energy } = runVqeLoop(ansatz, createDiagonalEstimator(diag, opts.shots, opts.rng), (s) => expectationOfDiagonal(s, diag), first, opts);
+  const expectation = expectationOfDiagonal(loop.state, isingDiagonal(encoding.valueOperator, opts.stateOptions));
+  const readoutShots = opts.readoutShots ?? (opts.shots > 0 ? opts.shots : 1024);
+  const out = readOut(encoding, loop.state, readoutShots, opts.rng, opts.topSamples ?? 10);
+  return {
+    params: Array.from(loop.x),
+    paramNames: ansatz.paramNames,
+    energy,
+    objective: loop.fx,
+    stdError: loop.stdError,
+    expectation,
+    evaluations: loop.evaluations,
+    iterations: loop.iterations,
+    restarts: loop.restarts,
+    shotsUsed: loop.evaluations * opts.shots + readoutShots,
+    trace,
+    samples: out.samples,
+    best: out.best,
+    feasibleShare: encoding.kind === 'maxcut' ? null : out.feasibleShare,
+    stopped: loop.reason === 'stopped',
+  };
+}
