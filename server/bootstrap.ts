@@ -1,9 +1,21 @@
+import type { NextFunction, Request, Response } from 'express';
 import type { Deps } from './deps';
 import type { AppExtras } from './app';
+import { createAuthenticate } from './middleware/authenticate';
+import { csrfCheck } from './middleware/csrf';
+import { demoSignInText, ensureDemoOrganisation } from './services/seed-demo';
 
 /** Hooks the feature modules plug into (authentication, demo seed). */
-export function serverExtras(_deps: Deps): AppExtras {
-  return {};
+export function serverExtras(deps: Deps): AppExtras {
+  const authenticate = createAuthenticate(deps);
+  return {
+    // Who is calling (session or Bearer token), then the CSRF check that depends on it.
+    authenticate: (req: Request, res: Response, next: NextFunction) => authenticate(req, res, (err?: unknown) => (err ? next(err) : csrfCheck(req, res, next))),
+  };
 }
 
-export async function afterStart(_deps: Deps, _opts: { seedDemo: boolean }): Promise<void> {}
+export async function afterStart(deps: Deps, opts: { seedDemo: boolean }): Promise<void> {
+  if (!opts.seedDemo) return;
+  await ensureDemoOrganisation(deps);
+  console.log(`\n${await demoSignInText(deps)}\n`);
+}

@@ -3,12 +3,22 @@ import type { RouteSpec } from '../lib/routes';
 import { healthRoutes } from './health';
 import { openApiRoutes } from './openapi';
 import { networksRoutes } from './networks';
+import { authRoutes } from './auth';
+import { membersRoutes } from './members';
+import { invitationsRoutes } from './invitations';
+import { auditRoutes } from './audit';
+import { tokensRoutes } from './tokens';
 
 /** The API's route table, in one list (mounted under /api; read by the OpenAPI and isolation tests). */
 export function apiRoutes(deps: Deps): RouteSpec[] {
   const routes: RouteSpec[] = [
     ...healthRoutes(deps),
     ...openApiRoutes(() => routes, deps.config.publicUrl),
+    ...authRoutes(deps),
+    ...membersRoutes(deps),
+    ...invitationsRoutes(deps),
+    ...auditRoutes(deps),
+    ...tokensRoutes(deps),
     ...networksRoutes(deps),
   ];
   return routes;
