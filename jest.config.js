@@ -31,7 +31,8 @@ module.exports = {
       preset: 'jest-expo/web',
       testMatch: ['<rootDir>/tests/components/**/*.test.tsx'],
       // jest-expo/web otherwise loads the native react-native package (see DEVELOPERS.md).
-      moduleNameMapper: { '^react-native$': 'react-native-web', '^@/(.*)$': '<rootDir>/$1' },
+      // d3 modules ship ESM (.mjs) that jest does not transform: use their UMD builds instead.
+      moduleNameMapper: { '^react-native$': 'react-native-web', '^@/(.*)$': '<rootDir>/$1', '^(d3-[a-z-]+|internmap)$': '<rootDir>/node_modules/$1/dist/$1.min.js' },
     },
     nodeProject('e2e', { setupFilesAfterEnv: ['<rootDir>/tests/support/long-timeout.ts'] }),
   ],

@@ -1,0 +1,47 @@
+import { StyleSheet, View } from 'react-native';
+import Svg, { G, Line, Path, Text as SvgText } from 'react-native-svg';
+import { colors, fonts } from '../theme';
+import { Small } from '../ui/Text';
+import { convergenceGeometry, type ConvergencePoint } from './convergence';
+
+const tick = (v: number) => (Math.abs(v) >= 1000 ? `${Math.round(v / 100) / 10}k` : `${Math.round(v * 100) / 100}`);
+
+/**
+ * Energy of the cost operator against iterations, with the ± standard-error band when the
+ * energies are shot estimates. Lower is better for every question (energy = −cut for max-cut).
+ */
+export function ConvergenceChart(props: { trace: readonly ConvergencePoint[]; width: number; height?: number; title?: string; testID?: string }) {
+  const height = props.height ?? 180;
+  const g = convergenceGeometry(props.trace, { width: props.width, height });
+  const first = props.trace[0];
+  const last = props.trace[props.trace.length - 1];
+  const summary = first && last
+    ? `${props.title ?? 'Energy'}: from ${tick(first.energy)} to ${tick(last.energy)} over ${props.trace.length} points${g.band ? ', with a standard-error band' : ''}`
+    : 'No convergence data yet';
+  return (
+    <View style={styles.wrap} testID={props.testID ?? 'convergence-chart'}>
+      <Svg width={props.width} height={height} accessibilityRole="image" accessibilityLabel={summary}>
+        <G>
+          {g.yTicks.map((t) => (
+            <G key={`y${t}`}>
+              <Line x1={g.margin.left} x2={props.width - g.margin.right} y1={g.y(t)} y2={g.y(t)} stroke={colors.line} strokeWidth={1} />
+              <SvgText x={g.margin.left - 6} y={g.y(t) + 4} fontSize={11} fontFamily={fonts.regular} fill={colors.textMuted} textAnchor="end">
+                {tick(t)}
+              </SvgText>
+            </G>
+          ))}
+          {g.xTicks.map((t) => (
+            <SvgText key={`x${t}`} x={g.x(t)} y={height - 8} fontSize={11} fontFamily={fonts.regular} fill={colors.textMuted} textAnchor="middle">
+              {tick(t)}
+            </SvgText>
+          ))}
+        </G>
+        {g.band ? <Path d={g.band} fill={colors.signal} fillOpacity={0.25} stroke="none" testID="convergence-band" /> : null}
+        {g.line ? <Path d={g.line} fill="none" stroke={colors.ink} strokeWidth={2} testID="convergence-line" /> : null}
+      </Svg>
+      <Small>Energy (lower is better) by iteration{g.band ? '; shaded: ± one standard error from shot noise' : ''}.</Small>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({ wrap: { gap: 4 } });

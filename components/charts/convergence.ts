@@ -1,0 +1,66 @@
+/**
+ * Geometry of the energy convergence chart, as a pure function of the trace: scales from
+ * d3-scale, the energy line and the ± standard-error band from d3-shape. The component only
+ * draws these strings, so tests can check the geometry without rendering.
+ */
+import { scaleLinear, type ScaleLinear } from 'd3-scale';
+import { area, line } from 'd3-shape';
+
+/** One point of a solver's trace (the service's TracePoint). */
+export interface ConvergencePoint {
+  iteration: number;
+  energy: number;
+  /** Standard error of the energy estimate (shot-based runs); absent for exact expectations. */
+  stdError?: number;
+}
+
+export interface ChartFrame {
+  width: number;
+  height: number;
+  /** Room for the axis labels: left, right, top, bottom (px). */
+  margin?: { left: number; right: number; top: number; bottom: number };
+}
+
+export interface ConvergenceGeometry {
+  x: ScaleLinear<number, number>;
+  y: ScaleLinear<number, number>;
+  /** SVG path of the energy line, or null without points. */
+  line: string | null;
+  /** SVG path of energy ± standard error, or null when no point carries one. */
+  band: string | null;
+  xTicks: number[];
+  yTicks: number[];
+  margin: { left: number; right: number; top: number; bottom: number };
+}
+
+export const DEFAULT_MARGIN = { left: 52, right: 12, top: 10, bottom: 28 } as const;
+
+const finitePoints = (trace: readonly ConvergencePoint[]) => trace.filter((p) => Number.isFinite(p.iteration) && Number.isFinite(p.energy));
+
+export function convergenceGeometry(trace: readonly ConvergencePoint[], frame: ChartFrame): ConvergenceGeometry {
+  const margin = frame.margin ?? DEFAULT_MARGIN;
+  const points = finitePoints(trace);
+  const se = (p: ConvergencePoint) => (p.stdError !== undefined && Number.isFinite(p.stdError) ? Math.abs(p.stdError) : 0);
+  let x0 = Infinity, x1 = -Infinity, y0 = Infinity, y1 = -Infinity;
+  for (const p of points) {
+    x0 = Math.min(x0, p.iteration);
+    x1 = Math.max(x1, p.iteration);
+    y0 = Math.min(y0, p.energy - se(p));
+    y1 = Math.max(y1, p.energy + se(p));
+  }
+  if (points.length === 0) { x0 = 0; x1 = 1; y0 = 0; y1 = 1; }
+  // A single point or a flat trace still needs a non-empty domain to draw.
+  if (x0 === x1) x1 = x0 + 1;
+  if (y0 === y1) { y0 -= 1; y1 += 1; }
+  const x = scaleLinear().domain([x0, x1]).range([margin.left, frame.width - margin.right]);
+  const y = scaleLinear().domain([y0, y1]).range([frame.height - margin.bottom, margin.top]);
+  const linePath = points.length ? line<ConvergencePoint>().x((p) => x(p.iteration)).y((p) => y(p.energy))(points) : null;
+  const withError = points.some((p) => p.stdError !== undefined && Number.isFinite(p.stdError));
+  const bandPath = withError
+    ? area<ConvergencePoint>()
+        .x((p) => x(p.iteration))
+        .y0((p) => y(p.energy - se(p)))
+        .y1((p) => y(p.energy + se(p)))(points)
+    : null;
+  return { x, y, line: linePath, band: bandPath, xTicks: x.ticks(4), yTicks: y.ticks(4), margin };
+}

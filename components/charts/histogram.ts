@@ -1,0 +1,54 @@
+/**
+ * Geometry of the sampled-assignments histogram: the most frequent assignments as bars (count
+ * on the y axis), each labelled with its business value. Pure, like convergence.ts.
+ */
+import { scaleBand, scaleLinear } from 'd3-scale';
+
+export interface HistogramSample {
+  assignment: readonly number[];
+  count: number;
+  value: number;
+}
+
+export interface HistogramBar {
+  key: string;
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+  count: number;
+  value: number;
+  /** Share of all shots that gave this assignment. */
+  share: number;
+  /** True for bars whose value equals the best value among the samples. */
+  best: boolean;
+}
+
+/** The assignment written as a bit/region string, depot 0 first ("0110…"). */
+export const assignmentKey = (a: readonly number[]) => a.join('');
+
+export function histogramBars(
+  samples: readonly HistogramSample[],
+  frame: { width: number; height: number; top?: number; bottom?: number },
+  opts: { limit?: number; sense: 'max' | 'min' },
+): HistogramBar[] {
+  const top = frame.top ?? 8;
+  const bottom = frame.bottom ?? 24;
+  const total = samples.reduce((s, x) => s + x.count, 0);
+  const shown = [...samples].sort((a, b) => b.count - a.count || (opts.sense === 'max' ? b.value - a.value : a.value - b.value)).slice(0, opts.limit ?? 12);
+  if (shown.length === 0 || total === 0) return [];
+  const bestValue = opts.sense === 'max' ? Math.max(...samples.map((s) => s.value)) : Math.min(...samples.map((s) => s.value));
+  const x = scaleBand<string>().domain(shown.map((s, i) => `${i}`)).range([0, frame.width]).padding(0.2);
+  const y = scaleLinear().domain([0, Math.max(...shown.map((s) => s.count))]).range([frame.height - bottom, top]);
+  return shown.map((s, i) => ({
+    key: assignmentKey(s.assignment),
+    x: x(`${i}`) ?? 0,
+    y: y(s.count),
+    width: x.bandwidth(),
+    height: y(0) - y(s.count),
+    count: s.count,
+    value: s.value,
+    share: s.count / total,
+    best: s.value === bestValue,
+  }));
+}

@@ -1,0 +1,105 @@
+/**
+ * The scorecard's figures, as a pure function of a run: per solver the value, the ratio to the
+ * best proven bound, the gap, optimality, time, evaluations and shots, and which answer is best.
+ * The sense comes from the question: max-cut wants the highest cut; bisection and k-way want the
+ * lowest crossing weight among balanced answers (an unbalanced answer is shown, never best).
+ */
+import { gapOf } from '../../shared/engine/problem/evaluate';
+import { senseOf, type Sense } from '../../shared/engine/problem/types';
+import type { RunDetail, RunJob } from './types';
+
+export interface ScoreRow {
+  jobId: number;
+  solver: string;
+  label: string;
+  status: RunJob['status'];
+  value: number | null;
+  /** Tightest proven bound over the whole run (same for every row). */
+  bound: number | null;
+  /** value/bound for max, bound/value for min: 1 is optimal, lower is worse. */
+  ratio: number | null;
+  /** Certified gap against the best bound (gapOf's definition). */
+  gap: number | null;
+  provenOptimal: boolean;
+  balanced: boolean;
+  seconds: number | null;
+  evaluations: number | null;
+  shots: number | null;
+  isBest: boolean;
+  error: string | null;
+}
+
+export interface Scorecard {
+  sense: Sense;
+  rows: ScoreRow[];
+  bound: number | null;
+  /** Job id of the first best row, or null when no job has a usable answer yet. */
+  bestJobId: number | null;
+}
+
+/** Relative tolerance under which two values count as equal (float sums of lane weights). */
+const TIE = 1e-9;
+const same = (a: number, b: number) => Math.abs(a - b) <= TIE * Math.max(1, Math.abs(a), Math.abs(b));
+
+/** The tightest proven bound: the lowest upper bound (max) or the highest lower bound (min). */
+export function bestBound(run: Pick<RunDetail, 'problem' | 'jobs' | 'bound'>): number | null {
+  const sense = senseOf(run.problem.kind);
+  const bounds: number[] = [];
+  if (typeof run.bound === 'number' && Number.isFinite(run.bound)) bounds.push(run.bound);
+  for (const job of run.jobs) {
+    const r = job.status === 'succeeded' ? job.result : null;
+    if (!r) continue;
+    if (typeof r.bound === 'number' && Number.isFinite(r.bound)) bounds.push(r.bound);
+    // A proven optimum bounds every other answer (only balanced ones count for min questions).
+    if (r.provenOptimal && !r.infeasible) bounds.push(r.value);
+  }
+  if (bounds.length === 0) return null;
+  return sense === 'max' ? Math.min(...bounds) : Math.max(...bounds);
+}
+
+/** Ratio of a value to the bound, oriented so that 1 is optimal for both senses. */
+export function ratioToBound(sense: Sense, value: number, bound: number | null): number | null {
+  if (bound === null || !Number.isFinite(bound)) return null;
+  if (sense === 'max') {
+    if (bound <= 0) return value >= bound ? 1 : null;
+    return value / bound;
+  }
+  if (value <= 0) return value <= bound ? 1 : null;
+  return bound / value;
+}
+
+export function buildScorecard(run: Pick<RunDetail, 'problem' | 'jobs' | 'bound'>, labels: Record<string, string> = {}): Scorecard {
+  const kind = run.problem.kind;
+  const sense = senseOf(kind);
+  const bound = bestBound(run);
+  const rows: ScoreRow[] = run.jobs.map((job) => {
+    const r = job.status === 'succeeded' ? job.result : null;
+    const balanced = !r?.infeasible;
+    return {
+      jobId: job.id,
+      solver: job.solver,
+      label: labels[job.solver] ?? job.label ?? job.solver,
+      status: job.status,
+      value: r ? r.value : null,
+      bound,
+      ratio: r ? ratioToBound(sense, r.value, bound) : null,
+      gap: r ? gapOf(kind, r.value, bound) : null,
+      provenOptimal: !!r?.provenOptimal,
+      balanced,
+      seconds: r ? r.seconds : null,
+      evaluations: r ? r.evaluations : null,
+      shots: r ? r.shots : null,
+      isBest: false,
+      error: job.error,
+    };
+  });
+  const candidates = rows.filter((row) => row.value !== null && (sense === 'max' || row.balanced));
+  let bestJobId: number | null = null;
+  if (candidates.length > 0) {
+    const values = candidates.map((row) => row.value as number);
+    const best = sense === 'max' ? Math.max(...values) : Math.min(...values);
+    for (const row of candidates) if (same(row.value as number, best)) row.isBest = true;
+    bestJobId = candidates.find((row) => row.isBest)?.jobId ?? null;
+  }
+  return { sense, rows, bound, bestJobId };
+}

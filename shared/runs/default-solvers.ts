@@ -1,0 +1,68 @@
+/**
+ * Which solvers a new run starts with, chosen from the question's size — one function so the
+ * API, the app and the CLI agree. Pure: it reads only the listing it is given (the registry's
+ * `listSolvers()`), so it never offers a solver that does not exist.
+ */
+import type { ProblemKind } from '../engine/problem/types';
+
+export interface ProblemSize {
+  kind: ProblemKind;
+  /** Number of depots. */
+  depots: number;
+  /** Regions for kway (2 otherwise). */
+  k?: number;
+  /** Depots already pinned to a side or region (exact enumeration skips them). */
+  pinned?: number;
+  /** Qubits of the direct encoding (describeEncoding / qubitsFor), or null when too large to build. */
+  qubits: number | null;
+}
+
+/** Just what the choice needs from a registry listing. */
+export interface ListedSolver {
+  name: string;
+  family: 'exact' | 'bound' | 'heuristic' | 'variational';
+  kinds: readonly ProblemKind[];
+}
+
+/** Exact enumeration is offered up to this many assignments (k^free depots): seconds on one core. */
+export const EXACT_MAX_ASSIGNMENTS = 2 ** 24;
+/** Variational solvers are offered up to this many qubits: a 2²⁰-amplitude state is 16 MiB and
+ * each layer pass takes milliseconds, so an optimisation finishes in an interactive wait. */
+export const VARIATIONAL_MAX_QUBITS = 20;
+
+/** Strongest classical heuristic first, per question (tabu for max-cut, FM refinement for balanced splits). */
+const HEURISTIC_PREFERENCE: Record<ProblemKind, string[]> = {
+  maxcut: ['tabu', 'best', 'anneal', 'greedy'],
+  bisection: ['fm', 'best', 'tabu', 'anneal', 'greedy'],
+  kway: ['fm', 'best', 'anneal', 'greedy'],
+};
+const DECOMPOSITION_NAMES = ['decomposed', 'decomposition', 'decompose'];
+
+/** log₂ of the assignments exact enumeration would walk: free depots × log₂ k. */
+export function exactLog2Assignments(size: ProblemSize): number {
+  const k = size.kind === 'kway' ? Math.max(2, size.k ?? 2) : 2;
+  const free = Math.max(0, size.depots - (size.pinned ?? 0));
+  // One side is fixed by symmetry when nothing is pinned; keep the estimate conservative and ignore that.
+  return free * Math.log2(k);
+}
+
+/**
+ * The default solver names for a question of this size, in the order the scorecard shows them:
+ * exact (when small enough), the strongest classical heuristic, then QAOA and VQE when their
+ * qubits fit — or the decomposition solver when they do not.
+ */
+export function defaultSolvers(size: ProblemSize, listing: readonly ListedSolver[]): string[] {
+  const offered = (name: string) => listing.some((s) => s.name === name && s.kinds.includes(size.kind));
+  const picks: string[] = [];
+  if (offered('exact') && exactLog2Assignments(size) <= Math.log2(EXACT_MAX_ASSIGNMENTS)) picks.push('exact');
+  const heuristic = HEURISTIC_PREFERENCE[size.kind].find(offered);
+  if (heuristic) picks.push(heuristic);
+  const fits = size.qubits !== null && size.qubits <= VARIATIONAL_MAX_QUBITS;
+  if (fits) {
+    for (const name of ['qaoa', 'vqe']) if (offered(name)) picks.push(name);
+  } else {
+    const decomposition = DECOMPOSITION_NAMES.find(offered);
+    if (decomposition) picks.push(decomposition);
+  }
+  return picks;
+}

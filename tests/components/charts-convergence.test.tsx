@@ -1,0 +1,96 @@
+import { render, screen } from '@testing-library/react';
+import { scaleLinear } from 'd3-scale';
+import { ConvergenceChart } from '../../components/charts/ConvergenceChart';
+import { convergenceGeometry, DEFAULT_MARGIN } from '../../components/charts/convergence';
+import { histogramBars } from '../../components/charts/histogram';
+
+/** The numbers of an SVG path, as [x, y] pairs (M/L commands only, which d3's linear curve emits). */
+function pathPoints(d: string): Array<[number, number]> {
+  const nums = (d.match(/-?\d+(?:\.\d+)?(?:e-?\d+)?/g) ?? []).map(Number);
+  const pts: Array<[number, number]> = [];
+  for (let i = 0; i + 1 < nums.length; i += 2) pts.push([nums[i], nums[i + 1]]);
+  return pts;
+}
+
+// A shot-based trace: energy falls toward −4 (K4's max cut is 4, so the ground energy of
+// H = Σ s_u s_v… reads −cut here), with standard errors shrinking as shots add up.
+const trace = [
+  { iteration: 0, energy: -3.0, stdError: 0.30 },
+  { iteration: 5, energy: -3.4, stdError: 0.20 },
+  { iteration: 10, energy: -3.8, stdError: 0.10 },
+  { iteration: 20, energy: -3.9, stdError: 0.05 },
+];
+const frame = { width: 320, height: 180 };
+
+describe('convergenceGeometry', () => {
+  test('the line goes through every trace point, mapped by linear scales computed here independently', () => {
+    const m = DEFAULT_MARGIN;
+    const x = scaleLinear().domain([0, 20]).range([m.left, frame.width - m.right]);
+    // y domain covers energy ± standard error: [−3.95, −2.7].
+    const y = scaleLinear().domain([-3.9 - 0.05, -3.0 + 0.3]).range([frame.height - m.bottom, m.top]);
+    const g = convergenceGeometry(trace, frame);
+    const pts = pathPoints(g.line as string);
+    expect(pts).toHaveLength(trace.length);
+    trace.forEach((p, i) => {
+      expect(pts[i][0]).toBeCloseTo(x(p.iteration), 6);
+      expect(pts[i][1]).toBeCloseTo(y(p.energy), 6);
+    });
+    // SVG y grows downwards, so the falling energy is drawn lower on the page.
+    expect(pts[3][1]).toBeGreaterThan(pts[0][1]);
+  });
+
+  test('the band is energy + standard error forward, then energy − standard error backward', () => {
+    const g = convergenceGeometry(trace, frame);
+    const m = DEFAULT_MARGIN;
+    const x = scaleLinear().domain([0, 20]).range([m.left, frame.width - m.right]);
+    const y = scaleLinear().domain([-3.95, -2.7]).range([frame.height - m.bottom, m.top]);
+    const pts = pathPoints(g.band as string);
+    // d3.area draws the y1 (upper) edge left to right, then the y0 edge right to left.
+    expect(pts).toHaveLength(2 * trace.length);
+    trace.forEach((p, i) => {
+      expect(pts[i][0]).toBeCloseTo(x(p.iteration), 6);
+      expect(pts[i][1]).toBeCloseTo(y(p.energy + p.stdError), 6);
+      const back = pts[2 * trace.length - 1 - i];
+      expect(back[0]).toBeCloseTo(x(p.iteration), 6);
+      expect(back[1]).toBeCloseTo(y(p.energy - p.stdError), 6);
+    });
+  });
+
+  test('exact expectations (no standard error) give no band; a flat single point still has a domain', () => {
+    const g = convergenceGeometry([{ iteration: 3, energy: -2 }], frame);
+    expect(g.band).toBeNull();
+    expect(g.x.domain()).toEqual([3, 4]);
+    expect(g.y.domain()).toEqual([-3, -1]);
+    expect(pathPoints(g.line as string)).toHaveLength(1);
+    expect(convergenceGeometry([], frame).line).toBeNull();
+  });
+});
+
+describe('<ConvergenceChart>', () => {
+  test('draws the line and band paths it computed', () => {
+    render(<ConvergenceChart trace={trace} width={frame.width} height={frame.height} />);
+    const g = convergenceGeometry(trace, frame);
+    const chart = screen.getByTestId('convergence-chart');
+    const ds = Array.from(chart.querySelectorAll('path')).map((p) => p.getAttribute('d'));
+    expect(ds).toContain(g.line);
+    expect(ds).toContain(g.band);
+    expect(screen.getByLabelText(/from -3 to -3.9 over 4 points, with a standard-error band/)).toBeTruthy();
+  });
+});
+
+describe('histogramBars', () => {
+  test('bars are sorted by count, heights proportional to counts, shares sum to the shown part', () => {
+    // Samples of a 4-depot max-cut (K4): 0011 and 0101 cut 4 lanes (optimal), 0001 cuts 3.
+    const samples = [
+      { assignment: [0, 0, 0, 1], count: 100, value: 3 },
+      { assignment: [0, 0, 1, 1], count: 300, value: 4 },
+      { assignment: [0, 1, 0, 1], count: 200, value: 4 },
+    ];
+    const bars = histogramBars(samples, { width: 300, height: 120, top: 0, bottom: 20 }, { sense: 'max' });
+    expect(bars.map((b) => b.key)).toEqual(['0011', '0101', '0001']);
+    expect(bars[0].height).toBeCloseTo(100, 9);
+    expect(bars[1].height / bars[0].height).toBeCloseTo(2 / 3, 9);
+    expect(bars.map((b) => b.best)).toEqual([true, true, false]);
+    expect(bars.reduce((s, b) => s + b.share, 0)).toBeCloseTo(1, 12);
+  });
+});
