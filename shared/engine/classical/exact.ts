@@ -95,8 +95,13 @@ export function createChunkWalk(problem: Problem, plan: ExactPlan, chunk: number
   for (let g = 1; g < size; g++) {
     const top = 31 - Math.clz32(g);
     const rest = g ^ (1 << top);
+    // Moving depot `top` to side 1: lanes to side-0 low depots start crossing, lanes to
+    // side-1 ones stop (all low depots above `top` are on side 0 in both states).
     let add = 0;
-    for (let j = 0; j < top; j++) if (((rest >> j) & 1) === 0) add += lowNeighbourW[top * low + j];
+    for (let j = 0; j < low; j++) {
+      if (j === top) continue;
+      add += ((rest >> j) & 1) === 0 ? lowNeighbourW[top * low + j] : -lowNeighbourW[top * low + j];
+    }
     lowCut[g] = lowCut[rest] + add;
     lowWeight[g] = lowWeight[rest] + depotWeight[order[top]];
   }
