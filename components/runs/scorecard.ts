@@ -6,13 +6,13 @@
  */
 import { gapOf } from '../../shared/engine/problem/evaluate';
 import { senseOf, type Sense } from '../../shared/engine/problem/types';
-import type { RunDetail, RunJob } from './types';
+import type { JobStatus, ScorableRun } from './types';
 
 export interface ScoreRow {
   jobId: number;
   solver: string;
   label: string;
-  status: RunJob['status'];
+  status: JobStatus;
   value: number | null;
   /** Tightest proven bound over the whole run (same for every row). */
   bound: number | null;
@@ -42,7 +42,7 @@ const TIE = 1e-9;
 const same = (a: number, b: number) => Math.abs(a - b) <= TIE * Math.max(1, Math.abs(a), Math.abs(b));
 
 /** The tightest proven bound: the lowest upper bound (max) or the highest lower bound (min). */
-export function bestBound(run: Pick<RunDetail, 'problem' | 'jobs' | 'bound'>): number | null {
+export function bestBound(run: ScorableRun): number | null {
   const sense = senseOf(run.problem.kind);
   const bounds: number[] = [];
   if (typeof run.bound === 'number' && Number.isFinite(run.bound)) bounds.push(run.bound);
@@ -68,7 +68,7 @@ export function ratioToBound(sense: Sense, value: number, bound: number | null):
   return bound / value;
 }
 
-export function buildScorecard(run: Pick<RunDetail, 'problem' | 'jobs' | 'bound'>, labels: Record<string, string> = {}): Scorecard {
+export function buildScorecard(run: ScorableRun, labels: Record<string, string> = {}): Scorecard {
   const kind = run.problem.kind;
   const sense = senseOf(kind);
   const bound = bestBound(run);

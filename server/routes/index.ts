@@ -8,6 +8,7 @@ import { membersRoutes } from './members';
 import { invitationsRoutes } from './invitations';
 import { auditRoutes } from './audit';
 import { tokensRoutes } from './tokens';
+import { solversRoutes } from './solvers';
 
 /** The API's route table, in one list (mounted under /api; read by the OpenAPI and isolation tests). */
 export function apiRoutes(deps: Deps): RouteSpec[] {
@@ -20,6 +21,7 @@ export function apiRoutes(deps: Deps): RouteSpec[] {
     ...auditRoutes(deps),
     ...tokensRoutes(deps),
     ...networksRoutes(deps),
+    ...solversRoutes(deps),
   ];
   return routes;
 }

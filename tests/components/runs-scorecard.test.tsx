@@ -2,22 +2,23 @@ import { act, render, screen, within } from '@testing-library/react';
 import { Scorecard } from '../../components/runs/Scorecard';
 import { buildScorecard } from '../../components/runs/scorecard';
 import { formatGap, formatRatio } from '../../components/runs/format';
-import type { JobResult, RunDetail, RunJob } from '../../components/runs/types';
+import type { JobResult, JobStatus, ScorableRun } from '../../components/runs/types';
+
+type Job = ScorableRun['jobs'][number];
 
 /** A finished job with just the figures the scorecard reads. */
-function job(id: number, solver: string, r: Partial<JobResult> & { value: number }, status: RunJob['status'] = 'succeeded'): RunJob {
+function job(id: number, solver: string, r: Partial<JobResult> & { value: number }, status: JobStatus = 'succeeded'): Job {
   return {
     id,
     solver,
     status,
-    progress: 1,
     error: null,
     result: { assignment: [], bound: null, gap: null, energy: null, expectation: null, params: null, seconds: 0.5, evaluations: 100, shots: 0, provenOptimal: false, ...r },
   };
 }
 
-function run(kind: RunDetail['problem']['kind'], jobs: RunJob[], bound?: number | null): RunDetail {
-  return { id: 1, status: 'succeeded', problem: { kind }, networkId: 1, versionId: 1, createdAt: '2026-12-01T00:00:00Z', jobs, bound };
+function run(kind: ScorableRun['problem']['kind'], jobs: Job[], bound?: number | null): ScorableRun {
+  return { problem: { kind }, jobs, bound };
 }
 
 describe('buildScorecard (best answer, ratio, gap)', () => {
@@ -80,7 +81,7 @@ describe('buildScorecard (best answer, ratio, gap)', () => {
   });
 
   test('failed jobs carry their error and no value', () => {
-    const failed: RunJob = { ...job(2, 'vqe', { value: 0 }), status: 'failed', result: null, error: 'too many qubits' };
+    const failed: Job = { ...job(2, 'vqe', { value: 0 }), status: 'failed', result: null, error: 'too many qubits' };
     const card = buildScorecard(run('maxcut', [job(1, 'tabu', { value: 4 }), failed]));
     expect(card.rows[1].value).toBeNull();
     expect(card.rows[1].error).toBe('too many qubits');
