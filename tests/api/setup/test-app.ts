@@ -76,6 +76,8 @@ export async function createOrgWithRoles(deps: Deps, label: string, plan = 'team
   });
 }
 
+export type OrgWithRoles = Awaited<ReturnType<typeof createOrgWithRoles>>;
+
 /** A signed-in agent for one person. */
 export async function signedIn(app: TestApp['app'], email: string, password = TEST_PASSWORD): Promise<SessionAgent> {
   const a = await sessionAgent(app);
