@@ -1,0 +1,341 @@
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { PanResponder, Platform, StyleSheet, View, type GestureResponderEvent, type LayoutChangeEvent } from 'react-native';
+import { LaneVolumeSchema } from '../../shared/schemas/networks';
+import { colors, radius, space } from '../theme';
+import { Button } from '../ui/Button';
+import { Notice } from '../ui/Notice';
+import { Small } from '../ui/Text';
+import { NetworkDrawing } from './NetworkDrawing';
+import { PromptModal } from './PromptModal';
+import { addDepot, addLane, emptySelection, laneEnds, moveDepot, nextDepotId, removeSelected, setLaneWeight, type Draft, type Selection } from './draft';
+import type { Projection } from './layout';
+import { depotAt, laneAt } from './hit';
+import { fitTransform, panBy, toWorld, zoomAt, type ViewTransform } from './viewport';
+
+/** Finger-sized hit areas in screen pixels (TOUCH / 2 around a depot). */
+const DEPOT_HIT_PX = 22;
+const LANE_HIT_PX = 12;
+/** Movement below this is a tap, not a drag (px). */
+const SLOP_PX = 6;
+
+export type EditorMode = 'lanes' | 'move';
+
+type Gesture =
+  | { kind: 'pending'; sx: number; sy: number; depot: number; lane: number; t0: ViewTransform }
+  | { kind: 'pan'; t0: ViewTransform }
+  | { kind: 'move'; depot: number }
+  | { kind: 'connect'; depot: number }
+  | { kind: 'pinch'; d0: number; mid0: [number, number]; t0: ViewTransform }
+  | { kind: 'none' };
+
+type Prompt = { kind: 'depot'; x: number; y: number } | { kind: 'new-lane'; a: number; b: number } | { kind: 'edit-lane'; lane: number } | null;
+
+export function parseVolume(text: string): number | string {
+  const v = Number(text.trim().replace(/\s/g, ''));
+  if (text.trim() === '' || !Number.isFinite(v)) return `"${text}" is not a number; write a volume such as 12.5`;
+  const parsed = LaneVolumeSchema.safeParse(v);
+  return parsed.success ? parsed.data : parsed.error.issues[0].message;
+}
+
+/**
+ * Drawing and editing on the canvas with one responder (PanResponder works for touch and mouse,
+ * also on react-native-web):
+ *  - tap empty space → name prompt → new depot there
+ *  - drag depot → depot (mode "lanes") → volume prompt → new lane
+ *  - drag a depot (mode "move") → move it; drag empty space → pan; two fingers → pinch zoom;
+ *    mouse wheel (web) → zoom at the pointer
+ *  - tap a depot → select it; tap a lane → select it and edit its volume
+ * A transparent layer above the SVG takes every touch, so positions are always relative to the
+ * canvas whatever mark is under the finger.
+ */
+export function NetworkEditor(props: {
+  draft: Draft;
+  projection: Projection | null;
+  onCommit: (next: Draft) => void;
+  selection: Selection;
+  onSelectionChange: (s: Selection) => void;
+  undo?: () => void;
+  redo?: () => void;
+  canUndo?: boolean;
+  canRedo?: boolean;
+  readOnly?: boolean;
+  height?: number;
+  depotColors?: readonly (string | undefined)[];
+  emphasisedLanes?: ReadonlySet<number>;
+}) {
+  const { draft, projection } = props;
+  const [size, setSize] = useState({ width: 0, height: 0 });
+  const [transform, setTransform] = useState<ViewTransform>({ k: 1, x: 0, y: 0 });
+  const [markScale, setMarkScale] = useState(1);
+  const [mode, setMode] = useState<EditorMode>('lanes');
+  const [dragAt, setDragAt] = useState<{ depot: number; x: number; y: number } | null>(null);
+  const [pending, setPending] = useState<{ from: number; x: number; y: number } | null>(null);
+  const [prompt, setPrompt] = useState<Prompt>(null);
+  const [message, setMessage] = useState<string | null>(null);
+  const fitted = useRef(false);
+
+  const ends = useMemo(() => laneEnds(draft), [draft]);
+  // While a depot is dragged only its position changes; the draft is committed on release.
+  const xy = useMemo(() => {
+    if (!dragAt) return draft.xy;
+    const copy = draft.xy.slice();
+    copy[2 * dragAt.depot] = dragAt.x;
+    copy[2 * dragAt.depot + 1] = dragAt.y;
+    return copy;
+  }, [draft.xy, dragAt]);
+
+  const fit = useCallback(() => {
+    if (size.width === 0) return;
+    const t = fitTransform(draft.xy, size.width, size.height);
+    setTransform(t);
+    setMarkScale(1 / t.k);
+  }, [draft.xy, size]);
+
+  useEffect(() => {
+    if (!fitted.current && size.width > 0) {
+      fitted.current = true;
+      if (draft.depots.length > 0) fit();
+      else setTransform({ k: 1, x: size.width / 2, y: size.height / 2 });
+    }
+  }, [size, fit, draft.depots.length]);
+
+  // The responder is created once; it reads the latest values through this ref.
+  const live = useRef({ draft, transform, mode, selection: props.selection, props, xy, ends, markScale });
+  live.current = { draft, transform, mode, selection: props.selection, props, xy, ends, markScale };
+  const gesture = useRef<Gesture>({ kind: 'none' });
+
+  const responder = useMemo(() => {
+    const local = (e: GestureResponderEvent): [number, number] => [e.nativeEvent.locationX, e.nativeEvent.locationY];
+    const touchPair = (e: GestureResponderEvent) => {
+      const t = e.nativeEvent.touches;
+      if (!t || t.length < 2) return null;
+      const [a, b] = [t[0], t[1]];
+      // Canvas origin in page coordinates, from the first touch (its location is canvas-relative).
+      const ox = a.pageX - a.locationX, oy = a.pageY - a.locationY;
+      return { d: Math.hypot(a.pageX - b.pageX, a.pageY - b.pageY), mid: [(a.pageX + b.pageX) / 2 - ox, (a.pageY + b.pageY) / 2 - oy] as [number, number] };
+    };
+    return PanResponder.create({
+      onStartShouldSetPanResponder: () => true,
+      onMoveShouldSetPanResponder: () => true,
+      onPanResponderTerminationRequest: () => false,
+      onPanResponderGrant: (e) => {
+        const { transform: t, xy: pos, ends: le, props: p } = live.current;
+        const pair = touchPair(e);
+        if (pair) {
+          gesture.current = { kind: 'pinch', d0: pair.d, mid0: pair.mid, t0: t };
+          return;
+        }
+        const [sx, sy] = local(e);
+        const [wx, wy] = toWorld(t, sx, sy);
+        const depot = depotAt(pos, wx, wy, DEPOT_HIT_PX / t.k);
+        const lane = depot < 0 ? laneAt(pos, le, wx, wy, LANE_HIT_PX / t.k) : -1;
+        gesture.current = p.readOnly && depot < 0 && lane < 0 ? { kind: 'pan', t0: t } : { kind: 'pending', sx, sy, depot, lane, t0: t };
+      },
+      onPanResponderMove: (e, gs) => {
+        const g = gesture.current;
+        const pair = touchPair(e);
+        if (pair) {
+          if (g.kind !== 'pinch') {
+            setPending(null);
+            setDragAt(null);
+            gesture.current = { kind: 'pinch', d0: pair.d, mid0: pair.mid, t0: live.current.transform };
+            return;
+          }
+          const moved = panBy(g.t0, pair.mid[0] - g.mid0[0], pair.mid[1] - g.mid0[1]);
+          setTransform(zoomAt(moved, pair.d / Math.max(g.d0, 1), pair.mid[0], pair.mid[1]));
+          return;
+        }
+        if (g.kind === 'pending') {
+          if (Math.hypot(gs.dx, gs.dy) < SLOP_PX) return;
+          const { mode: m, props: p } = live.current;
+          if (g.depot >= 0 && !p.readOnly) gesture.current = m === 'move' ? { kind: 'move', depot: g.depot } : { kind: 'connect', depot: g.depot };
+          else gesture.current = { kind: 'pan', t0: g.t0 };
+        }
+        const now = gesture.current;
+        const [sx, sy] = local(e);
+        const [wx, wy] = toWorld(live.current.transform, sx, sy);
+        if (now.kind === 'pan') setTransform(panBy(now.t0, gs.dx, gs.dy));
+        else if (now.kind === 'move') setDragAt({ depot: now.depot, x: wx, y: wy });
+        else if (now.kind === 'connect') setPending({ from: now.depot, x: wx, y: wy });
+      },
+      onPanResponderRelease: (e) => {
+        const g = gesture.current;
+        gesture.current = { kind: 'none' };
+        const { draft: d, transform: t, selection: sel, props: p } = live.current;
+        const [sx, sy] = local(e);
+        const [wx, wy] = toWorld(t, sx, sy);
+        if (g.kind === 'pending') {
+          if (g.depot >= 0) {
+            const depots = new Set(sel.depots);
+            if (depots.has(g.depot)) depots.delete(g.depot);
+            else depots.add(g.depot);
+            p.onSelectionChange({ depots, lanes: new Set() });
+          } else if (g.lane >= 0) {
+            p.onSelectionChange({ depots: new Set(), lanes: new Set([g.lane]) });
+            if (!p.readOnly) setPrompt({ kind: 'edit-lane', lane: g.lane });
+          } else if (!p.readOnly) {
+            p.onSelectionChange(emptySelection);
+            const [tx, ty] = toWorld(t, g.sx, g.sy);
+            setPrompt({ kind: 'depot', x: tx, y: ty });
+          } else p.onSelectionChange(emptySelection);
+        } else if (g.kind === 'move') {
+          setDragAt(null);
+          p.onCommit(moveDepot(d, g.depot, wx, wy, live.current.props.projection));
+        } else if (g.kind === 'connect') {
+          setPending(null);
+          const target = depotAt(live.current.xy, wx, wy, DEPOT_HIT_PX / t.k);
+          if (target >= 0 && target !== g.depot) {
+            const tried = addLane(d, g.depot, target, 1);
+            if ('problem' in tried) setMessage(tried.problem);
+            else setPrompt({ kind: 'new-lane', a: g.depot, b: target });
+          } else if (target < 0) setMessage('Release on another depot to add a lane (switch to "Move depots" to move it).');
+        }
+      },
+      onPanResponderTerminate: () => {
+        gesture.current = { kind: 'none' };
+        setPending(null);
+        setDragAt(null);
+      },
+    });
+  }, []);
+
+  const onLayout = (e: LayoutChangeEvent) => {
+    const { width, height } = e.nativeEvent.layout;
+    setSize((s) => (s.width === width && s.height === height ? s : { width, height }));
+  };
+
+  const zoomCentre = (factor: number) => setTransform((t) => zoomAt(t, factor, size.width / 2, size.height / 2));
+  // Wheel zoom exists only on the web (react-native-web passes onWheel through to the DOM).
+  const wheelProps =
+    Platform.OS === 'web'
+      ? {
+          onWheel: (e: { nativeEvent: { deltaY: number; offsetX: number; offsetY: number; cancelable?: boolean; preventDefault?: () => void } }) => {
+            const ev = e.nativeEvent;
+            if (ev.cancelable) ev.preventDefault?.();
+            setTransform((t) => zoomAt(t, Math.exp(-ev.deltaY * 0.0015), ev.offsetX, ev.offsetY));
+          },
+        }
+      : {};
+
+  const selectedCount = props.selection.depots.size + props.selection.lanes.size;
+  const laneTitle = prompt?.kind === 'edit-lane' && draft.lanes[prompt.lane] ? `Lane ${draft.lanes[prompt.lane].from}–${draft.lanes[prompt.lane].to}` : prompt?.kind === 'new-lane' ? `New lane ${draft.depots[prompt.a]?.id}–${draft.depots[prompt.b]?.id}` : '';
+
+  return (
+    <View style={styles.wrap}>
+      {!props.readOnly ? (
+        <View style={styles.toolbar} accessibilityRole="toolbar" accessibilityLabel="Drawing tools">
+          <View style={styles.segment}>
+            <Button label="Draw lanes" tone={mode === 'lanes' ? 'primary' : 'secondary'} onPress={() => setMode('lanes')} accessibilityHint="Drag from one depot to another to add a lane" testID="mode-lanes" />
+            <Button label="Move depots" tone={mode === 'move' ? 'primary' : 'secondary'} onPress={() => setMode('move')} accessibilityHint="Drag a depot to move it" testID="mode-move" />
+          </View>
+          <Button label="Undo" tone="secondary" onPress={props.undo} disabled={!props.canUndo} />
+          <Button label="Redo" tone="secondary" onPress={props.redo} disabled={!props.canRedo} />
+          <Button
+            label={selectedCount > 0 ? `Delete (${selectedCount})` : 'Delete'}
+            tone="secondary"
+            disabled={selectedCount === 0}
+            onPress={() => {
+              props.onCommit(removeSelected(draft, props.selection));
+              props.onSelectionChange(emptySelection);
+            }}
+          />
+        </View>
+      ) : null}
+      <View style={[styles.canvas, { height: props.height ?? 420 }]} onLayout={onLayout}>
+        {size.width > 0 ? (
+          <NetworkDrawing
+            depots={draft.depots}
+            lanes={draft.lanes}
+            xy={xy}
+            ends={ends}
+            width={size.width}
+            height={size.height}
+            transform={transform}
+            markScale={markScale}
+            selection={props.selection}
+            pendingLane={pending}
+            depotColors={props.depotColors}
+            emphasisedLanes={props.emphasisedLanes}
+          />
+        ) : null}
+        <View
+          style={StyleSheet.absoluteFill}
+          {...responder.panHandlers}
+          {...wheelProps}
+          accessibilityLabel={props.readOnly ? 'Network drawing' : 'Drawing canvas: tap empty space to add a depot, drag between depots to add a lane'}
+          testID="drawing-canvas"
+        />
+        <View style={styles.zoom}>
+          <Button label="Fit" tone="secondary" onPress={fit} accessibilityHint="Show the whole network" />
+          <Button label="+" tone="secondary" onPress={() => zoomCentre(1.25)} accessibilityHint="Zoom in" testID="zoom-in" />
+          <Button label="−" tone="secondary" onPress={() => zoomCentre(0.8)} accessibilityHint="Zoom out" testID="zoom-out" />
+        </View>
+        {draft.depots.length === 0 && !props.readOnly ? (
+          <View style={styles.hint} pointerEvents="none">
+            <Small style={styles.hintText}>Tap anywhere to place the first depot.</Small>
+          </View>
+        ) : null}
+      </View>
+      {message ? (
+        <Notice tone="caution" testID="drawing-message">
+          {message}
+        </Notice>
+      ) : null}
+
+      <PromptModal
+        visible={prompt?.kind === 'depot'}
+        title="New depot"
+        label="Depot name"
+        hint={`Its id will be ${nextDepotId(draft)}.`}
+        confirmLabel="Add depot"
+        validate={(t) => (t.trim().length > 200 ? 'keep depot names to 200 characters' : null)}
+        onCancel={() => setPrompt(null)}
+        onConfirm={(name) => {
+          if (prompt?.kind !== 'depot') return;
+          props.onCommit(addDepot(draft, { id: nextDepotId(draft), name: name.trim() }, prompt.x, prompt.y, projection));
+          setPrompt(null);
+          setMessage(null);
+        }}
+        testID="depot-prompt"
+      />
+      <PromptModal
+        visible={prompt?.kind === 'new-lane' || prompt?.kind === 'edit-lane'}
+        title={laneTitle}
+        label="Volume"
+        initial={prompt?.kind === 'edit-lane' ? String(draft.lanes[prompt.lane]?.weight ?? '') : '1'}
+        hint="Freight volume on this lane (a number ≥ 0)."
+        keyboardType="decimal-pad"
+        confirmLabel={prompt?.kind === 'new-lane' ? 'Add lane' : 'Save volume'}
+        validate={(t) => {
+          const v = parseVolume(t);
+          return typeof v === 'string' ? v : null;
+        }}
+        onCancel={() => setPrompt(null)}
+        onConfirm={(text) => {
+          const v = parseVolume(text);
+          if (typeof v === 'string' || !prompt) return;
+          if (prompt.kind === 'new-lane') {
+            const next = addLane(draft, prompt.a, prompt.b, v);
+            if ('problem' in next) setMessage(next.problem);
+            else {
+              props.onCommit(next);
+              setMessage(null);
+            }
+          } else if (prompt.kind === 'edit-lane') props.onCommit(setLaneWeight(draft, prompt.lane, v));
+          setPrompt(null);
+        }}
+        testID="lane-prompt"
+      />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.sm },
+  toolbar: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'center' },
+  segment: { flexDirection: 'row', gap: 2, padding: 2, borderRadius: radius.md, backgroundColor: colors.surfaceSunk },
+  canvas: { borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, overflow: 'hidden', backgroundColor: colors.surface },
+  zoom: { position: 'absolute', right: space.sm, bottom: space.sm, flexDirection: 'row', gap: space.xs },
+  hint: { position: 'absolute', left: 0, right: 0, top: space.lg, alignItems: 'center' },
+  hintText: { backgroundColor: colors.paper, paddingHorizontal: space.md, paddingVertical: space.xs, borderRadius: radius.pill },
+});
