@@ -47,6 +47,10 @@ export function fmRefine(g: PartGraph, side: Int8Array, win: Window, opts: { max
   let w1 = 0;
   for (let i = 0; i < n; i++) if (side[i] === 1) w1 += vw[i];
   let cut = cutOf(g, side);
+  // During a pass the window may be overstepped by one free depot's weight (as in FM: a swap
+  // is two moves); only prefixes inside the window (or closer to it) are kept.
+  let slack = 0;
+  for (let i = 0; i < n; i++) if (pin[i] < 0 && vw[i] > slack) slack = vw[i];
   for (let pass = 0; pass < opts.maxPasses; pass++) {
     heaps[0].clear();
     heaps[1].clear();
@@ -71,7 +75,7 @@ export function fmRefine(g: PartGraph, side: Int8Array, win: Window, opts: { max
         if (v < 0) continue;
         const nw1 = s === 0 ? curW1 + vw[v] : curW1 - vw[v];
         const nv = violation(nw1, win);
-        if (nv > v0 + 1e-12) continue;
+        if (nv > Math.max(v0, slack) + 1e-12) continue;
         const gk = heaps[s].topKey() + (v0 > 0 && nv < v0 ? 1e15 : 0);
         if (gk > pickGain) { pickGain = gk; pick = v; }
       }

@@ -18,6 +18,8 @@ export interface MilpModel {
   lp: string;
   /** Column names in the order the solution is read back (depot side/region columns). */
   depotColumns: string[][];
+  /** Crossing columns y<e> with their lane ends (for MIP starts). */
+  crossingColumns: Array<{ name: string; from: number; to: number }>;
   /** True when all lane weights are integers (the optimum and the bound are integers). */
   integral: boolean;
   /** Number of columns and rows written. */
@@ -53,6 +55,7 @@ export function buildMilp(problem: Problem): MilpModel {
   const binaries: string[] = [];
   const objective: Array<[number, string]> = [];
   const depotColumns: string[][] = [];
+  const crossingColumns: MilpModel['crossingColumns'] = [];
   let integral = true;
   const unpinned = problem.pins.every((p) => p < 0);
 
@@ -84,6 +87,7 @@ export function buildMilp(problem: Problem): MilpModel {
     const u = laneFrom[e], v = laneTo[e];
     const y = `y${e}`;
     objective.push([w, y]);
+    crossingColumns.push({ name: y, from: u, to: v });
     bounds.push(`0 <= ${y} <= 1`);
     const pushDown = maximise ? w > 0 : w < 0;
     if (k === 2) {
@@ -137,7 +141,7 @@ export function buildMilp(problem: Problem): MilpModel {
     ...binaries.map((b) => ` ${b}`),
     'End',
   ].join('\n');
-  return { lp, depotColumns, integral, columns: binaries.length + objective.length, rows: rows.length };
+  return { lp, depotColumns, crossingColumns, integral, columns: binaries.length + objective.length, rows: rows.length };
 }
 
 /** Read an assignment from column values looked up by name. */

@@ -40,7 +40,7 @@ type HighsModule = {
     getObjectiveValue(): number;
     getSolution(): { colValue: Float64Array };
     getColByName(name: string): number;
-    getDimensions(): { numCols?: number; num_col?: number } & Record<string, unknown>;
+    getDimensions(): { numCols: number };
     setSolution(s: { colValue: Float64Array }): unknown;
     info: { get(name: string): unknown };
     dispose(): void;
@@ -68,14 +68,19 @@ export async function runMilp(model: MilpModel, opts: MilpRunOptions): Promise<M
       mip_abs_gap: model.integral ? 0.999 : 1e-7,
     });
     if (opts.start) {
-      const sol = hm.getSolution();
-      const colValue = new Float64Array(sol.colValue.length);
+      const start = opts.start;
+      const colValue = new Float64Array(hm.getDimensions().numCols);
+      const set = (name: string, v: number): void => {
+        const c = hm.getColByName(name);
+        if (c >= 0) colValue[c] = v;
+      };
       model.depotColumns.forEach((cols, i) => {
-        if (cols.length === 1) colValue[hm.getColByName(cols[0])] = opts.start![i];
-        else colValue[hm.getColByName(cols[opts.start![i]])] = 1;
+        if (cols.length === 1) set(cols[0], start[i]);
+        else set(cols[start[i]], 1);
       });
-      // Crossing variables: let HiGHS repair them from the sides (it checks feasibility itself).
-      try { hm.setSolution({ colValue }); } catch { /* a rejected start only costs the hint */ }
+      for (const y of model.crossingColumns) set(y.name, start[y.from] !== start[y.to] ? 1 : 0);
+      // HiGHS checks the start itself; a rejected start only costs the hint.
+      try { hm.setSolution({ colValue }); } catch { /* ignored */ }
     }
     hm.run();
     const code = hm.getModelStatus();
