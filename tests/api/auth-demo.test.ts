@@ -10,9 +10,17 @@ afterAll(async () => {
   await t?.close();
 });
 
+/** Rows of the demo organisation only (other suites may write to the same database meanwhile). */
 async function counts() {
   const m = t.deps.models;
-  return { users: await m.User.count(), orgs: await m.Organisation.count(), memberships: await m.Membership.count(), audit: await m.AuditEvent.count() };
+  const orgs = await m.Organisation.findAll({ where: { name: DEMO_ORGANISATION_NAME } });
+  const organisationId = orgs.map((o) => o.id);
+  return {
+    users: await m.User.count({ where: { email: DEMO_USERS.map((u) => u.email) } }),
+    orgs: orgs.length,
+    memberships: await m.Membership.count({ where: { organisationId } }),
+    audit: await m.AuditEvent.count({ where: { organisationId } }),
+  };
 }
 
 test('the demo seed creates one user per role in the invented organisation, and a second run changes nothing', async () => {
