@@ -103,10 +103,17 @@ function qubitsFor(problem: Problem, s: CommonSettings): { qubits: number; what:
 }
 
 function refuse(problem: Problem, s: CommonSettings): string | null {
-  const { qubits, what } = qubitsFor(problem, s);
+  // Cheap lower bound first: a large network is refused without building its operator.
+  let free = 0;
+  for (let i = 0; i < problem.pins.length; i++) if (problem.pins[i] < 0) free++;
+  const oneHot = problem.kind === 'kway' && s.kwayStrategy === 'onehot';
+  const atLeast = oneHot ? free * problem.k : free;
+  const { qubits, what } = atLeast > s.maxQubits
+    ? { qubits: atLeast, what: oneHot ? 'the one-hot k-way encoding' : `one qubit per free depot (${free} free depots)` }
+    : qubitsFor(problem, s);
   if (qubits <= s.maxQubits) return null;
   const mib = stateBytes(qubits) / 2 ** 20;
-  return `${what} needs ${qubits} qubits (a ${mib >= 1024 ? `${(mib / 1024).toFixed(0)} GiB` : `${mib.toFixed(0)} MiB`} statevector); ` +
+  return `${what} needs ${atLeast > s.maxQubits ? 'at least ' : ''}${qubits} qubits (a ${mib >= 1024 ? `${(mib / 1024).toFixed(0)} GiB` : `${mib.toFixed(0)} MiB`} statevector); ` +
     `this run allows ${s.maxQubits} (maxQubits; the simulator's hard limit is ${DEFAULT_MAX_QUBITS}). ` +
     (problem.kind === 'kway' && s.kwayStrategy === 'onehot' ? 'Use kwayStrategy "recursive", pin depots, ' : 'Pin depots, ') +
     'split the network, or use a classical solver.';

@@ -2,6 +2,7 @@ import { buildAdjacency } from '../network/build';
 import type { CompactNetwork } from '../network/types';
 import { maxPartWeight } from '../problem/evaluate';
 import type { Problem } from '../problem/types';
+import { gcdOf } from '../encodings/slack';
 
 /** One bisection the recursive strategy asks for: a sub-network and its allowed D = W₀ − W₁. */
 export interface BisectionStep {
@@ -36,9 +37,22 @@ export function inducedNetwork(net: CompactNetwork, depots: Int32Array): Compact
   };
 }
 
+/**
+ * Heaviest weight one region can actually take: maxPartWeight rounded down to the depot-weight
+ * gcd when weights are whole numbers (unit depots, L = 2.75 ⇒ 2), so that uneven first splits
+ * do not hand a side more depots than its regions can hold.
+ */
+export function regionLimit(problem: Problem): number {
+  const L = maxPartWeight(problem);
+  const w = problem.network.depotWeight;
+  if (!Array.from(w).every((x) => Math.abs(x - Math.round(x)) < 1e-9)) return L;
+  const g = gcdOf(w);
+  return g > 0 ? Math.floor(L / g + 1e-9) * g : L;
+}
+
 /** The bisection asked for when regions [first, first + regions) share `depots` (regions ≥ 2). */
 export function bisectionStep(problem: Problem, depots: Int32Array, first: number, regions: number): BisectionStep {
-  const L = maxPartWeight(problem);
+  const L = regionLimit(problem);
   const r0 = Math.floor(regions / 2), r1 = regions - r0;
   const network = inducedNetwork(problem.network, depots);
   let W = 0;
@@ -59,7 +73,7 @@ export const firstBisectionStep = (problem: Problem): BisectionStep =>
 /**
  * k-way partitioning by recursive bisection (a driver-level strategy): split the regions
  * [first, first + r) into ⌊r/2⌋ and ⌈r/2⌉, bisect the depots accordingly, recurse. Uneven
- * region counts get uneven targets: with L = maxPartWeight of the k-way problem, side 0 may
+ * region counts get uneven targets: with L = regionLimit of the k-way problem, side 0 may
  * weigh at most ⌊r/2⌋·L and side 1 at most ⌈r/2⌉·L, i.e. D = W₀ − W₁ ∈ [W − 2r₁L, 2r₀L − W].
  * Pins: a depot pinned to a region of side 0's range is pinned to side 0, and so on.
  * `bisect` returns side 0/1 per sub-network depot; the final answer is checked by the caller

@@ -1,0 +1,244 @@
+/**
+ * Max-cut on networks larger than a statevector can hold, by decomposition (Zhou, Du, Tian,
+ * Tao, "QAOA-in-QAOA: solving large-scale MaxCut problems on small quantum machines",
+ * arXiv:2205.11762 (2022)):
+ *  1. split the depots into blocks of ≤ blockSize with the classical k-way partitioner (few
+ *     lanes between blocks, so each block keeps most of its structure);
+ *  2. solve each block's own max-cut with QAOA (pins enter as fixed spins);
+ *  3. choose each block's orientation t_b ∈ {±1}: with block spins s_u, the lanes between
+ *     blocks contribute Σ_{a<b} w'_ab (1 − t_a t_b)/2 + const, w'_ab = Σ_{u∈a, v∈b} w_uv s_u s_v —
+ *     itself a small max-cut over the blocks, solved exactly when small or by QAOA;
+ *  4. refine the merged answer with 1-flip local search.
+ * A heuristic: no optimality guarantee (the caller shows it next to the classical best and the bound).
+ */
+import { compactFromEdges } from '../network/build';
+import type { CompactNetwork } from '../network/types';
+import { encodeMaxCut } from '../encodings/maxcut';
+import { kwayPartition } from '../classical/kway';
+import type { PartGraph } from '../classical/fm-bisection';
+import { createFlipState } from '../classical/flip-state';
+import { polishMaxcut } from '../classical/local-search';
+import { freeDepots } from '../classical/result';
+import { crossingWeight } from '../problem/evaluate';
+import type { Problem } from '../problem/types';
+import type { Rng } from '../random';
+import { runQaoa, type VariationalTracePoint } from './qaoa-run';
+
+export interface DecomposeOptions {
+  /** Most depots per block (= qubits simulated at once). */
+  blockSize: number;
+  layers: number;
+  /** Shots per energy estimate (0 = exact expectation). */
+  shots: number;
+  readoutShots: number;
+  restarts: number;
+  maxIterations: number;
+  /** Merge by exact enumeration when at most this many blocks are free, else by QAOA. */
+  mergeExactLimit: number;
+}
+
+export interface BlockReport {
+  depots: number;
+  qubits: number;
+  /** Cut inside the block from its QAOA read-out, before any refinement. */
+  value: number;
+  evaluations: number;
+}
+
+export interface DecomposeOutcome {
+  assignment: Int32Array;
+  blocks: BlockReport[];
+  /** Block id per depot (the split). */
+  blockOf: Int32Array;
+  merge: { method: 'single' | 'exact' | 'qaoa'; blocks: number; gain: number };
+  /** Cut after merging, before the 1-flip refinement; and flips the refinement made. */
+  mergedValue: number;
+  refineFlips: number;
+  evaluations: number;
+  shots: number;
+  trace: VariationalTracePoint[];
+  stopped: boolean;
+}
+
+export interface DecomposeControl {
+  shouldStop(): boolean;
+  /** Called after each block and after the merge (fraction of blocks done, best value so far). */
+  onStep?(fraction: number, bestValue: number | undefined): void;
+  onIteration?(point: VariationalTracePoint): void;
+}
+
+/**
+ * Split into blocks of at most `blockSize` depots: multilevel k-way partition on unit depot
+ * weights with the size limit as the balance limit; a block still too large (the partitioner's
+ * limit is soft when pins or odd shapes get in the way) is cut into consecutive chunks.
+ */
+export function splitIntoBlocks(network: CompactNetwork, blockSize: number, rng: Rng): Int32Array {
+  const { n } = network;
+  const blockOf = new Int32Array(n);
+  if (n <= blockSize) return blockOf;
+  const parts = Math.ceil(n / blockSize);
+  const g: PartGraph = {
+    n,
+    adjStart: network.adjStart,
+    adjIndex: network.adjIndex,
+    // Heavy lanes inside blocks is what we want, whatever their sign: partition on |w|.
+    adjWeight: Float64Array.from(network.adjWeight, Math.abs),
+    vw: new Float64Array(n).fill(1),
+    pin: new Int8Array(n).fill(-1),
+  };
+  const part = kwayPartition(g, new Int32Array(n).fill(-1), parts, blockSize, rng);
+  let next = 0;
+  const members: number[][] = Array.from({ length: parts }, () => []);
+  for (let i = 0; i < n; i++) members[part[i]].push(i);
+  for (const list of members) {
+    for (let start = 0; start < list.length; start += blockSize) {
+      for (const v of list.slice(start, start + blockSize)) blockOf[v] = next;
+      next++;
+    }
+  }
+  return blockOf;
+}
+
+/** The sub-problem of one block: its depots, the lanes among them, and the problem's pins. */
+function blockProblem(problem: Problem, members: number[]): Problem {
+  const local = new Map(members.map((v, i) => [v, i]));
+  const { adjStart, adjIndex, adjWeight } = problem.network;
+  const edges: [number, number, number][] = [];
+  members.forEach((v, i) => {
+    for (let p = adjStart[v]; p < adjStart[v + 1]; p++) {
+      const j = local.get(adjIndex[p]);
+      if (j !== undefined && j > i) edges.push([i, j, adjWeight[p]]);
+    }
+  });
+  const network = compactFromEdges(members.length, edges);
+  const pins = Int32Array.from(members, (v) => problem.pins[v]);
+  return { kind: 'maxcut', k: 2, network, pins, tolerance: 0 };
+}
+
+/** Exact max-cut over ≤ ~20 free vertices by enumeration (Gray code, O(2^f · deg)). */
+export function exactSmallMaxcut(problem: Problem): Int32Array {
+  const { n, adjStart, adjIndex, adjWeight } = problem.network;
+  const side = Int32Array.from(problem.pins, (p) => (p >= 0 ? p : 0));
+  const free = freeDepots(problem.pins);
+  let value = crossingWeight(problem, side);
+  let best = value;
+  let bestSide = side.slice();
+  const f = free.length;
+  for (let step = 1; step < 2 ** f; step++) {
+    // Gray code: flip the vertex of the lowest set bit of step.
+    const bit = 31 - Math.clz32(step & -step);
+    const v = free[bit];
+    let delta = 0;
+    for (let p = adjStart[v]; p < adjStart[v + 1]; p++) delta += side[adjIndex[p]] === side[v] ? adjWeight[p] : -adjWeight[p];
+    side[v] ^= 1;
+    value += delta;
+    if (value > best + 1e-12) {
+      best = value;
+      bestSide = side.slice();
+    }
+  }
+  void n;
+  return bestSide;
+}
+
+export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: Rng, control: DecomposeControl): DecomposeOutcome {
+  const { network } = problem;
+  const n = network.n;
+  const blockOf = splitIntoBlocks(network, opts.blockSize, rng);
+  const blockCount = n === 0 ? 0 : Math.max(...blockOf) + 1;
+  const members: number[][] = Array.from({ length: blockCount }, () => []);
+  for (let i = 0; i < n; i++) members[blockOf[i]].push(i);
+
+  const assignment = Int32Array.from(problem.pins, (p) => (p >= 0 ? p : 0));
+  const blocks: BlockReport[] = [];
+  const trace: VariationalTracePoint[] = [];
+  let evaluations = 0, shots = 0, iterationBase = 0, stopped = false;
+
+  // 2. Each block on its own.
+  members.forEach((list, b) => {
+    const sub = blockProblem(problem, list);
+    const encoding = encodeMaxCut(sub);
+    let sides: ArrayLike<number>;
+    if (encoding.numQubits === 0 || control.shouldStop()) {
+      sides = Int32Array.from(sub.pins, (p) => (p >= 0 ? p : 0));
+      if (encoding.numQubits > 0) stopped = true;
+    } else {
+      const out = runQaoa({
+        encoding, layers: opts.layers, optimizer: opts.shots > 0 ? 'spsa' : 'nelder-mead', shots: opts.shots, readoutShots: opts.readoutShots,
+        restarts: opts.restarts, maxIterations: opts.maxIterations, rng, shouldStop: () => control.shouldStop(),
+        onIteration: (p) => {
+          const point = { ...p, iteration: iterationBase + p.iteration };
+          trace.push(point);
+          control.onIteration?.(point);
+        },
+      });
+      iterationBase = trace.length > 0 ? trace[trace.length - 1].iteration : iterationBase;
+      evaluations += out.evaluations;
+      shots += out.shotsUsed;
+      if (out.stopped) stopped = true;
+      sides = out.best ? out.best.assignment : Int32Array.from(sub.pins, (p) => (p >= 0 ? p : 0));
+      blocks.push({ depots: list.length, qubits: encoding.numQubits, value: crossingWeight(sub, sides), evaluations: out.evaluations });
+    }
+    if (encoding.numQubits === 0) blocks.push({ depots: list.length, qubits: 0, value: crossingWeight(sub, sides), evaluations: 0 });
+    list.forEach((v, i) => (assignment[v] = sides[i]));
+    control.onStep?.((b + 1) / (blockCount + 1), undefined);
+  });
+
+  // 3. Orientation of each block: max-cut over blocks with w'_ab = Σ w_uv s_u s_v.
+  const beforeMerge = crossingWeight(problem, assignment);
+  let mergeMethod: DecomposeOutcome['merge']['method'] = 'single';
+  if (blockCount > 1) {
+    const spin = (v: number) => (assignment[v] === 0 ? 1 : -1);
+    const between = new Map<number, number>();
+    const { m, laneFrom, laneTo, laneWeight } = network;
+    for (let e = 0; e < m; e++) {
+      const a = blockOf[laneFrom[e]], b = blockOf[laneTo[e]];
+      if (a === b) continue;
+      const key = a < b ? a * blockCount + b : b * blockCount + a;
+      between.set(key, (between.get(key) ?? 0) + laneWeight[e] * spin(laneFrom[e]) * spin(laneTo[e]));
+    }
+    const edges: [number, number, number][] = [];
+    for (const [key, w] of between) if (w !== 0) edges.push([Math.floor(key / blockCount), key % blockCount, w]);
+    // A block holding a pinned depot keeps its orientation (flipping it would move the pin).
+    const blockPins = new Int32Array(blockCount).fill(-1);
+    for (let i = 0; i < n; i++) if (problem.pins[i] >= 0) blockPins[blockOf[i]] = 0;
+    if (blockPins.every((p) => p < 0)) blockPins[0] = 0; // the global flip changes nothing
+    const mergeProblem: Problem = { kind: 'maxcut', k: 2, network: compactFromEdges(blockCount, edges), pins: blockPins, tolerance: 0 };
+    const freeBlocks = freeDepots(blockPins).length;
+    let flip: ArrayLike<number>;
+    if (freeBlocks <= opts.mergeExactLimit) {
+      mergeMethod = 'exact';
+      flip = exactSmallMaxcut(mergeProblem);
+    } else {
+      mergeMethod = 'qaoa';
+      const encoding = encodeMaxCut(mergeProblem);
+      const out = runQaoa({
+        encoding, layers: opts.layers, optimizer: 'nelder-mead', shots: 0, readoutShots: opts.readoutShots,
+        restarts: opts.restarts, maxIterations: opts.maxIterations, rng, shouldStop: () => control.shouldStop(),
+      });
+      evaluations += out.evaluations;
+      shots += out.shotsUsed;
+      flip = out.best ? out.best.assignment : Int32Array.from(blockPins, (p) => Math.max(0, p));
+    }
+    for (let i = 0; i < n; i++) if (flip[blockOf[i]] === 1) assignment[i] ^= 1;
+  }
+  const mergedValue = crossingWeight(problem, assignment);
+  control.onStep?.(blockCount / (blockCount + 1), mergedValue);
+
+  // 4. 1-flip refinement on the whole network (free depots only).
+  const st = createFlipState(network, assignment);
+  const refineFlips = polishMaxcut(problem, st, freeDepots(problem.pins));
+  const final = Int32Array.from(st.side);
+  return {
+    assignment: final,
+    blocks,
+    blockOf,
+    merge: { method: mergeMethod, blocks: blockCount, gain: mergedValue - beforeMerge },
+    mergedValue,
+    refineFlips,
+    evaluations,
+    shots,
+    trace,
+    stopped,
+  };
+}
