@@ -123,6 +123,7 @@ export async function tabuMaxcut(
   let omega = 0;
   let previousOptimum = NaN;
   for (;;) {
+    if (best >= target - eps) break;
     ascend();
     if (st.cut > best + eps) {
       best = st.cut;
