@@ -1,0 +1,166 @@
+/**
+ * Classical benchmark: G-set max-cut with tabu at a fixed time per instance on one core, exact
+ * enumeration time at n = 24, 28, 30 (two worker threads), and the largest sparse network
+ * (average degree 3) the MILP solves to proven optimality within 60 s (doubling search).
+ * Prints a markdown report and rewrites the `## Classical` section of docs/benchmarks.md.
+ *
+ *   npx tsx tests/bench/classical.ts [--limit SECONDS] [--instances G1,G11] [--skip-exact] [--skip-milp] [--no-write]
+ *
+ * Best-known values: Benlic & Hao, "Breakout local search for the max-cut problem",
+ * Eng. Appl. AI 26(3) (2013), via /work/shared/data/gset/best-known.csv.
+ */
+import * as fs from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+import { compactFromEdges } from '../../shared/engine/network/build';
+import { bindProblem } from '../../shared/engine/problem/bind';
+import type { ProblemSpec } from '../../shared/engine/problem/types';
+import { createRng } from '../../shared/engine/random';
+import { crossingWeight } from '../../shared/engine/problem/evaluate';
+import { exactSolver, milpSolver } from '../../shared/engine/solvers/classical';
+import { tabuMaxcut, tabuMaxcutDefaults } from '../../shared/engine/classical/tabu-maxcut';
+import { createRunControl } from '../../shared/engine/classical/run-control';
+import { randomSides } from '../../shared/engine/classical/balance';
+
+const DATA = '/work/shared/data/gset';
+const DOC = path.join(__dirname, '../../docs/benchmarks.md');
+
+const args = process.argv.slice(2);
+const opt = (name: string): string | undefined => {
+  const i = args.indexOf(name);
+  return i >= 0 ? args[i + 1] : undefined;
+};
+const limit = Number(opt('--limit') ?? 20);
+const only = opt('--instances')?.split(',').map((s) => s.trim());
+const skipExact = args.includes('--skip-exact');
+const skipMilp = args.includes('--skip-milp');
+const write = !args.includes('--no-write');
+
+type Edge = [number, number, number];
+function readInstance(file: string): { n: number; edges: Edge[] } {
+  const lines = fs.readFileSync(file, 'utf8').trim().split(/\r?\n/);
+  const [n] = lines[0].trim().split(/\s+/).map(Number);
+  const edges = lines.slice(1).filter((l) => l.trim()).map((l) => {
+    const [a, b, w] = l.trim().split(/\s+/).map(Number);
+    return [a - 1, b - 1, w] as Edge;
+  });
+  return { n, edges };
+}
+const problemOf = (n: number, edges: Edge[], spec: Partial<ProblemSpec> = {}) => bindProblem(compactFromEdges(n, edges), { kind: 'maxcut', ...spec } as ProblemSpec);
+
+function bestKnownRows(): Array<{ instance: string; best: number; status: string }> {
+  const [, ...rows] = fs.readFileSync(path.join(DATA, 'best-known.csv'), 'utf8').trim().split(/\r?\n/);
+  return rows.map((r) => {
+    const c = r.split(',');
+    return { instance: c[0], best: Number(c[3]), status: c[6] };
+  });
+}
+
+async function gsetTable(lines: string[]): Promise<void> {
+  const rows = bestKnownRows().filter((r) => !only || only.includes(r.instance));
+  lines.push(`### G-set max-cut, tabu (breakout local search), ${limit} s per instance, one core, seed 1`, '');
+  lines.push('| instance | n | lanes | best known | tabu | gap to best known | time to best (s) | moves |');
+  lines.push('|---|---:|---:|---:|---:|---:|---:|---:|');
+  const gaps: number[] = [];
+  for (const row of rows) {
+    const { n, edges } = readInstance(path.join(DATA, `${row.instance}.txt`));
+    const problem = problemOf(n, edges);
+    const rng = createRng(1);
+    const control = createRunControl({ seed: 1, timeLimitSeconds: limit });
+    const run = await tabuMaxcut(problem, randomSides(problem, rng), tabuMaxcutDefaults, rng, control, row.best);
+    const value = crossingWeight(problem, run.side);
+    const gap = (row.best - value) / row.best;
+    gaps.push(gap);
+    const line = `| ${row.instance} | ${n} | ${edges.length} | ${row.best} | ${value} | ${(100 * gap).toFixed(3)} % | ${run.bestAt.toFixed(2)} | ${run.moves} |`;
+    lines.push(line);
+    console.log(line);
+  }
+  const mean = gaps.reduce((a, b) => a + b, 0) / Math.max(1, gaps.length);
+  lines.push('', `Mean gap to best known: ${(100 * mean).toFixed(3)} % over ${gaps.length} instances (target ≤ 0.1 %); matched: ${gaps.filter((g) => g <= 0).length}.`, '');
+}
+
+/** Seeded G(n, p) with unit weights. */
+function randomEdges(n: number, p: number, seed: number): Edge[] {
+  const rng = createRng(seed);
+  const e: Edge[] = [];
+  for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (rng.next() < p) e.push([i, j, 1]);
+  return e;
+}
+
+/** Random graph with average degree 3: a Hamiltonian cycle plus n/2 random chords. */
+function sparseEdges(n: number, seed: number): Edge[] {
+  const rng = createRng(seed);
+  const seen = new Set<string>();
+  const e: Edge[] = [];
+  const add = (a: number, b: number): void => {
+    if (a === b) return;
+    const key = a < b ? `${a},${b}` : `${b},${a}`;
+    if (seen.has(key)) return;
+    seen.add(key);
+    e.push([a, b, 1]);
+  };
+  for (let i = 0; i < n; i++) add(i, (i + 1) % n);
+  while (e.length < 1.5 * n) add(rng.int(n), rng.int(n));
+  return e;
+}
+
+async function exactTable(lines: string[]): Promise<void> {
+  lines.push('### Exact enumeration (max-cut, G(n, 0.5), unit weights, 2 worker threads)', '');
+  lines.push('| n | states | seconds | proven |', '|---:|---:|---:|---|');
+  for (const n of [24, 28, 30]) {
+    const problem = problemOf(n, randomEdges(n, 0.5, n));
+    const r = await exactSolver.solve(problem, exactSolver.parseSettings({ threads: 2 }), { seed: 1, timeLimitSeconds: 300 });
+    const line = `| ${n} | ${r.evaluations.toExponential(2)} | ${r.seconds.toFixed(2)} | ${r.provenOptimal} |`;
+    lines.push(line);
+    console.log(line);
+  }
+  lines.push('', 'Target: n = 30 within 20 s on 2 cores.', '');
+}
+
+async function milpTable(lines: string[]): Promise<void> {
+  lines.push('### MILP (HiGHS) doubling search: sparse max-cut, average degree 3, 60 s limit', '');
+  lines.push('| n | lanes | status | seconds | value | bound |', '|---:|---:|---|---:|---:|---:|');
+  let largest = 0;
+  for (let n = 16; n <= 4096; n *= 2) {
+    const problem = problemOf(n, sparseEdges(n, n));
+    const r = await milpSolver.solve(problem, milpSolver.parseSettings({}), { seed: 1, timeLimitSeconds: 60 });
+    const line = `| ${n} | ${problem.network.m} | ${r.provenOptimal ? 'optimal' : 'time limit'} | ${r.seconds.toFixed(2)} | ${r.value} | ${r.bound ?? '—'} |`;
+    lines.push(line);
+    console.log(line);
+    if (!r.provenOptimal) break;
+    largest = n;
+  }
+  lines.push('', `Largest solved to proven optimality within 60 s: n = ${largest}.`, '');
+}
+
+function machine(): string {
+  const cpu = os.cpus()[0]?.model ?? 'unknown';
+  return `Machine: ${cpu}, ${os.cpus().length} cores, ${(os.totalmem() / 2 ** 30).toFixed(1)} GiB, Node ${process.version}, ${new Date().toISOString()} (cores shared with other work; times are wall-clock).`;
+}
+
+function rewriteSection(body: string): void {
+  const heading = '## Classical';
+  const doc = fs.existsSync(DOC) ? fs.readFileSync(DOC, 'utf8') : '# Benchmarks\n';
+  const section = `${heading}\n\n${body.trim()}\n`;
+  const start = doc.indexOf(`${heading}\n`);
+  let next: string;
+  if (start < 0) next = `${doc.trimEnd()}\n\n${section}`;
+  else {
+    const after = doc.indexOf('\n## ', start + heading.length);
+    next = doc.slice(0, start) + section + (after >= 0 ? doc.slice(after) : '');
+  }
+  fs.mkdirSync(path.dirname(DOC), { recursive: true });
+  fs.writeFileSync(DOC, next.endsWith('\n') ? next : next + '\n');
+}
+
+async function main(): Promise<void> {
+  const lines: string[] = ['Run: `npm run bench:classical` (`npx tsx tests/bench/classical.ts`; `--limit SECONDS`, `--instances G1,G11`).', '', machine(), ''];
+  await gsetTable(lines);
+  if (!skipExact) await exactTable(lines);
+  if (!skipMilp) await milpTable(lines);
+  const text = lines.join('\n');
+  console.log('\n' + text);
+  if (write) rewriteSection(text);
+}
+
+void main();
