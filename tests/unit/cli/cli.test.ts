@@ -46,7 +46,6 @@ describe('spinyard CLI: bad input', () => {
     expect(r.stderr).toContain('usage:');
     expect(cli('solve', 'lanes.csv', '--solver', 'tabu', '--problem', 'tsp')).toMatchObject({ code: 2, stderr: expect.stringContaining('choose one of maxcut, bisection, kway') });
     expect(cli('solve', 'lanes.csv', '--solver', 'tabu', '--pin', 'A')).toMatchObject({ code: 2, stderr: expect.stringContaining('write ID=SIDE') });
-    expect(cli('frobnicate')).toMatchObject({ code: 2, stderr: expect.stringContaining('unknown command') });
   });
 });
 
@@ -56,6 +55,23 @@ describe('spinyard CLI: solving', () => {
     expect(r.code).toBe(2);
     expect(r.stderr).toContain('choose one of:');
     expect(r.stderr).toContain('tabu');
+    const refused = cli('solve', 'lanes.csv', '--solver', 'gw', '--problem', 'bisection');
+    expect(refused.code).toBe(2);
+    expect(refused.stderr).toContain('refuses this problem');
+  });
+
+  test.each([[1, 0.75], [2, 5 / 6]])('QAOA p = %i on an 8-ring reaches the ring-of-disagrees value %f per lane (Farhi, Goldstone, Gutmann 2014)', (p, perLane) => {
+    // Exact expectation (--shots 0); the ring (8 lanes) is longer than 2p + 1, as the formula needs.
+    write('ring8.txt', `8 8\n${Array.from({ length: 8 }, (_, i) => `${i + 1} ${((i + 1) % 8) + 1} 1`).join('\n')}\n`);
+    const r = cli('solve', 'ring8.txt', '--solver', 'qaoa', '--layers', String(p), '--shots', '0', '--json');
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.expectation).toBeCloseTo(8 * perLane, 4);
+    expect(out.energy).toBeCloseTo(-out.expectation, 9); // max-cut energy = −cut
+    expect(out.params).toHaveLength(2 * p);
+    const ring = Array.from({ length: 8 }, (_, i) => [String(i + 1), String(((i + 1) % 8) + 1), 1] as [string, string, number]);
+    expect(out.value).toBe(crossing(ring, out.depots, out.assignment));
+    expect(out.value).toBeGreaterThanOrEqual(out.expectation - 1e-9); // the best sample is at least the mean
   });
 
   test('--json max-cut: one JSON object whose value is the cut of its own assignment', () => {
@@ -79,7 +95,15 @@ describe('spinyard CLI: solving', () => {
     expect(out.sense).toBe('min');
     expect(out.assignment.filter((a: number) => a === 0)).toHaveLength(3);
     expect(out.value).toBe(crossing(LANES, out.depots, out.assignment));
-    expect(out.value).toBe(5); // the triangles split apart along the heavy lane
+    // Independent optimum: every 3/3 split of the six depots, enumerated here.
+    let best = Infinity;
+    for (let mask = 0; mask < 64; mask++) {
+      const sides = out.depots.map((_: string, i: number) => (mask >> i) & 1);
+      if (sides.filter((x: number) => x === 0).length === 3) best = Math.min(best, crossing(LANES, out.depots, sides));
+    }
+    expect(best).toBe(4); // keep the heavy C–D lane inside one side: {A, C, D} | {B, E, F}
+    expect(out.value).toBe(best);
+    expect(out.provenOptimal).toBe(true);
   });
 
   test('readable summary shows value, bound, gap and the sides', () => {
@@ -131,7 +155,7 @@ describe('spinyard CLI: Ctrl-C', () => {
     let stdout = '';
     child.stdout.on('data', (d) => (stdout += d));
     const started = Date.now();
-    setTimeout(() => child.kill('SIGINT'), 2500);
+    setTimeout(() => child.kill('SIGINT'), 1500);
     const code = await new Promise<number | null>((resolve) => child.on('exit', resolve));
     expect(code).toBe(130);
     expect(Date.now() - started).toBeLessThan(20_000);

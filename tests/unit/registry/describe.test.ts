@@ -1,8 +1,6 @@
 import { compactFromEdges } from '../../../shared/engine/network/build';
 import { bindProblem } from '../../../shared/engine/problem/bind';
 
-jest.mock('../../../shared/engine/solvers/classical', () => ({ classicalSolvers: [], computeBounds: () => ({ bound: null, source: 'none' }) }), { virtual: true });
-jest.mock('../../../shared/engine/solvers/variational', () => ({ variationalSolvers: [] }), { virtual: true });
 
 import { describeEncoding, qubitsFor } from '../../../shared/engine/solvers/orchestrate';
 

@@ -7,9 +7,6 @@ import { bindProblem } from '../../../shared/engine/problem/bind';
 import type { Problem, ProblemKind } from '../../../shared/engine/problem/types';
 import type { SolveResult, SolverDefinition } from '../../../shared/engine/solvers/types';
 
-// The real solver lists are other modules; these tests must not depend on them.
-jest.mock('../../../shared/engine/solvers/classical', () => ({ classicalSolvers: [], computeBounds: () => ({ bound: null, source: 'none' }) }), { virtual: true });
-jest.mock('../../../shared/engine/solvers/variational', () => ({ variationalSolvers: [] }), { virtual: true });
 
 import { createRegistry, UnknownSolverError } from '../../../shared/engine/solvers/registry';
 import { createOrchestrator, SolverRefusedError, type BoundsProvider } from '../../../shared/engine/solvers/orchestrate';
