@@ -7,7 +7,7 @@ const line = (coords: number[][], properties: object) => ({ type: 'Feature', geo
 const collection = (features: unknown[]) => JSON.stringify({ type: 'FeatureCollection', features });
 
 describe('GeoJSON FeatureCollection', () => {
-  test('positions are [longitude, latitude] (RFC 7946 §3.1.1, Butler et al. 2016); ids from properties or the feature', () => {
+  test('positions are [longitude, latitude] (RFC 7946 §3.1.1, Butler et al. 2016 [memory]); ids from properties or the feature', () => {
     const { document, issues } = parseGeojson(collection([
       point(4.40, 51.22, { id: 'ANR', name: 'Antwerp', weight: 3 }),
       point(4.35, 50.85, {}, { id: 42 }),
