@@ -32,7 +32,6 @@ export function minimizeAdam(f: Objective, x0: ArrayLike<number>, opts: AdamOpti
   let iteration = 0;
   let gradientEvaluations = 0;
   for (let t = 1; t <= maxIterations; t++) {
-    if (opts.shouldStop?.()) { reason = 'stopped'; break; }
     if (state.evaluations + gradientEvaluations + perGradient + 1 > maxEvaluations) { reason = 'maxEvaluations'; break; }
     const e = evaluate(x.slice());
     const g = opts.gradient(x);
@@ -49,6 +48,7 @@ export function minimizeAdam(f: Objective, x0: ArrayLike<number>, opts: AdamOpti
     trace.push({ iteration, energy: e.value, stdError: e.stdError, evaluations: state.evaluations + gradientEvaluations });
     if (opts.onIteration?.(iteration, e.value, e.stdError, x) === false) { reason = 'stopped'; break; }
     if (largest < (opts.stepTolerance ?? 1e-9)) { reason = 'converged'; break; }
+    if (opts.shouldStop?.()) { reason = 'stopped'; break; } // checked after the step: one iteration always runs
   }
   evaluate(x.slice());
   return { x: state.bestX ?? x.slice(), fx: state.best.value, stdError: state.best.stdError, evaluations: state.evaluations + gradientEvaluations, iterations: iteration, trace, reason };

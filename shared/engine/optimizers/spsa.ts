@@ -58,7 +58,6 @@ export function minimizeSpsa(f: Objective, x0: ArrayLike<number>, opts: SpsaOpti
   let reason: StopReason = 'maxIterations';
   let iteration = 0;
   for (let k = 0; k < maxIterations; k++) {
-    if (opts.shouldStop?.()) { reason = 'stopped'; break; }
     if (state.evaluations + 2 > maxEvaluations) { reason = 'maxEvaluations'; break; }
     const ak = a / (k + 1 + A) ** alpha;
     const ck = c / (k + 1) ** gamma;
@@ -68,6 +67,7 @@ export function minimizeSpsa(f: Objective, x0: ArrayLike<number>, opts: SpsaOpti
     const best = state.best;
     trace.push({ iteration, energy: best.value, stdError: best.stdError, evaluations: state.evaluations });
     if (opts.onIteration?.(iteration, best.value, best.stdError, x) === false) { reason = 'stopped'; break; }
+    if (opts.shouldStop?.()) { reason = 'stopped'; break; } // checked after the step: one iteration always runs
   }
   // One look at the final iterate too: on smooth objectives it is usually the best point.
   evaluate(x.slice());

@@ -106,6 +106,22 @@ describe('solve', () => {
     expect(r.value).toBe(crossingWeight(p, r.assignment));
   });
 
+  test('k-way one-hot on a tiny network returns regions 0…k−1 and reports balance honestly', async () => {
+    const p = problemOf(4, randomGraph(createRng(6), 4, 0.8), { kind: 'kway', k: 3 });
+    const r = await qaoaSolver.solve(p, qaoaSolver.parseSettings({ kwayStrategy: 'onehot', layers: 1, restarts: 1, maxIterations: 40 }), ctx(4));
+    expect(r.assignment.every((x) => x >= 0 && x < 3)).toBe(true);
+    expect(r.value).toBe(crossingWeight(p, r.assignment));
+    expect(r.infeasible ?? false).toBe(!isBalanced(p, r.assignment));
+    expect(r.notes!.some((x) => /one-hot/.test(x))).toBe(true);
+  });
+
+  test('a zero time limit stops after the first iteration', async () => {
+    const p = problemOf(n, edges, { kind: 'bisection' });
+    const r = await vqeSolver.solve(p, vqeSolver.parseSettings({ restarts: 4, optimizer: 'adam' }), { seed: 1, timeLimitSeconds: 0 });
+    expect(r.trace!.length).toBe(1);
+    expect(r.notes).toContain('stopped early (time limit or cancel)');
+  });
+
   test('a cancelled run stops after its first iteration and says so', async () => {
     const p = problemOf(n, edges, { kind: 'maxcut' });
     const progress: number[] = [];
