@@ -120,9 +120,10 @@ describe('spinyard CLI: solving', () => {
     const row = optima.find((o) => o.instance === 'g05_60.0')!;
     expect(row.status).toBe('proven');
     const file = '/work/shared/data/biqmac/g05_60.0';
-    const r = cli('solve', file, '--solver', 'tabu', '--time-limit', '2', '--json');
+    const r = cli('solve', file, '--solver', 'tabu', '--time-limit', '2', '--json', '--progress');
     expect(r.code).toBe(0);
-    const out = JSON.parse(r.stdout);
+    expect(r.stderr).toMatch(/^spinyard: \d+%/m); // progress goes to stderr …
+    const out = JSON.parse(r.stdout); // … and stdout is exactly one JSON object
     expect(out.n).toBe(60);
     const lanes = readFileSync(file, 'utf8').trim().split('\n').slice(1).map((l) => l.trim().split(/\s+/)).map(([a, b, w]) => [a, b, Number(w)] as [string, string, number]);
     expect(out.value).toBe(crossing(lanes, out.depots, out.assignment));
