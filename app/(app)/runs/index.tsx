@@ -1,10 +1,10 @@
-import { Screen } from '../../../components/ui/Screen';
-import { EmptyState } from '../../../components/ui/EmptyState';
+import { useLocalSearchParams } from 'expo-router';
+import { RunList } from '../../../components/runs/RunList';
+import { useMeQuery } from '../../../components/queries/auth';
 
+/** /runs — the organisation's runs; `?compare=<id>` starts a comparison with that run ticked. */
 export default function RunsScreen() {
-  return (
-    <Screen title="Runs">
-      <EmptyState title="No runs yet" message="Start a run from a network to see which depots go where, and how close each answer is to a proven bound." />
-    </Screen>
-  );
+  const { compare } = useLocalSearchParams<{ compare?: string }>();
+  const me = useMeQuery();
+  return <RunList role={me.data?.current?.role ?? null} compareWith={compare ? Number(compare) : undefined} />;
 }

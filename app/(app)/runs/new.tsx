@@ -1,0 +1,19 @@
+import { useLocalSearchParams } from 'expo-router';
+import { RunSetup } from '../../../components/runs/RunSetup';
+import { useMeQuery } from '../../../components/queries/auth';
+import { Screen } from '../../../components/ui/Screen';
+import { Notice } from '../../../components/ui/Notice';
+
+/** /runs/new?networkId=…&versionId=… — set up a run on one network version. */
+export default function NewRunScreen() {
+  const { networkId, versionId } = useLocalSearchParams<{ networkId?: string; versionId?: string }>();
+  const me = useMeQuery();
+  if (!networkId || !versionId) {
+    return (
+      <Screen title="New run">
+        <Notice>Open a network and choose “New run” to start from one of its versions.</Notice>
+      </Screen>
+    );
+  }
+  return <RunSetup networkId={Number(networkId)} versionId={Number(versionId)} role={me.data?.current?.role ?? null} />;
+}

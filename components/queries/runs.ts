@@ -1,0 +1,155 @@
+import { useMutation, useQueries, useQuery, useQueryClient } from '@tanstack/react-query';
+import { api } from '../api/client';
+import type { VersionDetail } from '../../shared/schemas/networks';
+import type { CreateRunBody, PreviewBody, RunDetail, RunListItem, RunPreview, RunProblem, SolverOption } from '../runs/types';
+import { STALE } from './staleTimes';
+
+/** While any job of a run is waiting or working, the run is polled this often (ms). */
+export const LIVE_POLL_MS = 1000;
+
+export const runKeys = {
+  root: ['runs'] as const,
+  lists: () => [...runKeys.root, 'list'] as const,
+  list: (filters: { networkId?: number; status?: string }) => [...runKeys.lists(), filters] as const,
+  detail: (id: number) => [...runKeys.root, 'detail', id] as const,
+  solvers: () => [...runKeys.root, 'solvers'] as const,
+  defaults: (versionId: number, problem: RunProblem) => [...runKeys.root, 'defaults', versionId, problem] as const,
+  preview: (body: PreviewBody) => [...runKeys.root, 'preview', body] as const,
+  version: (networkId: number, versionId: number) => [...runKeys.root, 'version', networkId, versionId] as const,
+};
+
+/** True while the run still changes (some job queued or running). */
+export function isLive(run: Pick<RunDetail, 'status' | 'jobs'> | undefined | null): boolean {
+  if (!run) return false;
+  if (run.status === 'awaiting_payment') return false;
+  return run.jobs.some((j) => j.status === 'queued' || j.status === 'running');
+}
+
+export function useRunsQuery(filters: { networkId?: number; status?: string } = {}) {
+  return useQuery({
+    queryKey: runKeys.list(filters),
+    staleTime: STALE.list,
+    queryFn: () => {
+      const q = new URLSearchParams();
+      if (filters.networkId) q.set('networkId', String(filters.networkId));
+      if (filters.status) q.set('status', filters.status);
+      const qs = q.toString();
+      return api.get<{ runs: RunListItem[] } | RunListItem[]>(`/runs${qs ? `?${qs}` : ''}`).then((b) => (Array.isArray(b) ? b : b.runs));
+    },
+    // A list with unfinished runs keeps its progress fresh too, more slowly than one run.
+    refetchInterval: (query) => (query.state.data?.some((r) => r.status === 'queued' || r.status === 'running') ? 3 * LIVE_POLL_MS : false),
+  });
+}
+
+/**
+ * One run with its jobs. Polls every second while any job is queued or running and stops by
+ * itself when the run is done; the cache keeps the run, so leaving the screen and coming back
+ * shows the latest state at once and polling resumes.
+ */
+export function useRunQuery(id: number | null | undefined) {
+  return useQuery({
+    queryKey: runKeys.detail(id ?? 0),
+    enabled: !!id,
+    staleTime: STALE.live,
+    queryFn: () => api.get<RunDetail>(`/runs/${id}`),
+    refetchInterval: (query) => (isLive(query.state.data) ? LIVE_POLL_MS : false),
+    refetchIntervalInBackground: true,
+  });
+}
+
+/** Several runs at once (compare). Each polls while live, like useRunQuery. */
+export function useRunsByIdQuery(ids: number[]) {
+  return useQueries({
+    queries: ids.map((id) => ({
+      queryKey: runKeys.detail(id),
+      staleTime: STALE.live,
+      queryFn: () => api.get<RunDetail>(`/runs/${id}`),
+      refetchInterval: (query: { state: { data?: RunDetail } }) => (isLive(query.state.data) ? LIVE_POLL_MS : false),
+    })),
+  });
+}
+
+export function useSolversQuery() {
+  return useQuery({
+    queryKey: runKeys.solvers(),
+    staleTime: STALE.static,
+    queryFn: () => api.get<{ solvers: SolverOption[] }>('/solvers').then((b) => b.solvers),
+  });
+}
+
+export interface SolverDefaultsAnswer {
+  defaults: string[];
+  depots: number;
+  lanes: number;
+  qubits: number | null;
+}
+
+/** The size-based default solver set (shared/runs/default-solvers.ts, evaluated by the API). */
+export function useSolverDefaultsQuery(versionId: number | null, problem: RunProblem) {
+  return useQuery({
+    queryKey: runKeys.defaults(versionId ?? 0, problem),
+    enabled: !!versionId,
+    staleTime: STALE.static,
+    queryFn: () => api.post<SolverDefaultsAnswer>('/solvers/defaults', { versionId, problem }),
+  });
+}
+
+/** The encoding summary, refusals, time estimate and price of a run before it is created (nothing is written). */
+export function useRunPreviewQuery(body: PreviewBody | null) {
+  return useQuery({
+    queryKey: runKeys.preview(body ?? ({} as PreviewBody)),
+    enabled: !!body && body.solvers.length > 0,
+    staleTime: STALE.detail,
+    retry: false,
+    queryFn: () => api.post<RunPreview>('/runs/preview', body),
+  });
+}
+
+export function useRunCreateMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: CreateRunBody) => api.post<{ id: number }>('/runs', body),
+    onSuccess: () => qc.invalidateQueries({ queryKey: runKeys.lists() }),
+  });
+}
+
+function useRunAction(action: 'cancel' | 'retry') {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => api.post<unknown>(`/runs/${id}/${action}`),
+    onSuccess: (_data, id) => Promise.all([qc.invalidateQueries({ queryKey: runKeys.detail(id) }), qc.invalidateQueries({ queryKey: runKeys.lists() })]),
+  });
+}
+
+export const useRunCancelMutation = () => useRunAction('cancel');
+export const useRunRetryMutation = () => useRunAction('retry');
+
+export function useRunDeleteMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => api.delete<void>(`/runs/${id}`),
+    onSuccess: (_data, id) => {
+      qc.removeQueries({ queryKey: runKeys.detail(id) });
+      return qc.invalidateQueries({ queryKey: runKeys.lists() });
+    },
+  });
+}
+
+/** Same-origin URLs of a run's downloads (the browser fetches them with the session cookie). */
+export const runExportUrls = (id: number) => ({
+  csv: `/api/runs/${id}/assignment.csv`,
+  json: `/api/runs/${id}/report.json`,
+});
+
+/**
+ * The immutable network version a run was set up on (its depots and lanes, for pins and the
+ * partition drawing). Versions never change, so this is cached for long.
+ */
+export function useRunVersionQuery(networkId: number | null | undefined, versionId: number | null | undefined) {
+  return useQuery({
+    queryKey: runKeys.version(networkId ?? 0, versionId ?? 0),
+    enabled: !!networkId && !!versionId,
+    staleTime: Infinity,
+    queryFn: () => api.get<VersionDetail>(`/networks/${networkId}/versions/${versionId}`),
+  });
+}

@@ -1,0 +1,81 @@
+import { StyleSheet, View } from 'react-native';
+import { space } from '../theme';
+import { Card } from '../ui/Card';
+import { Notice } from '../ui/Notice';
+import { Body, Heading, Label, Small } from '../ui/Text';
+import { formatCount, formatSeconds, formatValue } from './format';
+import type { RunPreview, SolverOption } from './types';
+
+function Figure(props: { label: string; value: string; testID?: string }) {
+  return (
+    <View style={styles.figure}>
+      <Label>{props.label}</Label>
+      <Body testID={props.testID}>{props.value}</Body>
+    </View>
+  );
+}
+
+const money = (p: NonNullable<RunPreview['price']>) => p.label ?? `${(p.amount / 100).toFixed(2)} ${p.currency.toUpperCase()}`;
+
+/**
+ * The cost operator a run will use, before it starts: qubits, Pauli terms, offset, penalty
+ * weights and the rule that set them, measurement groups, the shots for the chosen precision,
+ * the time estimate, refusals — and the price only when the preview returns one.
+ */
+export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOption[]; title?: string }) {
+  const { preview } = props;
+  const enc = preview.encoding;
+  const label = (name: string) => props.solvers?.find((s) => s.name === name)?.label ?? name;
+  const refusals = preview.solvers.filter((s) => s.refusal);
+  return (
+    <Card testID="encoding-summary">
+      <Heading>{props.title ?? 'Before you start'}</Heading>
+      {enc ? (
+        <>
+          <View style={styles.grid}>
+            <Figure label="Qubits" value={formatCount(enc.qubits)} testID="enc-qubits" />
+            <Figure label="Pauli terms" value={formatCount(enc.pauliTerms)} testID="enc-terms" />
+            <Figure label="Offset" value={formatValue(enc.offset)} testID="enc-offset" />
+            <Figure label="Commuting groups" value={formatCount(enc.commutingGroups)} testID="enc-groups" />
+            <Figure label={`Shots for ± ${formatValue(enc.precision)}`} value={formatCount(enc.shots)} testID="enc-shots" />
+            {preview.estimatedSeconds !== undefined && preview.estimatedSeconds !== null ? <Figure label="Estimated time" value={formatSeconds(preview.estimatedSeconds)} testID="enc-time" /> : null}
+            {preview.price ? <Figure label="Price" value={money(preview.price)} testID="enc-price" /> : null}
+          </View>
+          <Small>Encoding: {enc.method}{enc.slackQubits ? ` (${enc.depotQubits} depot qubits + ${enc.slackQubits} slack qubits)` : ''}. {enc.rule}</Small>
+          {enc.penalties.length > 0 ? (
+            <View style={styles.list} testID="enc-penalties">
+              <Label>Penalty weights</Label>
+              {enc.penalties.map((p) => (
+                <Small key={p.name}>
+                  {p.name}: {formatValue(p.weight)} — {p.rule}
+                </Small>
+              ))}
+            </View>
+          ) : (
+            <Small>No penalty terms: every assignment is a valid answer to this question.</Small>
+          )}
+          {enc.shotRule ? <Small>{enc.shotRule}</Small> : null}
+        </>
+      ) : (
+        <Small>{preview.encodingError ?? 'This question is too large for a direct quantum encoding; classical solvers and decomposition still apply.'}</Small>
+      )}
+      {refusals.length > 0 ? (
+        <Notice tone="caution">
+          <View style={styles.list}>
+            {refusals.map((r) => (
+              <Small key={r.solver} testID={`refusal-${r.solver}`}>
+                {label(r.solver)} will not run: {r.refusal}
+              </Small>
+            ))}
+          </View>
+        </Notice>
+      ) : null}
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  grid: { flexDirection: 'row', flexWrap: 'wrap', rowGap: space.md },
+  figure: { minWidth: 120, width: '33%', gap: 2 },
+  list: { gap: space.xs },
+});

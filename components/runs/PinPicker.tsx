@@ -1,0 +1,52 @@
+import { useMemo } from 'react';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { NetworkEditor } from '../drawing/NetworkEditor';
+import { draftFromDocument, emptySelection, type Selection } from '../drawing/draft';
+import type { NetworkDocument } from '../../shared/engine/network/types';
+import type { ProblemKind } from '../../shared/engine/problem/types';
+import { colors, radius, regionColors, space, TOUCH } from '../theme';
+import { Small } from '../ui/Text';
+import { regionName } from './PartitionView';
+import { cyclePin } from './setup';
+
+/**
+ * Pins by tapping depots on the drawing: each tap moves the depot to the next side or region,
+ * then back to free. Pinned depots are listed under the drawing, each removable with one tap.
+ */
+export function PinPicker(props: { document: Pick<NetworkDocument, 'depots' | 'lanes'>; kind: ProblemKind; parts: number; pins: Record<string, number>; onChange: (pins: Record<string, number>) => void }) {
+  const { draft, projection } = useMemo(() => draftFromDocument(props.document), [props.document]);
+  const depotColors = useMemo(() => props.document.depots.map((d) => (props.pins[d.id] !== undefined ? regionColors[props.pins[d.id] % regionColors.length] : undefined)), [props.document, props.pins]);
+  const onSelectionChange = (s: Selection) => {
+    const tapped = [...s.depots][0];
+    if (tapped === undefined) return;
+    props.onChange(cyclePin(props.pins, props.document.depots[tapped].id, props.parts));
+  };
+  const pinned = Object.entries(props.pins);
+  const name = (id: string) => props.document.depots.find((d) => d.id === id)?.name ?? id;
+  return (
+    <View style={styles.wrap} testID="pin-picker">
+      <NetworkEditor draft={draft} projection={projection} onCommit={() => undefined} selection={emptySelection} onSelectionChange={onSelectionChange} readOnly height={300} depotColors={depotColors} />
+      <Small>Tap a depot to pin it to {props.kind === 'kway' ? 'region 1, 2, …' : 'side A, then side B'}; tap again to move it on, then to free it.</Small>
+      {pinned.length > 0 ? (
+        <View style={styles.chips}>
+          {pinned.map(([id, part]) => (
+            <Pressable key={id} accessibilityRole="button" accessibilityLabel={`Unpin ${name(id)} (${regionName(props.kind, part)})`} onPress={() => { const next = { ...props.pins }; delete next[id]; props.onChange(next); }} style={[styles.chip, { borderColor: regionColors[part % regionColors.length] }]} testID={`pin-${id}`}>
+              <View style={[styles.swatch, { backgroundColor: regionColors[part % regionColors.length] }]} />
+              <Small style={styles.chipText}>{name(id)} → {regionName(props.kind, part)} ✕</Small>
+            </Pressable>
+          ))}
+        </View>
+      ) : (
+        <Small>No pins: every depot is free to go either way.</Small>
+      )}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.sm },
+  chips: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
+  chip: { flexDirection: 'row', alignItems: 'center', gap: space.xs, minHeight: TOUCH, paddingHorizontal: space.md, borderRadius: radius.pill, borderWidth: 2, backgroundColor: colors.surface },
+  swatch: { width: 12, height: 12, borderRadius: 6 },
+  chipText: { color: colors.text },
+});

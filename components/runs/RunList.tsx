@@ -1,0 +1,67 @@
+import { useState } from 'react';
+import { Pressable, StyleSheet, View, useWindowDimensions } from 'react-native';
+import { useRouter } from 'expo-router';
+import { can, type Role } from '../../shared/permissions';
+import { useRunsQuery } from '../queries/runs';
+import { colors, fonts, radius, space, TOUCH, WIDE_BREAKPOINT } from '../theme';
+import { Button } from '../ui/Button';
+import { EmptyState } from '../ui/EmptyState';
+import { Notice } from '../ui/Notice';
+import { Screen } from '../ui/Screen';
+import { Body, Label, Small } from '../ui/Text';
+import { CheckRow } from './controls';
+import { questionLabel } from './format';
+import { STATUS_TEXT } from './RunView';
+import type { RunListItem } from './types';
+
+const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+
+/** The organisation's runs, newest first; analysts tick two or more to compare them. */
+export function RunList(props: { role: Role | null; compareWith?: number }) {
+  const router = useRouter();
+  const { width } = useWindowDimensions();
+  const wide = width >= WIDE_BREAKPOINT;
+  const runs = useRunsQuery();
+  const mayCompare = can(props.role, 'runs:compare');
+  const [ticked, setTicked] = useState<number[]>(props.compareWith ? [props.compareWith] : []);
+  const toggle = (id: number) => setTicked((t) => (t.includes(id) ? t.filter((x) => x !== id) : [...t, id]));
+  const compare = ticked.length >= 2 ? <Button label={`Compare ${ticked.length} runs`} onPress={() => router.push(`/runs/compare?ids=${ticked.join(',')}`)} testID="compare-runs" /> : null;
+
+  if (runs.isPending) return <Screen title="Runs"><Body>Loading runs…</Body></Screen>;
+  if (runs.isError) return <Screen title="Runs"><Notice tone="error">{runs.error.message}</Notice></Screen>;
+  if (runs.data.length === 0) {
+    return (
+      <Screen title="Runs">
+        <EmptyState title="No runs yet" message="Open a network and choose “New run” to see which depots go where, and how close each answer is to a proven bound.">
+          <Button label="Go to networks" onPress={() => router.push('/networks')} />
+        </EmptyState>
+      </Screen>
+    );
+  }
+  const row = (r: RunListItem) => (
+    <View key={r.id} style={[styles.item, wide && styles.itemWide]} testID={`run-item-${r.id}`}>
+      {mayCompare ? <CheckRow title={`Compare run ${r.id}`} checked={ticked.includes(r.id)} onPress={() => toggle(r.id)} testID={`tick-${r.id}`} /> : null}
+      <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} onPress={() => router.push(`/runs/${r.id}`)} style={styles.open}>
+        <Body style={styles.title}>Run {r.id} · {questionLabel(r.problem)}</Body>
+        <Small>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots · {r.solvers.join(', ')}</Small>
+        <Small>{STATUS_TEXT[r.status] ?? r.status} · {when(r.createdAt)}</Small>
+      </Pressable>
+    </View>
+  );
+  return (
+    <Screen title="Runs" subtitle={mayCompare ? 'Tick two or more runs to compare them in one table.' : undefined} actions={compare}>
+      <View style={styles.list}>{runs.data.map(row)}</View>
+      {compare}
+      {!mayCompare ? <Small>Comparing runs is for analysts.</Small> : null}
+      <Label> </Label>
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  list: { gap: space.sm },
+  item: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, padding: space.md, gap: space.xs },
+  itemWide: { flexDirection: 'row', alignItems: 'center', gap: space.lg },
+  open: { minHeight: TOUCH, justifyContent: 'center', flex: 1, gap: 2 },
+  title: { fontFamily: fonts.semibold },
+});

@@ -1,0 +1,155 @@
+import { useEffect, useMemo, useState } from 'react';
+import { StyleSheet, View, useWindowDimensions } from 'react-native';
+import { useRouter } from 'expo-router';
+import { can, type Role } from '../../shared/permissions';
+import { OPTIMIZER_NAMES } from '../../shared/engine/variational/optimize';
+import { useRunCreateMutation, useRunPreviewQuery, useRunVersionQuery, useSolverDefaultsQuery, useSolversQuery } from '../queries/runs';
+import { space, WIDE_BREAKPOINT } from '../theme';
+import { Button } from '../ui/Button';
+import { Card } from '../ui/Card';
+import { EmptyState } from '../ui/EmptyState';
+import { Notice } from '../ui/Notice';
+import { Screen } from '../ui/Screen';
+import { Body, Heading, Small } from '../ui/Text';
+import { TextField } from '../ui/TextField';
+import { CheckRow, ChoiceCard, Segmented } from './controls';
+import { EncodingSummary } from './EncodingSummary';
+import { KIND_HINTS, KIND_LABELS } from './format';
+import { PinPicker } from './PinPicker';
+import { createBody, DEFAULT_ADVANCED, initialSetup, partsOf, problemOf, type SetupState } from './setup';
+import type { ProblemKind } from '../../shared/engine/problem/types';
+
+const KINDS: ProblemKind[] = ['maxcut', 'bisection', 'kway'];
+const FAMILY_WORDS = { exact: 'Exact', bound: 'Bound', heuristic: 'Heuristic', variational: 'Quantum (simulated)' } as const;
+
+/** Set up a run on one network version: the question in plain words, pins, solvers, then the encoding summary and launch. */
+export function RunSetup(props: { networkId: number; versionId: number; role: Role | null }) {
+  const router = useRouter();
+  const { width } = useWindowDimensions();
+  const wide = width >= WIDE_BREAKPOINT;
+  const [s, setS] = useState<SetupState>(initialSetup);
+  const set = (patch: Partial<SetupState>) => setS((prev) => ({ ...prev, ...patch }));
+  const version = useRunVersionQuery(props.networkId, props.versionId);
+  const solvers = useSolversQuery();
+  const problem = useMemo(() => problemOf(s), [s]);
+  const defaults = useSolverDefaultsQuery(props.versionId, problem);
+  const create = useRunCreateMutation();
+  const advancedAllowed = can(props.role, 'runs:advanced');
+  const mayStart = can(props.role, 'runs:start');
+
+  const offered = useMemo(() => (solvers.data ?? []).filter((x) => x.kinds.includes(s.kind)), [solvers.data, s.kind]);
+  const families = useMemo(() => Object.fromEntries((solvers.data ?? []).map((x) => [x.name, x.family])), [solvers.data]);
+  const chosen = useMemo(() => (s.solvers ?? defaults.data?.defaults ?? []).filter((n) => offered.some((o) => o.name === n)), [s.solvers, defaults.data, offered]);
+  const body = useMemo(() => createBody(props.versionId, s, chosen, families), [props.versionId, s, chosen, families]);
+  const precision = Number(s.precision);
+  const preview = useRunPreviewQuery(chosen.length ? { ...body, ...(s.precision.trim() && precision > 0 ? { precision } : {}) } : null);
+
+  // A new question starts from its own size-based defaults again.
+  useEffect(() => set({ solvers: null }), [s.kind]);
+
+  if (version.isPending || solvers.isPending) return <Screen title="New run"><Body>Loading the network…</Body></Screen>;
+  if (version.isError) return <Screen title="New run"><EmptyState title="Network version not found" message={version.error.message}><Button label="Back to networks" onPress={() => router.push('/networks')} /></EmptyState></Screen>;
+  const doc = version.data.document;
+  const toggle = (name: string) => {
+    const now = new Set(chosen);
+    if (now.has(name)) now.delete(name);
+    else now.add(name);
+    set({ solvers: offered.map((o) => o.name).filter((n) => now.has(n)) });
+  };
+  const launch = () =>
+    create.mutate(body, { onSuccess: (r) => router.push(`/runs/${r.id}`) });
+  const adv = s.advanced ?? DEFAULT_ADVANCED;
+  const setAdv = (patch: Partial<typeof adv>) => set({ advanced: { ...adv, ...patch } });
+
+  const question = (
+    <Card>
+      <Heading>What should the split do?</Heading>
+      <View style={styles.stack} accessibilityRole="radiogroup" accessibilityLabel="Question">
+        {KINDS.map((k) => (
+          <ChoiceCard key={k} title={k === 'kway' ? `${KIND_LABELS.kway} (several regions)` : KIND_LABELS[k]} hint={KIND_HINTS[k]} selected={s.kind === k} onPress={() => set({ kind: k })} testID={`kind-${k}`} />
+        ))}
+      </View>
+      {s.kind === 'kway' ? <Segmented label="Number of regions k" options={[3, 4, 5, 6, 7, 8] as const} value={s.k as 3} onChange={(k) => set({ k })} testID="k-choice" /> : null}
+      {s.kind !== 'maxcut' ? (
+        <TextField label="Balance tolerance (% of total demand)" value={s.tolerancePercent} onChangeText={(t) => set({ tolerancePercent: t })} keyboardType="numeric" hint="0 = as even as possible; 5 = regions may differ by about 5 % of total demand." testID="tolerance" />
+      ) : null}
+    </Card>
+  );
+
+  const pins = (
+    <Card>
+      <Heading>Pinned depots (optional)</Heading>
+      <PinPicker document={doc} kind={s.kind} parts={partsOf(s.kind, s.k)} pins={s.pins} onChange={(p) => set({ pins: p })} />
+    </Card>
+  );
+
+  const solverCard = (
+    <Card>
+      <Heading>Solvers</Heading>
+      <Small>
+        {defaults.data
+          ? `Chosen for ${defaults.data.depots} depots${defaults.data.qubits !== null ? ` and ${defaults.data.qubits} qubits` : ''}: exact when small enough, the strongest classical heuristic, and quantum solvers when the qubits fit.`
+          : 'Choosing defaults for this size…'}
+      </Small>
+      {offered.map((o) => (
+        <CheckRow key={o.name} title={`${o.label} · ${FAMILY_WORDS[o.family]}`} hint={o.guarantee} checked={chosen.includes(o.name)} onPress={() => toggle(o.name)} testID={`solver-${o.name}`} />
+      ))}
+      {advancedAllowed ? (
+        <Button label={s.advanced ? 'Hide advanced settings (back to defaults)' : 'Advanced settings'} tone="secondary" onPress={() => set({ advanced: s.advanced ? null : { ...DEFAULT_ADVANCED } })} testID="advanced-toggle" />
+      ) : (
+        <Small>Advanced solver settings are for analysts; defaults are used.</Small>
+      )}
+      {s.advanced ? (
+        <View style={styles.stack} testID="advanced-panel">
+          <TextField label="Circuit layers (QAOA p, VQE depth)" value={adv.layers} onChangeText={(t) => setAdv({ layers: t })} keyboardType="numeric" />
+          <Segmented label="VQE ansatz" options={['ladder', 'alternating'] as const} value={adv.ansatz} onChange={(a) => setAdv({ ansatz: a })} />
+          <Segmented label="Optimizer" options={['auto', ...OPTIMIZER_NAMES] as string[]} value={adv.optimizer} onChange={(o) => setAdv({ optimizer: o })} />
+          <TextField label="Shots per energy estimate (0 = exact expectation)" value={adv.shots} onChangeText={(t) => setAdv({ shots: t })} keyboardType="numeric" />
+          <TextField label="Seed (blank = random)" value={adv.seed} onChangeText={(t) => setAdv({ seed: t })} keyboardType="numeric" />
+          <TextField label="Time limit per solver (seconds)" value={adv.timeLimitSeconds} onChangeText={(t) => setAdv({ timeLimitSeconds: t })} keyboardType="numeric" />
+        </View>
+      ) : null}
+    </Card>
+  );
+
+  const summary = (
+    <View style={styles.stack}>
+      {preview.data ? <EncodingSummary preview={preview.data} solvers={solvers.data} /> : null}
+      {preview.isError ? <Notice tone="error">{preview.error.message}</Notice> : null}
+      {preview.isFetching && !preview.data ? <Small>Building the encoding summary…</Small> : null}
+      {preview.data?.encoding ? (
+        <TextField label="Precision for the shot estimate (standard error of the energy)" value={s.precision} onChangeText={(t) => set({ precision: t })} keyboardType="numeric" hint={`Blank = 1 % of total lane weight (${preview.data.encoding.precision}).`} testID="precision" />
+      ) : null}
+      {create.isError ? <Notice tone="error">{create.error.message}</Notice> : null}
+      {mayStart ? (
+        <Button label={chosen.length ? `Start run with ${chosen.length} solver${chosen.length > 1 ? 's' : ''}` : 'Choose at least one solver'} onPress={launch} busy={create.isPending} disabled={chosen.length === 0} testID="start-run" />
+      ) : (
+        <Notice>Your role can read runs but not start them. Ask a dispatcher or analyst.</Notice>
+      )}
+    </View>
+  );
+
+  return (
+    <Screen title="New run" subtitle={`${version.data.document.name ?? 'Network'} · version ${version.data.number} · ${doc.depots.length} depots, ${doc.lanes.length} lanes`}>
+      {wide ? (
+        <View style={styles.columns}>
+          <View style={styles.col}>{question}{pins}</View>
+          <View style={styles.col}>{solverCard}{summary}</View>
+        </View>
+      ) : (
+        <>
+          {question}
+          {pins}
+          {solverCard}
+          {summary}
+        </>
+      )}
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  stack: { gap: space.sm },
+  columns: { flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' },
+  col: { flex: 1, gap: space.lg },
+});
