@@ -2,6 +2,7 @@ import { Redirect, Slot } from 'expo-router';
 import { AppShell } from '../../components/shell/AppShell';
 import { FullScreenStatus } from '../../components/shell/FullScreenStatus';
 import { useMeQuery } from '../../components/queries/auth';
+import { OrgSwitcher } from '../../components/account/OrgSwitcher';
 
 /** Signed-in area: everything under it needs a session; the shell shows the current organisation. */
 export default function SignedInLayout() {
@@ -10,7 +11,7 @@ export default function SignedInLayout() {
   if (me.isError) return <FullScreenStatus label="Spinyard cannot be reached right now." error={me.error.message} onRetry={() => me.refetch()} />;
   if (!me.data) return <Redirect href="/sign-in" />;
   return (
-    <AppShell organisationName={me.data.current?.name ?? 'No organisation'} role={me.data.current?.role ?? null}>
+    <AppShell organisationName={me.data.current?.name ?? 'No organisation'} role={me.data.current?.role ?? null} headerRight={<OrgSwitcher me={me.data} />}>
       <Slot />
     </AppShell>
   );

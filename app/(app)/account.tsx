@@ -1,10 +1,5 @@
-import { Screen } from '../../components/ui/Screen';
-import { EmptyState } from '../../components/ui/EmptyState';
+import { AccountScreen } from '../../components/account/AccountScreen';
 
-export default function AccountScreen() {
-  return (
-    <Screen title="Account">
-      <EmptyState title="Account" message="Your profile, password and API tokens appear here." />
-    </Screen>
-  );
+export default function AccountRoute() {
+  return <AccountScreen />;
 }

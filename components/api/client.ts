@@ -80,6 +80,6 @@ export const api = {
   post: <T>(path: string, body?: unknown) => apiRequest<T>('POST', path, body ?? {}),
   put: <T>(path: string, body?: unknown) => apiRequest<T>('PUT', path, body ?? {}),
   patch: <T>(path: string, body?: unknown) => apiRequest<T>('PATCH', path, body ?? {}),
-  delete: <T>(path: string) => apiRequest<T>('DELETE', path),
+  delete: <T>(path: string, body?: unknown) => apiRequest<T>('DELETE', path, body),
   upload: <T>(path: string, form: FormData) => apiRequest<T>('POST', path, undefined, { form }),
 };

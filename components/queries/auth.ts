@@ -1,6 +1,6 @@
-import { useQuery } from '@tanstack/react-query';
-import { api, ApiError } from '../api/client';
-import type { Me } from '../../shared/schemas/auth';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { api, ApiError, resetCsrf } from '../api/client';
+import type { ChangePassword, Me, Profile, ResetConfirm, ResetRequest, SignIn, SignUp } from '../../shared/schemas/auth';
 import { STALE } from './staleTimes';
 
 export const authKeys = {
@@ -25,30 +25,53 @@ export function useMeQuery() {
   });
 }
 
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { resetCsrf } from '../api/client';
-import type { SignIn, SignUp } from '../../shared/schemas/auth';
-
-function useSessionChange() {
+/**
+ * After sign-in, sign-out, switching organisation or joining one, everything cached belongs to
+ * another person or organisation: forget it all and take the new Me from the answer.
+ */
+export function useSessionChange() {
   const qc = useQueryClient();
-  return async () => {
+  return async (me?: Me | null) => {
     resetCsrf();
     qc.clear();
-    await qc.invalidateQueries({ queryKey: authKeys.me() });
+    if (me !== undefined) qc.setQueryData(authKeys.me(), me);
+    else await qc.invalidateQueries({ queryKey: authKeys.me() });
   };
 }
 
 export function useSignInMutation() {
   const changed = useSessionChange();
-  return useMutation({ mutationFn: (body: SignIn) => api.post<Me>('/auth/sign-in', body), onSuccess: changed });
+  return useMutation({ mutationFn: (body: SignIn) => api.post<Me>('/auth/sign-in', body), onSuccess: (me) => changed(me) });
 }
 
 export function useSignUpMutation() {
   const changed = useSessionChange();
-  return useMutation({ mutationFn: (body: SignUp) => api.post<Me>('/auth/sign-up', body), onSuccess: changed });
+  return useMutation({ mutationFn: (body: SignUp) => api.post<Me>('/auth/sign-up', body), onSuccess: (me) => changed(me) });
 }
 
 export function useSignOutMutation() {
   const changed = useSessionChange();
-  return useMutation({ mutationFn: () => api.post<void>('/auth/sign-out'), onSuccess: changed });
+  return useMutation({ mutationFn: () => api.post<void>('/auth/sign-out'), onSuccess: () => changed(null) });
+}
+
+export function useSwitchOrganisationMutation() {
+  const changed = useSessionChange();
+  return useMutation({ mutationFn: (organisationId: number) => api.post<Me>('/auth/switch', { organisationId }), onSuccess: (me) => changed(me) });
+}
+
+export function useProfileMutation() {
+  const qc = useQueryClient();
+  return useMutation({ mutationFn: (body: Profile) => api.patch<Me>('/auth/me', body), onSuccess: (me) => qc.setQueryData(authKeys.me(), me) });
+}
+
+export function usePasswordChangeMutation() {
+  return useMutation({ mutationFn: (body: ChangePassword) => api.post<void>('/auth/password', body) });
+}
+
+export function useResetRequestMutation() {
+  return useMutation({ mutationFn: (body: ResetRequest) => api.post<{ message: string }>('/auth/reset/request', body) });
+}
+
+export function useResetConfirmMutation() {
+  return useMutation({ mutationFn: (body: ResetConfirm) => api.post<{ reset: true }>('/auth/reset/confirm', body) });
 }

@@ -1,0 +1,5 @@
+import { AuditLog } from '../../../components/team/AuditLog';
+
+export default function AuditRoute() {
+  return <AuditLog />;
+}

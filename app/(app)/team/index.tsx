@@ -1,0 +1,5 @@
+import { TeamScreen } from '../../../components/team/TeamScreen';
+
+export default function TeamRoute() {
+  return <TeamScreen />;
+}
