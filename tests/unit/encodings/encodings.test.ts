@@ -132,6 +132,32 @@ describe('balanced bisection penalty (Lucas, "Ising formulations of many NP prob
   });
 });
 
+describe('Lucas bound is tight: at equality an unbalanced state ties (references.md: ties at equality)', () => {
+  // A triangle plus one isolated depot: Δ = 2, N = 4 ⇒ A = min(2Δ, N)/8 = 1/2. Best bisection {0,1}|{2,3}
+  // crosses 2 lanes; the unbalanced {0}|{1,2,3} crosses none but pays A·D² = ½·4 = 2: a tie at margin 1.
+  const p = problemOf(4, [[1, 2, 1], [1, 3, 1], [2, 3, 1]], { kind: 'bisection' });
+  const lowest = (margin: number) => {
+    const enc = encodeBisection(p, { penaltyMargin: margin });
+    const all = energies(enc);
+    let balanced = Infinity, unbalanced = Infinity;
+    for (let x = 0; x < all.length; x++) {
+      if (isBalanced(p, enc.decode(x))) balanced = Math.min(balanced, all[x]);
+      else unbalanced = Math.min(unbalanced, all[x]);
+    }
+    return { balanced, unbalanced, A: enc.penalties[0].weight };
+  };
+  test('margin 1 (non-strict): tie', () => {
+    const r = lowest(1);
+    expect(r.A).toBeCloseTo(0.5, 12);
+    expect(r.balanced).toBeCloseTo(2, 12);
+    expect(r.unbalanced).toBeCloseTo(2, 12);
+  });
+  test('default margin (strict): the balanced optimum wins', () => {
+    const r = lowest(1.05);
+    expect(r.unbalanced).toBeGreaterThan(r.balanced);
+  });
+});
+
 describe('k-way one-hot encoding', () => {
   test.each([
     ['4 depots, k = 3, unit', 4, 3, false, 0, {}],
