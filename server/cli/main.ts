@@ -170,7 +170,7 @@ export async function main(argv: string[], io: CliIo, signals: Signals = { onInt
     }
   } catch (e) {
     if (e instanceof Error && USER_ERRORS.has(e.name)) {
-      io.err(`spinyard: ${e.message}`);
+      io.err(`spinyard: ${e.name === 'SettingsError' ? `solver settings: ${e.message}` : e.message}`);
       for (const d of (e as UserError).details ?? []) io.err(d.startsWith('usage:') ? d : `spinyard: ${d}`);
       return 2;
     }

@@ -1,6 +1,7 @@
 /**
- * The `spinyard` CLI run as a child process, the way users run it. Checks the exit codes,
- * the messages for bad input, and that the JSON contract agrees with an independent
+ * The `spinyard` CLI: as a child process (the way users run it) for the exit codes, the JSON
+ * contract, the benchmark file and Ctrl-C; in-process through main() for the many small cases.
+ * Checks the messages for bad input, and that the JSON output agrees with an independent
  * recomputation of the printed assignment.
  */
 import { spawn, spawnSync } from 'child_process';
@@ -8,15 +9,29 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'fs';
 import os from 'os';
 import path from 'path';
 import Papa from 'papaparse';
+import { main } from '../../../server/cli/main';
 
 const ROOT = path.resolve(__dirname, '../../..');
 const CLI = path.join(ROOT, 'server/cli/spinyard.cjs');
 const dir = mkdtempSync(path.join(os.tmpdir(), 'spinyard-cli-'));
 const write = (name: string, text: string) => { writeFileSync(path.join(dir, name), text); return name; };
 
+/** The CLI as users run it: a child process. */
 function cli(...args: string[]) {
   const r = spawnSync(process.execPath, [CLI, ...args], { cwd: dir, encoding: 'utf8', timeout: 60_000 });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+/**
+ * The same entry point in this process (main() never exits the process); used for the many
+ * small cases so the file stays fast on a shared machine. Paths are given relative to `dir`.
+ */
+async function inProcess(...args: string[]) {
+  const out: string[] = [], err: string[] = [];
+  const abs = args.map((a) => (/\.(csv|txt|graphml|geojson|json)$/.test(a) && !a.startsWith('/') ? path.join(dir, a) : a));
+  const code = await main(abs, { out: (t) => out.push(t), err: (t) => err.push(t), errIsTty: false });
+  const rel = (t: string) => t.split(dir + path.sep).join('');
+  return { code, stdout: out.map(rel).join('\n'), stderr: err.map(rel).join('\n') };
 }
 
 /** Cut / crossing weight of an assignment, computed here from the lanes file. */
@@ -38,32 +53,32 @@ describe('spinyard CLI: bad input', () => {
     expect(r.stdout).toBe('');
   });
 
-  test('a missing file and a bad flag: exit 2 (the flag with the usage)', () => {
-    expect(cli('solve', 'nowhere.csv', '--solver', 'tabu')).toMatchObject({ code: 2, stderr: expect.stringContaining('cannot read nowhere.csv') });
-    const r = cli('solve', 'lanes.csv', '--solver', 'tabu', '--colour', 'red');
+  test('a missing file and a bad flag: exit 2 (the flag with the usage)', async () => {
+    expect(await inProcess('solve', 'nowhere.csv', '--solver', 'tabu')).toMatchObject({ code: 2, stderr: expect.stringContaining('cannot read nowhere.csv') });
+    const r = await inProcess('solve', 'lanes.csv', '--solver', 'tabu', '--colour', 'red');
     expect(r.code).toBe(2);
     expect(r.stderr).toContain('unknown flag --colour');
     expect(r.stderr).toContain('usage:');
-    expect(cli('solve', 'lanes.csv', '--solver', 'tabu', '--problem', 'tsp')).toMatchObject({ code: 2, stderr: expect.stringContaining('choose one of maxcut, bisection, kway') });
-    expect(cli('solve', 'lanes.csv', '--solver', 'tabu', '--pin', 'A')).toMatchObject({ code: 2, stderr: expect.stringContaining('write ID=SIDE') });
+    expect(await inProcess('solve', 'lanes.csv', '--solver', 'tabu', '--problem', 'tsp')).toMatchObject({ code: 2, stderr: expect.stringContaining('choose one of maxcut, bisection, kway') });
+    expect(await inProcess('solve', 'lanes.csv', '--solver', 'tabu', '--pin', 'A')).toMatchObject({ code: 2, stderr: expect.stringContaining('write ID=SIDE') });
   });
 });
 
 describe('spinyard CLI: solving', () => {
-  test('an unknown solver lists the valid names; a refusal is exit 2', () => {
-    const r = cli('solve', 'lanes.csv', '--solver', 'nosuch');
+  test('an unknown solver lists the valid names; a refusal is exit 2', async () => {
+    const r = await inProcess('solve', 'lanes.csv', '--solver', 'nosuch');
     expect(r.code).toBe(2);
     expect(r.stderr).toContain('choose one of:');
     expect(r.stderr).toContain('tabu');
-    const refused = cli('solve', 'lanes.csv', '--solver', 'gw', '--problem', 'bisection');
+    const refused = await inProcess('solve', 'lanes.csv', '--solver', 'gw', '--problem', 'bisection');
     expect(refused.code).toBe(2);
     expect(refused.stderr).toContain('refuses this problem');
   });
 
-  test.each([[1, 0.75], [2, 5 / 6]])('QAOA p = %i on an 8-ring reaches the ring-of-disagrees value %f per lane (Farhi, Goldstone, Gutmann 2014)', (p, perLane) => {
+  test.each([[1, 0.75], [2, 5 / 6]])('QAOA p = %i on an 8-ring reaches the ring-of-disagrees value %f per lane (Farhi, Goldstone, Gutmann 2014)', async (p, perLane) => {
     // Exact expectation (--shots 0); the ring (8 lanes) is longer than 2p + 1, as the formula needs.
     write('ring8.txt', `8 8\n${Array.from({ length: 8 }, (_, i) => `${i + 1} ${((i + 1) % 8) + 1} 1`).join('\n')}\n`);
-    const r = cli('solve', 'ring8.txt', '--solver', 'qaoa', '--layers', String(p), '--shots', '0', '--json');
+    const r = await inProcess('solve', 'ring8.txt', '--solver', 'qaoa', '--layers', String(p), '--shots', '0', '--json');
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout);
     expect(out.expectation).toBeCloseTo(8 * perLane, 4);
@@ -88,8 +103,8 @@ describe('spinyard CLI: solving', () => {
     expect(out.gap).toBe(0);
   });
 
-  test('--json bisection: sense min, a balanced assignment, the crossing weight recomputed', () => {
-    const r = cli('solve', 'lanes.csv', '--problem', 'bisection', '--solver', 'exact', '--json');
+  test('--json bisection: sense min, a balanced assignment, the crossing weight recomputed', async () => {
+    const r = await inProcess('solve', 'lanes.csv', '--problem', 'bisection', '--solver', 'exact', '--json');
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout);
     expect(out.sense).toBe('min');
@@ -106,8 +121,23 @@ describe('spinyard CLI: solving', () => {
     expect(out.provenOptimal).toBe(true);
   });
 
-  test('readable summary shows value, bound, gap and the sides', () => {
-    const r = cli('solve', 'lanes.csv', '--solver', 'exact');
+  test('the file type follows the extension: the same network as GraphML and GeoJSON inspects alike', async () => {
+    const { writeGraphml, writeGeojson, parseCsvNetwork } = require('../../../shared/formats');
+    const document = parseCsvNetwork({ content: readFileSync(path.join(dir, 'lanes.csv'), 'utf8') }).document;
+    write('net.graphml', writeGraphml(document));
+    write('net.geojson', writeGeojson(document));
+    for (const file of ['net.graphml', 'net.geojson']) {
+      const r = await inProcess('inspect', file, '--json');
+      expect(r.code).toBe(0);
+      expect(JSON.parse(r.stdout)).toMatchObject({ depots: 6, lanes: 7, qubits: 6, totalAbsLaneWeight: 11 });
+    }
+    const bad = await inProcess('solve', 'lanes.csv', '--solver', 'tabu', '--set', 'tenur=3');
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toContain('solver settings: tenur: unknown setting');
+  });
+
+  test('readable summary shows value, bound, gap and the sides', async () => {
+    const r = await inProcess('solve', 'lanes.csv', '--solver', 'exact');
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/value\s+9/);
     expect(r.stdout).toMatch(/bound\s+9/);
@@ -131,16 +161,16 @@ describe('spinyard CLI: solving', () => {
     if (out.bound !== null) expect(out.bound).toBeGreaterThanOrEqual(536);
   });
 
-  test('inspect --json: g05_60.0 max-cut needs 60 qubits and 885 ZZ terms, one measurement group', () => {
-    const r = cli('inspect', '/work/shared/data/biqmac/g05_60.0', '--json', '--precision', '1');
+  test('inspect --json: g05_60.0 max-cut needs 60 qubits and 885 ZZ terms, one measurement group', async () => {
+    const r = await inProcess('inspect', '/work/shared/data/biqmac/g05_60.0', '--json', '--precision', '1');
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout);
     expect(out).toMatchObject({ depots: 60, lanes: 885, qubits: 60, pauliTerms: 885, commutingGroups: 1, offset: -442.5 });
     expect(out.shots).toBe(Math.ceil(885 ** 2 / 4)); // (Σ|w|)²/(4ε²), ε = 1
   });
 
-  test('solvers lists the registry', () => {
-    const r = cli('solvers', '--json');
+  test('solvers lists the registry', async () => {
+    const r = await inProcess('solvers', '--json');
     expect(r.code).toBe(0);
     const names = JSON.parse(r.stdout).map((s: { name: string }) => s.name);
     expect(names).toEqual(expect.arrayContaining(['exact', 'tabu', 'vqe', 'qaoa']));
