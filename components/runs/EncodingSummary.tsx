@@ -15,6 +15,18 @@ function Figure(props: { label: string; value: string; testID?: string }) {
   );
 }
 
+/** The longest per-solver budget (jobs of a run run side by side on the workers), or the preview's own figure. */
+export function estimatedSeconds(preview: RunPreview): number | null {
+  if (typeof preview.estimatedSeconds === 'number') return preview.estimatedSeconds;
+  let most: number | null = null;
+  for (const s of preview.solvers) {
+    const e = s.estimatedSeconds;
+    const v = typeof e === 'number' ? e : e && typeof e.atMost === 'number' ? e.atMost : null;
+    if (v !== null) most = Math.max(most ?? 0, v);
+  }
+  return most;
+}
+
 const money = (p: NonNullable<RunPreview['price']>) => p.label ?? `${(p.amount / 100).toFixed(2)} ${p.currency.toUpperCase()}`;
 
 /**
@@ -27,6 +39,8 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
   const enc = preview.encoding;
   const label = (name: string) => props.solvers?.find((s) => s.name === name)?.label ?? name;
   const refusals = preview.solvers.filter((s) => s.refusal);
+  const notAllowed = preview.solvers.filter((s) => s.allowed === false);
+  const estimate = estimatedSeconds(preview);
   return (
     <Card testID="encoding-summary">
       <Heading>{props.title ?? 'Before you start'}</Heading>
@@ -38,7 +52,7 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
             <Figure label="Offset" value={formatValue(enc.offset)} testID="enc-offset" />
             <Figure label="Commuting groups" value={formatCount(enc.commutingGroups)} testID="enc-groups" />
             <Figure label={`Shots for ± ${formatValue(enc.precision)}`} value={formatCount(enc.shots)} testID="enc-shots" />
-            {preview.estimatedSeconds !== undefined && preview.estimatedSeconds !== null ? <Figure label="Estimated time" value={formatSeconds(preview.estimatedSeconds)} testID="enc-time" /> : null}
+            {estimate !== null ? <Figure label="Estimated time" value={`at most ${formatSeconds(estimate)}`} testID="enc-time" /> : null}
             {preview.price ? <Figure label="Price" value={money(preview.price)} testID="enc-price" /> : null}
           </View>
           <Small>Encoding: {enc.method}{enc.slackQubits ? ` (${enc.depotQubits} depot qubits + ${enc.slackQubits} slack qubits)` : ''}. {enc.rule}</Small>
@@ -57,8 +71,20 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
           {enc.shotRule ? <Small>{enc.shotRule}</Small> : null}
         </>
       ) : (
-        <Small>{preview.encodingError ?? 'This question is too large for a direct quantum encoding; classical solvers and decomposition still apply.'}</Small>
+        <Small>{preview.encodingNote ?? 'This question is too large for a direct quantum encoding; classical solvers and decomposition still apply.'}</Small>
       )}
+      {enc === null && estimate !== null ? <Small testID="enc-time">Estimated time: at most {formatSeconds(estimate)} per solver.</Small> : null}
+      {preview.limitProblem ? <Notice tone="error">{preview.limitProblem}</Notice> : null}
+      {notAllowed.length > 0 ? <Notice tone="caution">Changed settings need the analyst role: {notAllowed.map((s) => label(s.solver)).join(', ')}.</Notice> : null}
+      {preview.fields && Object.keys(preview.fields).length > 0 ? (
+        <Notice tone="error">
+          <View style={styles.list}>
+            {Object.entries(preview.fields).map(([k, msgs]) => (
+              <Small key={k}>{k}: {msgs.join('; ')}</Small>
+            ))}
+          </View>
+        </Notice>
+      ) : null}
       {refusals.length > 0 ? (
         <Notice tone="caution">
           <View style={styles.list}>

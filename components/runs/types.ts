@@ -50,8 +50,14 @@ export interface EncodingView {
 
 export interface PreviewSolver {
   solver: string;
+  label?: string;
+  family?: string;
   refusal?: string | null;
-  estimatedSeconds?: number | null;
+  /** Whether the current role may start this entry with its settings (non-default needs runs:advanced). */
+  allowed?: boolean;
+  qubits?: number | null;
+  /** Seconds, or the service's {atMost, note} budget. */
+  estimatedSeconds?: number | { atMost: number; note?: string } | null;
 }
 
 export interface Price {
@@ -60,12 +66,21 @@ export interface Price {
   label?: string;
 }
 
+/** POST /api/runs/preview (server/services/runs.ts previewRun). */
 export interface RunPreview {
+  depots?: number;
+  lanes?: number;
   encoding: EncodingView | null;
-  /** Why no encoding could be built (too large), when so. */
-  encodingError?: string | null;
+  /** Why no encoding summary could be built (too large), when so. */
+  encodingNote?: string | null;
+  /** The plan limit this run would exceed, in words, when so. */
+  limitProblem?: string | null;
+  /** Settings errors per field, when some entry's settings are out of range. */
+  fields?: Record<string, string[]> | null;
+  plan?: { id: string; label: string } | null;
   solvers: PreviewSolver[];
   estimatedSeconds?: number | null;
+  /** Present only for paid runs (billing). */
   price?: Price | null;
 }
 
