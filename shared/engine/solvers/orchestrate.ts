@@ -106,8 +106,13 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
       const candidates: { bound: number; source: string }[] = [];
       if (typeof raw.bound === 'number' && Number.isFinite(raw.bound)) candidates.push({ bound: raw.bound, source: 'solver' });
       if (options.bounds !== false) {
-        const report = await bounds(problem, { knownValue: infeasible ? null : value, seed: ctx.seed });
-        if (report.bound !== null && Number.isFinite(report.bound)) candidates.push({ bound: report.bound, source: report.source });
+        // A failed bound costs the run its gap, not its answer.
+        try {
+          const report = await bounds(problem, { knownValue: infeasible ? null : value, seed: ctx.seed });
+          if (report.bound !== null && Number.isFinite(report.bound)) candidates.push({ bound: report.bound, source: report.source });
+        } catch (e) {
+          notes.push(`no classical bound: ${e instanceof Error ? e.message : String(e)}`);
+        }
       }
       let bound: number | null = null, boundSource: string | null = null;
       for (const c of candidates) {

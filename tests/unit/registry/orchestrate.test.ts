@@ -143,6 +143,15 @@ describe('solveProblem checks every answer', () => {
     expect(r.notes.join(' ')).toContain('claimed optimality');
   });
 
+  test('a failing bound provider leaves the answer intact, without a gap', async () => {
+    const failing = createOrchestrator(registry.getSolver, () => { throw new Error('eigensolver did not converge'); });
+    const r = await failing.solveProblem(bindProblem(petersen, { kind: 'maxcut' }), 'boastful', {}, ctx);
+    expect(r.value).toBe(12);
+    expect(r.bound).toBeNull();
+    expect(r.gap).toBeNull();
+    expect(r.notes).toContain('no classical bound: eigensolver did not converge');
+  });
+
   test('pins and balance are checked: a one-sided bisection is infeasible, with no gap', async () => {
     const problem = bindProblem(cycle(6), { kind: 'bisection', pins: { '1': 0 } });
     const r = await orchestrator.solveProblem(problem, 'careless', {}, ctx);
