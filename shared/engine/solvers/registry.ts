@@ -7,6 +7,7 @@ import type { ProblemKind } from '../problem/types';
 import { classicalSolvers } from './classical';
 import type { SolverDefinition } from './types';
 import { variationalSolvers } from './variational';
+import { qaoaBlocksSolver } from './decomposed';
 
 // Settings types differ per solver; the registry only passes them through parseSettings.
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
@@ -60,6 +61,6 @@ export function createRegistry(definitions: readonly AnySolverDefinition[]): Sol
 }
 
 /** Every solver Spinyard offers: classical first (exact, bounds, heuristics), then variational. */
-export const solverRegistry: SolverRegistry = createRegistry([...classicalSolvers, ...variationalSolvers]);
+export const solverRegistry: SolverRegistry = createRegistry([...classicalSolvers, ...variationalSolvers, qaoaBlocksSolver]);
 export const getSolver = (name: string): AnySolverDefinition => solverRegistry.getSolver(name);
 export const listSolvers = (kind?: ProblemKind): SolverListing[] => solverRegistry.listSolvers(kind);

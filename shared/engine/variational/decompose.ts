@@ -117,7 +117,7 @@ function blockProblem(problem: Problem, members: number[]): Problem {
 
 /** Exact max-cut over ≤ ~20 free vertices by enumeration (Gray code, O(2^f · deg)). */
 export function exactSmallMaxcut(problem: Problem): Int32Array {
-  const { n, adjStart, adjIndex, adjWeight } = problem.network;
+  const { adjStart, adjIndex, adjWeight } = problem.network;
   const side = Int32Array.from(problem.pins, (p) => (p >= 0 ? p : 0));
   const free = freeDepots(problem.pins);
   let value = crossingWeight(problem, side);
@@ -137,8 +137,27 @@ export function exactSmallMaxcut(problem: Problem): Int32Array {
       bestSide = side.slice();
     }
   }
-  void n;
   return bestSide;
+}
+
+/**
+ * The lanes of the orientation problem: w'_ab = Σ_{u∈a, v∈b} w_uv s_u s_v over lanes between
+ * blocks a < b (spin s = +1 on side 0), zero couplings dropped. Flipping blocks by t ∈ {±1}
+ * then gives cut = const + Σ_{a<b} w'_ab (1 − t_a t_b)/2 (Zhou et al. 2022).
+ */
+export function blockCouplings(network: CompactNetwork, blockOf: Int32Array, blockCount: number, sides: ArrayLike<number>): [number, number, number][] {
+  const spin = (v: number) => (sides[v] === 0 ? 1 : -1);
+  const between = new Map<number, number>();
+  const { m, laneFrom, laneTo, laneWeight } = network;
+  for (let e = 0; e < m; e++) {
+    const a = blockOf[laneFrom[e]], b = blockOf[laneTo[e]];
+    if (a === b) continue;
+    const key = a < b ? a * blockCount + b : b * blockCount + a;
+    between.set(key, (between.get(key) ?? 0) + laneWeight[e] * spin(laneFrom[e]) * spin(laneTo[e]));
+  }
+  const edges: [number, number, number][] = [];
+  for (const [key, w] of between) if (w !== 0) edges.push([Math.floor(key / blockCount), key % blockCount, w]);
+  return edges;
 }
 
 export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: Rng, control: DecomposeControl): DecomposeOutcome {
@@ -188,17 +207,7 @@ export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: R
   const beforeMerge = crossingWeight(problem, assignment);
   let mergeMethod: DecomposeOutcome['merge']['method'] = 'single';
   if (blockCount > 1) {
-    const spin = (v: number) => (assignment[v] === 0 ? 1 : -1);
-    const between = new Map<number, number>();
-    const { m, laneFrom, laneTo, laneWeight } = network;
-    for (let e = 0; e < m; e++) {
-      const a = blockOf[laneFrom[e]], b = blockOf[laneTo[e]];
-      if (a === b) continue;
-      const key = a < b ? a * blockCount + b : b * blockCount + a;
-      between.set(key, (between.get(key) ?? 0) + laneWeight[e] * spin(laneFrom[e]) * spin(laneTo[e]));
-    }
-    const edges: [number, number, number][] = [];
-    for (const [key, w] of between) if (w !== 0) edges.push([Math.floor(key / blockCount), key % blockCount, w]);
+    const edges = blockCouplings(network, blockOf, blockCount, assignment);
     // A block holding a pinned depot keeps its orientation (flipping it would move the pin).
     const blockPins = new Int32Array(blockCount).fill(-1);
     for (let i = 0; i < n; i++) if (problem.pins[i] >= 0) blockPins[blockOf[i]] = 0;

@@ -1,0 +1,137 @@
+/**
+ * qaoa-blocks (decomposition for large max-cut): the merge identity of Zhou, Du, Tian, Tao,
+ * "QAOA-in-QAOA: solving large-scale MaxCut problems on small quantum machines", arXiv:2205.11762
+ * (2022), the block split, the exact small max-cut against textbook values, and the solver's
+ * quality on a seeded random graph against the classical tabu search.
+ */
+import { compactFromEdges } from '../../../shared/engine/network/build';
+import { bindProblem } from '../../../shared/engine/problem/bind';
+import { crossingWeight } from '../../../shared/engine/problem/evaluate';
+import type { Problem } from '../../../shared/engine/problem/types';
+import { createRng } from '../../../shared/engine/random';
+import { blockCouplings, decomposeMaxcut, exactSmallMaxcut, splitIntoBlocks } from '../../../shared/engine/variational/decompose';
+import { qaoaBlocksSolver } from '../../../shared/engine/solvers/decomposed';
+import { solveProblem } from '../../../shared/engine/solvers/orchestrate';
+import { getSolver } from '../../../shared/engine/solvers/registry';
+import { complete, cycle, petersen, type Edge } from '../classical/helpers';
+
+/** Pins by 0-based index (compactFromEdges names depot i as "i+1"). */
+const maxcut = (n: number, edges: Edge[], pins: Record<number, number> = {}): Problem => bindProblem(compactFromEdges(n, edges), { kind: 'maxcut', pins: Object.fromEntries(Object.entries(pins).map(([i, side]) => [String(Number(i) + 1), side])) });
+
+/** Erdős–Rényi G(n, p) with unit weights, seeded (the "test graph" of the solve service). */
+function randomGraph(n: number, p: number, seed: number, signed = false): Edge[] {
+  const rng = createRng(seed);
+  const edges: Edge[] = [];
+  for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (rng.next() < p) edges.push([i, j, signed && rng.next() < 0.5 ? -1 : 1]);
+  return edges;
+}
+
+describe('merge identity (Zhou et al. 2022): cut = const + Σ w′_ab (1 − t_a t_b)/2', () => {
+  test.each([false, true])('holds for every block orientation of a random graph (signed weights: %s)', (signed) => {
+    const problem = maxcut(24, randomGraph(24, 0.3, 11, signed));
+    const rng = createRng(5);
+    const blockOf = Int32Array.from({ length: 24 }, (_, i) => i % 4);
+    const sides = Int32Array.from({ length: 24 }, () => rng.int(2));
+    const couplings = blockCouplings(problem.network, blockOf, 4, sides);
+    const base = crossingWeight(problem, sides);
+    // const = cut at t = (+1,…,+1) (the Σ w′(1 − t t)/2 term vanishes there).
+    for (let t = 0; t < 16; t++) {
+      const flipped = Int32Array.from(sides, (s, i) => ((t >> blockOf[i]) & 1 ? s ^ 1 : s));
+      let predicted = base;
+      for (const [a, b, w] of couplings) {
+        const ta = (t >> a) & 1 ? -1 : 1, tb = (t >> b) & 1 ? -1 : 1;
+        predicted += (w * (1 - ta * tb)) / 2;
+      }
+      expect(crossingWeight(problem, flipped)).toBeCloseTo(predicted, 9);
+    }
+  });
+});
+
+describe('exact small max-cut (enumeration used for the orientation problem)', () => {
+  // Textbook values (common practice): Petersen 12, K_n ⌊n²/4⌋, odd cycle n − 1, even cycle n.
+  test.each([
+    ['Petersen graph', 10, petersen(), 12],
+    ['K7', 7, complete(7), 12],
+    ['C9', 9, cycle(9), 8],
+    ['C10', 10, cycle(10), 10],
+  ] as const)('%s', (_name, n, edges, expected) => {
+    const problem = maxcut(n, edges as Edge[]);
+    expect(crossingWeight(problem, exactSmallMaxcut(problem))).toBe(expected);
+  });
+
+  test('keeps pinned vertices on their side', () => {
+    const problem = maxcut(7, complete(7), { 0: 1, 1: 1 });
+    const sides = exactSmallMaxcut(problem);
+    expect([sides[0], sides[1]]).toEqual([1, 1]);
+    expect(crossingWeight(problem, sides)).toBe(12); // pinning two depots together still allows ⌊49/4⌋
+  });
+});
+
+describe('block split', () => {
+  test('covers every depot, respects the size limit, keeps dense groups together', () => {
+    // Four 5-cliques joined in a ring by single lanes: the best split into blocks of 5 is the cliques.
+    const edges: Edge[] = [];
+    for (let c = 0; c < 4; c++) {
+      for (let i = 0; i < 5; i++) for (let j = i + 1; j < 5; j++) edges.push([5 * c + i, 5 * c + j, 1]);
+      edges.push([5 * c + 4, (5 * (c + 1)) % 20, 1]);
+    }
+    const net = compactFromEdges(20, edges);
+    const blockOf = splitIntoBlocks(net, 5, createRng(3));
+    const sizes = new Map<number, number>();
+    blockOf.forEach((b) => sizes.set(b, (sizes.get(b) ?? 0) + 1));
+    expect([...sizes.values()].every((s) => s <= 5)).toBe(true);
+    for (let c = 0; c < 4; c++) expect(new Set(Array.from(blockOf.slice(5 * c, 5 * c + 5))).size).toBe(1);
+  });
+
+  test('a network no larger than a block stays one block', () => {
+    expect(Array.from(splitIntoBlocks(compactFromEdges(10, petersen()), 14, createRng(1)))).toEqual(new Array(10).fill(0));
+  });
+});
+
+describe('qaoa-blocks solver', () => {
+  test('is registered as a variational heuristic for max-cut and refuses bisection', () => {
+    const d = getSolver('qaoa-blocks');
+    expect(d.family).toBe('variational');
+    expect(d.guarantee).toMatch(/heuristic/i);
+    const bisection = bindProblem(compactFromEdges(4, cycle(4)), { kind: 'bisection' });
+    expect(d.refuses(bisection, d.parseSettings({}))).toMatch(/max-cut only/);
+    expect(() => d.parseSettings({ blockSize: 30 })).toThrow(/blockSize/);
+    expect(qaoaBlocksSolver.simulatedQubits(maxcut(60, randomGraph(60, 0.1, 7)), d.parseSettings({}))).toBe(14);
+  });
+
+  test('60-depot seeded random graph G(60, 0.1): within 5 % of the classical tabu search, 1-flip optimal, below the bound', async () => {
+    const problem = maxcut(60, randomGraph(60, 0.1, 7));
+    const blocks = await solveProblem(problem, 'qaoa-blocks', {}, { seed: 1, timeLimitSeconds: 20 });
+    const tabu = await solveProblem(problem, 'tabu', {}, { seed: 1, timeLimitSeconds: 2 }, { bounds: false });
+    expect(blocks.value).toBe(crossingWeight(problem, blocks.assignment));
+    expect(blocks.value).toBeGreaterThanOrEqual(0.95 * tabu.value);
+    expect(blocks.bound).not.toBeNull();
+    expect(blocks.value).toBeLessThanOrEqual(blocks.bound!);
+    expect(blocks.provenOptimal).toBe(blocks.value === blocks.bound);
+    // 1-flip local optimum: no single depot move raises the cut.
+    const a = blocks.assignment.slice();
+    for (let v = 0; v < 60; v++) {
+      a[v] ^= 1;
+      expect(crossingWeight(problem, a)).toBeLessThanOrEqual(blocks.value);
+      a[v] ^= 1;
+    }
+    expect(blocks.notes.join(' ')).toMatch(/block\(s\) of at most 14 depots/);
+  }, 60_000);
+
+  test('keeps pins and merges by QAOA when there are more free blocks than the exact limit', () => {
+    const problem = maxcut(40, randomGraph(40, 0.15, 21), { 0: 1, 39: 0 });
+    const out = decomposeMaxcut(problem, { blockSize: 6, layers: 1, shots: 0, readoutShots: 256, restarts: 1, maxIterations: 40, mergeExactLimit: 3 }, createRng(2), { shouldStop: () => false });
+    expect(out.merge.method).toBe('qaoa');
+    expect(out.assignment[0]).toBe(1);
+    expect(out.assignment[39]).toBe(0);
+    expect(Math.max(...out.blocks.map((b) => b.qubits))).toBeLessThanOrEqual(6);
+    expect(crossingWeight(problem, out.assignment)).toBeGreaterThanOrEqual(out.mergedValue);
+  });
+
+  test('stops at once when cancelled and still returns a valid assignment', async () => {
+    const problem = maxcut(60, randomGraph(60, 0.1, 7));
+    const r = await solveProblem(problem, 'qaoa-blocks', {}, { seed: 1, timeLimitSeconds: 20, cancel: { cancelled: true } }, { bounds: false });
+    expect(r.assignment).toHaveLength(60);
+    expect(r.notes.join(' ')).toMatch(/stopped early/);
+  });
+});
