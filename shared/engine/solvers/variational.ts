@@ -153,7 +153,7 @@ async function solveVariational(problem: Problem, s: CommonSettings, ctx: SolveC
     const now = elapsed();
     if (now - lastReport >= 0.05) {
       lastReport = now;
-      ctx.onProgress?.({ fraction: Math.min(1, Math.max(now / Math.max(ctx.timeLimitSeconds, 1e-9), p.iteration / budget)), iteration: lastIteration, energy: p.energy, stdError: p.stdError });
+      ctx.onProgress?.({ fraction: Math.min(1, Math.max(now / Math.max(ctx.timeLimitSeconds, 1e-9), lastIteration / budget)), iteration: lastIteration, energy: p.energy, stdError: p.stdError });
     }
   };
   const notes: string[] = [];
