@@ -1,6 +1,5 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { PanResponder, Platform, StyleSheet, View, type GestureResponderEvent, type LayoutChangeEvent } from 'react-native';
-import { LaneVolumeSchema } from '../../shared/schemas/networks';
 import { colors, radius, space } from '../theme';
 import { Button } from '../ui/Button';
 import { Notice } from '../ui/Notice';
@@ -10,6 +9,7 @@ import { PromptModal } from './PromptModal';
 import { addDepot, addLane, emptySelection, laneEnds, moveDepot, nextDepotId, removeSelected, setLaneWeight, type Draft, type Selection } from './draft';
 import type { Projection } from './layout';
 import { depotAt, laneAt } from './hit';
+import { parseVolume } from './volume';
 import { fitTransform, panBy, toWorld, zoomAt, type ViewTransform } from './viewport';
 
 /** Finger-sized hit areas in screen pixels (TOUCH / 2 around a depot). */
@@ -29,13 +29,6 @@ type Gesture =
   | { kind: 'none' };
 
 type Prompt = { kind: 'depot'; x: number; y: number } | { kind: 'new-lane'; a: number; b: number } | { kind: 'edit-lane'; lane: number } | null;
-
-export function parseVolume(text: string): number | string {
-  const v = Number(text.trim().replace(/\s/g, ''));
-  if (text.trim() === '' || !Number.isFinite(v)) return `"${text}" is not a number; write a volume such as 12.5`;
-  const parsed = LaneVolumeSchema.safeParse(v);
-  return parsed.success ? parsed.data : parsed.error.issues[0].message;
-}
 
 /**
  * Drawing and editing on the canvas with one responder (PanResponder works for touch and mouse,

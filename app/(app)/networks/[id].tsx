@@ -1,12 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
-import { Screen } from '../../../components/ui/Screen';
-import { EmptyState } from '../../../components/ui/EmptyState';
+import { NetworkScreen } from '../../../components/networks/NetworkScreen';
 
-export default function NetworkDetailScreen() {
+export default function NetworkRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();
-  return (
-    <Screen title={`Network ${id}`}>
-      <EmptyState title="Nothing here yet" message="Details of this network appear here." />
-    </Screen>
-  );
+  return <NetworkScreen key={id} id={Number(id) || 0} />;
 }

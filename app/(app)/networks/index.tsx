@@ -1,10 +1,5 @@
-import { Screen } from '../../../components/ui/Screen';
-import { EmptyState } from '../../../components/ui/EmptyState';
+import { NetworkList } from '../../../components/networks/NetworkList';
 
-export default function NetworksScreen() {
-  return (
-    <Screen title="Networks">
-      <EmptyState title="No networks yet" message="Draw a network of depots and lanes, or import one from your own systems, to ask a splitting question." />
-    </Screen>
-  );
+export default function NetworksRoute() {
+  return <NetworkList />;
 }

@@ -1,0 +1,5 @@
+import { NewNetworkScreen } from '../../../components/networks/NewNetworkScreen';
+
+export default function NewNetworkRoute() {
+  return <NewNetworkScreen />;
+}

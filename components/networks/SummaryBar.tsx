@@ -1,0 +1,35 @@
+import { StyleSheet, View } from 'react-native';
+import type { NetworkSummary } from '../../shared/schemas/networks';
+import { colors, radius, space } from '../theme';
+import { Label, Small } from '../ui/Text';
+import { formatVolume } from './format';
+
+/** Depots, lanes, total volume, components and degree range of the version on screen. */
+export function SummaryBar(props: { summary: NetworkSummary; testID?: string }) {
+  const s = props.summary;
+  const items: [string, string][] = [
+    ['Depots', formatVolume(s.depots)],
+    ['Lanes', formatVolume(s.lanes)],
+    ['Total volume', formatVolume(s.totalVolume)],
+    ['Components', formatVolume(s.components)],
+    ['Degree', s.depots === 0 ? '—' : s.minDegree === s.maxDegree ? String(s.minDegree) : `${s.minDegree}–${s.maxDegree}`],
+  ];
+  return (
+    <View style={styles.row} testID={props.testID ?? 'network-summary'} accessibilityLabel={items.map(([k, v]) => `${k} ${v}`).join(', ')}>
+      {items.map(([k, v]) => (
+        <View key={k} style={styles.item}>
+          <Small>{k}</Small>
+          <Label style={styles.value} testID={`summary-${k.toLowerCase().replace(/\s/g, '-')}`}>{v}</Label>
+        </View>
+      ))}
+      {s.components > 1 ? <Small style={styles.warn}>{s.components} separate parts: depots in different parts share no lanes.</Small> : null}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  item: { minWidth: 92, flexGrow: 1, paddingVertical: space.sm, paddingHorizontal: space.md, borderRadius: radius.md, backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line },
+  value: { fontSize: 17, lineHeight: 24, color: colors.text },
+  warn: { width: '100%', color: colors.signalDeep },
+});
