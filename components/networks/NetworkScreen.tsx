@@ -15,6 +15,7 @@ import { Body } from '../ui/Text';
 import { formatWhen } from './format';
 import { NetworkWorkspace } from './NetworkWorkspace';
 import { VersionsPanel } from './VersionsPanel';
+import { NewRunButton } from '../runs/NewRunButton';
 
 /** /networks/:id — the latest version (or an opened older one) in the drawing and tables. */
 export function NetworkScreen(props: { id: number }) {
@@ -53,6 +54,7 @@ export function NetworkScreen(props: { id: number }) {
       subtitle={version ? `Version ${version.number} of ${n.versionCount} · saved ${formatWhen(version.createdAt)}` : undefined}
       actions={
         <View style={styles.actions}>
+          {version ? <NewRunButton networkId={n.id} versionId={version.id} role={me.data?.current?.role ?? null} /> : null}
           <Button label="All networks" tone="secondary" onPress={leave} />
           {canWrite ? <Button label="Rename" tone="secondary" onPress={() => setAsking('rename')} /> : null}
           {canWrite ? <Button label="Import new version" tone="secondary" onPress={() => router.push(`/networks/import?networkId=${n.id}`)} /> : null}

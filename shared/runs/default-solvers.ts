@@ -36,7 +36,7 @@ const HEURISTIC_PREFERENCE: Record<ProblemKind, string[]> = {
   bisection: ['fm', 'best', 'tabu', 'anneal', 'greedy'],
   kway: ['fm', 'best', 'anneal', 'greedy'],
 };
-const DECOMPOSITION_NAMES = ['decomposed', 'decomposition', 'decompose'];
+const DECOMPOSITION_NAMES = ['qaoa-blocks', 'decomposed'];
 
 /** log₂ of the assignments exact enumeration would walk: free depots × log₂ k. */
 export function exactLog2Assignments(size: ProblemSize): number {
