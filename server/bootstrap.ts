@@ -4,6 +4,7 @@ import type { AppExtras } from './app';
 import { createAuthenticate } from './middleware/authenticate';
 import { csrfCheck } from './middleware/csrf';
 import { demoSignInText, ensureDemoOrganisation } from './services/seed-demo';
+import { ensureDemoNetworks } from './services/demo-networks';
 
 /** Hooks the feature modules plug into (authentication, demo seed). */
 export function serverExtras(deps: Deps): AppExtras {
@@ -16,6 +17,7 @@ export function serverExtras(deps: Deps): AppExtras {
 
 export async function afterStart(deps: Deps, opts: { seedDemo: boolean }): Promise<void> {
   if (!opts.seedDemo) return;
-  await ensureDemoOrganisation(deps);
+  const demo = await ensureDemoOrganisation(deps);
+  await ensureDemoNetworks(deps, demo.organisationId);
   console.log(`\n${await demoSignInText(deps)}\n`);
 }
