@@ -109,7 +109,7 @@ export function inspectText(r: ReturnType<typeof inspectReport>): string {
     `  encoding           ${r.method}`,
     `  qubits             ${r.qubits} (${r.depotQubits} depot, ${r.slackQubits} slack)`,
     `  Pauli terms        ${r.pauliTerms} (${r.linearTerms} Z, ${r.quadraticTerms} ZZ) + offset ${num(r.offset)}`,
-    `  commuting groups   ${r.commutingGroups} (all terms are Z-strings: one Z-basis measurement reads them all)`,
+    `  commuting groups   ${r.commutingGroups} (${r.groupMethod})`,
     `  shots              ${r.shots} for standard error ${num(r.precision)} (Σ|c| = ${num(r.coefficientNorm)})`,
   ];
   for (const p of r.penalties) lines.push(`  penalty ${p.name.padEnd(11)}${num(p.weight)} — ${p.rule}`);

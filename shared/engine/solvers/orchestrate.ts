@@ -6,6 +6,8 @@
  * Nothing a solver says about its own answer is passed on unchecked.
  */
 import { encodeProblem, type EncodingOptions, type PenaltyTerm } from '../encodings';
+import { groupQubitWise } from '../operators/grouping';
+import { isingToPauliSum } from '../operators/pauli';
 import { crossingWeight, gapOf, isBalanced, respectsPins } from '../problem/evaluate';
 import { senseOf, type Problem, type Sense } from '../problem/types';
 import { computeBounds } from './classical';
@@ -178,8 +180,10 @@ export interface EncodingSummary {
   penalties: PenaltyTerm[];
   rule: string;
   approximate: boolean;
-  /** Measurement groups: every term of a diagonal (Ising) operator is a Z-string, so one group. */
+  /** Qubit-wise commuting measurement groups (every term of an Ising operator is a Z-string). */
   commutingGroups: number;
+  /** How the groups were found: the operators module's greedy grouping, or the diagonal argument. */
+  groupMethod: string;
   /** Σ|c_k| over the non-identity terms (sets the state-independent shot budget). */
   coefficientNorm: number;
   /** Target standard error of the energy estimate the shot budget is for. */
@@ -193,6 +197,9 @@ export interface DescribeOptions extends EncodingOptions {
   /** Target standard error ε of the energy; default 1 % of the total |lane weight|. */
   precision?: number;
 }
+
+/** Up to this many terms the groups are counted by operators/grouping (its cost is O(T²·n)). */
+export const MAX_GROUPED_TERMS = 2000;
 
 /** Above this many estimated Pauli terms the operator is not built (memory, not physics). */
 export const MAX_DESCRIBED_TERMS = 5_000_000;
@@ -227,6 +234,9 @@ export function describeEncoding(problem: Problem, opts: DescribeOptions = {}): 
   const precision = opts.precision ?? 0.01 * Math.max(totalAbs, 1e-12);
   if (!(precision > 0) || !Number.isFinite(precision)) throw new Error(`precision must be a positive number (got ${opts.precision})`);
   const shots = norm === 0 ? 0 : Math.ceil((norm / precision) ** 2 - 1e-9);
+  const terms = linearTerms + quadraticTerms;
+  const grouped = terms > 0 && terms <= MAX_GROUPED_TERMS;
+  const commutingGroups = grouped ? groupQubitWise(isingToPauliSum(op)).groups.length : terms > 0 ? 1 : 0;
   return {
     method: enc.method,
     qubits: enc.numQubits,
@@ -239,7 +249,8 @@ export function describeEncoding(problem: Problem, opts: DescribeOptions = {}): 
     penalties: enc.penalties,
     rule: enc.rule,
     approximate: enc.approximate,
-    commutingGroups: linearTerms + quadraticTerms > 0 ? 1 : 0,
+    commutingGroups,
+    groupMethod: grouped ? 'qubit-wise commuting groups (greedy colouring, operators/grouping.ts)' : 'all terms are Z-strings, which commute qubit-wise: one group',
     coefficientNorm: norm,
     precision,
     shots,

@@ -16,6 +16,7 @@ describe('describeEncoding', () => {
     // H = Σ (w/2)(Z_uZ_v − 1) (Lucas 2014 max-cut form, cut = −H).
     const d = describeEncoding(bindProblem(petersen, { kind: 'maxcut' }));
     expect(d).toMatchObject({ qubits: 10, depotQubits: 10, slackQubits: 0, pauliTerms: 15, quadraticTerms: 15, linearTerms: 0, offset: -7.5, commutingGroups: 1, penalties: [] });
+    expect(d.groupMethod).toContain('operators/grouping'); // counted by the grouping module, not assumed
   });
 
   test('max-cut shot budget is (Σ|w|)²/(4ε²) (Popoviciu bound on σ_C; references.md shot-noise section)', () => {
