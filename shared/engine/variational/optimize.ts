@@ -1,5 +1,6 @@
 import type { Ansatz } from '../ansatz/types';
 import { minimizeAdam } from '../optimizers/adam';
+import { minimizeCobyla } from '../optimizers/cobyla';
 import { centralDifferenceGradient, parameterShiftGradient } from '../optimizers/gradients';
 import { minimizeNelderMead } from '../optimizers/nelder-mead';
 import { minimizeWithRestarts } from '../optimizers/restarts';
@@ -8,8 +9,8 @@ import type { Estimate, MinimizeResult } from '../optimizers/types';
 import type { Rng } from '../random';
 import type { StateVector } from '../statevector/state';
 
-export type OptimizerName = 'nelder-mead' | 'spsa' | 'adam';
-export const OPTIMIZER_NAMES: OptimizerName[] = ['nelder-mead', 'spsa', 'adam'];
+export type OptimizerName = 'nelder-mead' | 'cobyla' | 'spsa' | 'adam';
+export const OPTIMIZER_NAMES: OptimizerName[] = ['nelder-mead', 'cobyla', 'spsa', 'adam'];
 
 export interface VariationalLoopOptions {
   ansatz: Ansatz;
@@ -62,7 +63,8 @@ export function optimizeAnsatz(opts: VariationalLoopOptions): VariationalLoopRes
       const allShift = ansatz.gradientRule.every((g) => g === 'shift');
       const gradient = allShift ? shift : ansatz.gradientRule.every((g) => g === 'difference') ? diff : mixedGradient(ansatz, shift, diff);
       r = minimizeAdam(energyAt, start, { ...common, gradient, learningRate: opts.step ?? 0.05, evaluationsPerGradient: 2 * start.length });
-    } else r = minimizeNelderMead(energyAt, start, { ...common, step: opts.step ?? 0.25 });
+    } else if (opts.optimizer === 'cobyla') r = minimizeCobyla(energyAt, start, { ...common, rhoBegin: opts.step ?? 0.25, rhoEnd: opts.differenceStep && opts.differenceStep > 1e-4 ? 1e-3 : 1e-7 });
+    else r = minimizeNelderMead(energyAt, start, { ...common, step: opts.step ?? 0.25 });
     iterationOffset += r.iterations;
     return r;
   }, opts.shouldStop);

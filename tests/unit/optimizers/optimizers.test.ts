@@ -1,4 +1,5 @@
 import { minimizeAdam } from '../../../shared/engine/optimizers/adam';
+import { minimizeCobyla } from '../../../shared/engine/optimizers/cobyla';
 import { centralDifferenceGradient, parameterShiftGradient } from '../../../shared/engine/optimizers/gradients';
 import { minimizeNelderMead } from '../../../shared/engine/optimizers/nelder-mead';
 import { minimizeWithRestarts } from '../../../shared/engine/optimizers/restarts';
@@ -35,6 +36,21 @@ describe('Nelder–Mead with adaptive coefficients (Nelder & Mead 1965; Gao & Ha
     expect(r.iterations).toBe(5);
     expect(seen).toEqual([1, 2, 3, 4, 5]);
     expect(r.reason).toBe('stopped');
+  });
+});
+
+describe('COBYLA-style linear-model trust region (Powell 1994), unconstrained', () => {
+  test('reaches the Rosenbrock minimum (1, 1) from (−1.2, 1)', () => {
+    const r = minimizeCobyla(rosenbrock, [-1.2, 1], { rhoBegin: 0.5, rhoEnd: 1e-8, maxIterations: 100000 });
+    expect(r.x[0]).toBeCloseTo(1, 4);
+    expect(r.x[1]).toBeCloseTo(1, 4);
+    expect(r.reason).toBe('converged');
+  });
+  test('solves a separable quadratic in 6 dimensions to round-off (minimum at (0, 0.3, …, 1.5))', () => {
+    const f = (x: Float64Array) => x.reduce((s, v, i) => s + (i + 1) * (v - 0.3 * i) ** 2, 0);
+    const r = minimizeCobyla(f, new Float64Array(6), { rhoEnd: 1e-8 });
+    r.x.forEach((v, i) => expect(v).toBeCloseTo(0.3 * i, 6));
+    expect(r.evaluations).toBeLessThan(2000);
   });
 });
 

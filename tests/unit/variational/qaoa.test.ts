@@ -104,6 +104,12 @@ describe('optimised QAOA (Farhi, Goldstone, Gutmann, arXiv:1411.4028 (2014))', (
     expect(out.energy).toBeCloseTo(-out.expectation!, 10); // energy = −cut for max-cut
   });
 
+  test('ring of disagrees p = 1 with the COBYLA-style optimizer as well', () => {
+    const p = problemOf(12, ringEdges(12), { kind: 'maxcut' });
+    const out = runQaoa({ encoding: encodeMaxCut(p), layers: 1, optimizer: 'cobyla', shots: 0, restarts: 1, maxIterations: 600, rng: createRng(12) });
+    expect(Math.abs(out.expectation! / 12 - 0.75)).toBeLessThan(1e-4);
+  });
+
   test.each([1, 2, 3])('3-regular graph: optimised p = 1 reaches ≥ 0.6924 of the brute-force optimum (seed %i)', (seed) => {
     const rng = createRng(300 + seed);
     const n = 8 + 2 * seed;
