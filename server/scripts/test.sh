@@ -18,9 +18,9 @@ export NODE_ENV=test CI="${CI:-}"
 # Two workers suit the 2-core machines; e2e and api suites share services, so they run serially.
 extra=(); [ $# -gt 0 ] && extra=(--passWithNoTests)
 set +e
-npx jest --selectProjects unit components --maxWorkers=2 "${extra[@]}" "$@"
+npx jest "$@" "${extra[@]}" --maxWorkers=2 --selectProjects unit components
 status=$?
-npx jest --selectProjects api e2e --runInBand "${extra[@]}" "$@"
+npx jest "$@" "${extra[@]}" --runInBand --selectProjects api e2e
 status2=$?
 set -e
 if [ $status -ne 0 ] || [ $status2 -ne 0 ]; then say "tests failed"; exit 1; fi
