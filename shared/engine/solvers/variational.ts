@@ -144,7 +144,8 @@ async function solveVariational(problem: Problem, s: CommonSettings, ctx: SolveC
   const start = performance.now();
   const elapsed = () => (performance.now() - start) / 1000;
   const shouldStop = () => elapsed() >= ctx.timeLimitSeconds || ctx.cancel?.cancelled === true;
-  const budget = s.maxIterations * s.restarts;
+  const splits = problem.kind === 'kway' && s.kwayStrategy === 'recursive' ? problem.k - 1 : 1; // k − 1 bisections in all
+  const budget = s.maxIterations * s.restarts * splits;
   let lastReport = -Infinity, iterationBase = 0, lastIteration = 0;
   const trace: TracePoint[] = [];
   const onIteration = (p: VariationalTracePoint) => {
