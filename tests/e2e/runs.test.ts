@@ -1,0 +1,117 @@
+/**
+ * Runs in the browser, phone and wide: from the demo network to a finished run with exact, tabu
+ * and QAOA — progress to 100 %, the scorecard (exact proven optimal, QAOA's ratio to the bound),
+ * the partition drawing, and the assignment CSV downloaded and checked against the network.
+ * A real worker process solves the jobs.
+ */
+import fs from 'node:fs';
+import Papa from 'papaparse';
+import type { Browser, Page } from 'playwright-core';
+import { launchBrowser, PHONE, WIDE, screenshot, watchPageErrors } from '../support/browser';
+import { startTestServer } from '../support/server';
+import { startWorkerProcess } from '../support/worker-process';
+
+let server: Awaited<ReturnType<typeof startTestServer>>;
+let browser: Browser;
+let worker: ReturnType<typeof startWorkerProcess>;
+let demo: { networkId: number; versionId: number; depots: { id: string; name?: string }[]; lanes: { from: string; to: string; weight: number }[] };
+const ANALYST = 'analyst@quillmere.example';
+
+beforeAll(async () => {
+  server = await startTestServer(3190);
+  worker = startWorkerProcess();
+  const { ensureDemoOrganisation, DEMO_PASSWORD } = await import('../../server/services/seed-demo');
+  const { ensureDemoNetworks } = await import('../../server/services/demo-networks');
+  const { organisationId } = await ensureDemoOrganisation(server.deps);
+  await ensureDemoNetworks(server.deps, organisationId);
+  password = DEMO_PASSWORD;
+  const network = await server.deps.models.Network.findOne({ where: { organisationId, name: 'Quillmere Valley — core' } });
+  const version = await server.deps.models.NetworkVersion.findOne({ where: { networkId: network!.get('id') as number }, order: [['number', 'DESC']] });
+  const doc = JSON.parse(version!.get('document') as string);
+  demo = { networkId: network!.get('id') as number, versionId: version!.get('id') as number, depots: doc.depots, lanes: doc.lanes };
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await worker?.stop();
+  await server?.stop();
+});
+let password = '';
+
+async function signIn(page: Page) {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByTestId('sign-in-email').fill(ANALYST);
+  await page.getByTestId('sign-in-password').fill(password);
+  await page.getByTestId('sign-in-submit').click();
+  await page.waitForURL((u) => u.pathname === '/networks');
+}
+
+/** The independent cut of a CSV assignment: lane weight between depots on different sides. */
+function cutOf(csv: string) {
+  const rows = Papa.parse<Record<string, string>>(csv.trim(), { header: true, skipEmptyLines: true }).data;
+  const side = new Map(rows.map((r) => [r.depot_id, r.side]));
+  let cut = 0;
+  for (const l of demo.lanes) if (side.get(l.from) !== side.get(l.to)) cut += l.weight;
+  return { rows, cut };
+}
+
+describe.each([
+  ['phone', PHONE],
+  ['wide', WIDE],
+])('%s', (label, viewport) => {
+  test('demo network → run with exact, tabu and QAOA → 100 % → scorecard, partition, CSV', async () => {
+    const context = await browser.newContext({ viewport, acceptDownloads: true });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    await signIn(page);
+
+    // Open the demo network and start setting up a run from it.
+    await page.getByRole('link', { name: 'Open Quillmere Valley — core' }).first().click();
+    await page.getByTestId('network-screen').waitFor();
+    await page.getByTestId('new-run').click();
+    await page.waitForURL((u) => u.pathname === '/runs/new' && u.searchParams.get('versionId') === String(demo.versionId));
+    await page.getByTestId('kind-maxcut').waitFor();
+    await page.getByTestId('kind-maxcut').click();
+    // Size-based defaults for 12 depots: exact, tabu, QAOA, VQE — keep exact + tabu + QAOA.
+    for (const name of ['exact', 'tabu', 'qaoa']) await expect(page.getByTestId(`solver-${name}`).getAttribute('aria-checked')).resolves.toBe('true');
+    await page.getByTestId('solver-vqe').click();
+    await expect(page.getByTestId('solver-vqe').getAttribute('aria-checked')).resolves.toBe('false');
+    await page.getByTestId('encoding-summary').waitFor();
+    await expect(page.getByTestId('enc-qubits').textContent()).resolves.toBe(String(demo.depots.length));
+    await screenshot(page, `runs-setup-${label}`);
+    await page.getByTestId('start-run').click();
+    await page.waitForURL((u) => /^\/runs\/\d+$/.test(u.pathname));
+    const runId = Number(new URL(page.url()).pathname.split('/').pop());
+    await page.getByTestId('run-progress').waitFor();
+    await screenshot(page, `runs-live-${label}`);
+
+    // Progress reaches 100 % for every solver (the page polls while jobs run).
+    for (const name of ['exact', 'tabu', 'qaoa']) await page.getByTestId(`percent-${name}`).getByText('100 %').waitFor({ timeout: 90_000 });
+
+    // Scorecard: exact proven optimal and marked best; QAOA's ratio to the bound is a number ≤ 1.
+    await page.getByTestId('scorecard').waitFor();
+    await page.getByTestId('proven-exact').waitFor();
+    await page.getByTestId('best-exact').waitFor();
+    const ratio = (await page.getByTestId('ratio-qaoa').textContent()) ?? '';
+    expect(ratio).toMatch(/^[01]\.\d{3}$/);
+    expect(Number(ratio)).toBeLessThanOrEqual(1);
+    await screenshot(page, `runs-scorecard-${label}`);
+
+    // The partition of QAOA's answer on the network.
+    await page.getByTestId('score-qaoa').click();
+    await page.getByTestId('partition-view').getByText(/QAOA/).waitFor();
+    await page.getByTestId('partition-view').scrollIntoViewIfNeeded();
+    await screenshot(page, `runs-partition-${label}`);
+
+    // The CSV download: every depot once, and its cut (computed here) equals the best value shown.
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('download-csv').click()]);
+    const file = await download.path();
+    const { rows, cut } = cutOf(fs.readFileSync(file!, 'utf8'));
+    expect(rows.map((r) => r.depot_id)).toEqual(demo.depots.map((d) => d.id));
+    const exactValue = Number(((await page.getByTestId('value-exact').textContent()) ?? '').replace(/,/g, ''));
+    expect(cut).toBeCloseTo(exactValue, 6);
+    expect(runId).toBeGreaterThan(0);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
