@@ -41,7 +41,7 @@ export function AppShell(props: { organisationName: string; role: Role | null; h
           </View>
           {visible.map((d) => (
             <Link key={d.href} href={d.href} asChild>
-              <Pressable accessibilityRole="link" accessibilityLabel={d.label} aria-current={isActive(d.href) ? 'page' : undefined} style={[styles.railItem, isActive(d.href) && styles.railItemActive]} testID={`nav-${d.glyph}`}>
+              <Pressable accessibilityRole="link" accessibilityLabel={d.label} aria-current={isActive(d.href) ? 'page' : undefined} style={StyleSheet.flatten([styles.railItem, isActive(d.href) && styles.railItemActive])} testID={`nav-${d.glyph}`}>
                 <Glyph name={d.glyph} color={isActive(d.href) ? colors.ink : colors.onInk} />
                 <Text style={[styles.railText, isActive(d.href) && styles.railTextActive]}>{d.label}</Text>
               </Pressable>
