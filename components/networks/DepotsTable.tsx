@@ -45,6 +45,7 @@ export function DepotsTable(props: { depots: readonly Depot[]; lanes: readonly L
             accessibilityRole="button"
             accessibilityLabel={`Depot ${d.id}${d.name ? `, ${d.name}` : ''}`}
             accessibilityState={{ selected }}
+            aria-pressed={selected}
             style={[styles.row, selected && styles.selected]}
             testID={`depot-row-${d.id}`}
           >

@@ -72,7 +72,7 @@ export function LanesTable(props: { lanes: readonly Lane[]; selected: ReadonlySe
         const selected = props.selected.has(e);
         return (
           <View key={`${e}:${l.from}:${l.to}`} style={[styles.row, selected && styles.selected]} testID={`lane-row-${e}`}>
-            <Pressable style={[styles.grow, local.pick]} onPress={() => props.onSelect(e)} accessibilityRole="button" accessibilityLabel={`Lane ${l.from}–${l.to}`} accessibilityState={{ selected }}>
+            <Pressable style={[styles.grow, local.pick]} onPress={() => props.onSelect(e)} accessibilityRole="button" accessibilityLabel={`Lane ${l.from}–${l.to}`} accessibilityState={{ selected }} aria-pressed={selected}>
               <Body numberOfLines={1} style={[styles.cell, styles.grow, styles.mono]}>{l.from}</Body>
               <Body numberOfLines={1} style={[styles.cell, styles.grow, styles.mono]}>{l.to}</Body>
             </Pressable>
