@@ -19,9 +19,12 @@ export const PLANS: Record<PlanId, PlanLimits> = {
 
 export const DEFAULT_PLAN: PlanId = 'free';
 
-/** Seat limit of a plan; unknown plan names fall back to the free plan (never more seats by mistake). */
-export function seatLimit(plan: string | null | undefined): number {
-  return (PLANS[plan as PlanId] ?? PLANS[DEFAULT_PLAN]).seats;
+/**
+ * Seat limit of a plan plus seats bought on top (billing); unknown plan names fall back to the
+ * free plan (never more seats by mistake).
+ */
+export function seatLimit(plan: string | null | undefined, purchasedSeats = 0): number {
+  return (PLANS[plan as PlanId] ?? PLANS[DEFAULT_PLAN]).seats + Math.max(0, Math.floor(purchasedSeats));
 }
 
 export function planLabel(plan: string | null | undefined): string {
@@ -57,4 +60,105 @@ export function runLimits(plan: string | null | undefined): PlanRunLimits {
 export function nextPlan(plan: string | null | undefined): PlanId | null {
   const i = PLAN_IDS.indexOf((PLANS[plan as PlanId] ? plan : DEFAULT_PLAN) as PlanId);
   return i >= 0 && i < PLAN_IDS.length - 1 ? PLAN_IDS[i + 1] : null;
+}
+
+/* ------------------------------------------------------------------------------------------ *
+ * Prices (billing). Amounts are integers in the currency's smallest unit (cents).
+ * A run inside its plan's included size is free (up to the monthly allowance of runs); a larger
+ * run — up to the paid ceiling — is priced per solve and held until it is paid.
+ * ------------------------------------------------------------------------------------------ */
+
+export const CURRENCY = 'eur';
+
+export interface Price {
+  /** Integer, smallest currency unit (cents). */
+  amount: number;
+  currency: string;
+}
+
+export interface PlanPrices {
+  /** Runs per calendar month that cost nothing while inside the included size. */
+  monthlyFreeRuns: number;
+  /** A run inside the included size after the allowance is used up. */
+  smallRun: number;
+  /** Every large run pays this, plus the size surcharges below. */
+  largeRunBase: number;
+  /** Per started 100 depots above the plan's included depots (classical work grows with size). */
+  per100DepotsOver: number;
+  /** A variational solver above the included qubits pays this × (2^extra − 1): statevector memory and time double per qubit. */
+  perQubitDoubling: number;
+  /** Per started minute of solver time above the plan's included seconds, per solver. */
+  perExtraMinute: number;
+  /** Price of one extra seat (one-off purchase, adds one to the seat limit). */
+  seat: number;
+}
+
+export const PRICES: Record<PlanId, PlanPrices> = {
+  free: { monthlyFreeRuns: 50, smallRun: 50, largeRunBase: 200, per100DepotsOver: 50, perQubitDoubling: 25, perExtraMinute: 10, seat: 900 },
+  team: { monthlyFreeRuns: 1000, smallRun: 20, largeRunBase: 150, per100DepotsOver: 30, perQubitDoubling: 15, perExtraMinute: 5, seat: 700 },
+  fleet: { monthlyFreeRuns: 10000, smallRun: 10, largeRunBase: 100, per100DepotsOver: 20, perQubitDoubling: 10, perExtraMinute: 3, seat: 500 },
+};
+
+/** Credit packs an admin can buy (cents). */
+export const CREDIT_PACKS = [1000, 2500, 10000] as const;
+
+/** The largest run a plan may buy (a paid run may go up to the next plan's limits; the top plan's own). */
+export function paidRunCeiling(plan: string | null | undefined): PlanRunLimits {
+  const up = nextPlan(plan);
+  const own = runLimits(plan);
+  return up ? { ...RUN_LIMITS[up], priority: own.priority } : own;
+}
+
+export function planPrices(plan: string | null | undefined): PlanPrices {
+  return PRICES[plan as PlanId] ?? PRICES[DEFAULT_PLAN];
+}
+
+/** What a price depends on: the network size and, per solver, its family, qubits and time. */
+export interface RunSize {
+  depots: number;
+  /** Seconds each solver may use. */
+  secondsPerSolver: number;
+  solvers: ReadonlyArray<{ family: string; qubits: number | null }>;
+  /** Runs the organisation already started this calendar month (for the allowance). */
+  runsThisMonth?: number;
+}
+
+export interface RunPriceLine {
+  label: string;
+  amount: number;
+}
+
+export interface RunPrice extends Price {
+  lines: RunPriceLine[];
+}
+
+/**
+ * Price of one run, or null when it is free. The one pricing rule: the API stores it with the
+ * run and the run-setup screen shows the same number.
+ */
+export function priceOfRun(plan: string | null | undefined, size: RunSize): RunPrice | null {
+  const included = runLimits(plan);
+  const p = planPrices(plan);
+  const lines: RunPriceLine[] = [];
+  const overDepots = Math.max(0, size.depots - included.maxDepots);
+  const overSeconds = Math.max(0, size.secondsPerSolver - included.maxSecondsPerSolver);
+  const extraQubits = size.solvers.map((s) => (s.family === 'variational' && s.qubits !== null ? Math.max(0, s.qubits - included.maxQubits) : 0));
+  const large = overDepots > 0 || overSeconds > 0 || extraQubits.some((q) => q > 0);
+  if (!large) {
+    if ((size.runsThisMonth ?? 0) < p.monthlyFreeRuns) return null;
+    return { amount: p.smallRun, currency: CURRENCY, lines: [{ label: `Run beyond the ${p.monthlyFreeRuns} included this month`, amount: p.smallRun }] };
+  }
+  lines.push({ label: 'Large solve', amount: p.largeRunBase });
+  if (overDepots > 0) lines.push({ label: `${overDepots} depots above ${included.maxDepots}`, amount: Math.ceil(overDepots / 100) * p.per100DepotsOver });
+  extraQubits.forEach((extra, i) => {
+    if (extra > 0) lines.push({ label: `Solver ${i + 1}: ${extra} qubits above ${included.maxQubits}`, amount: p.perQubitDoubling * (2 ** extra - 1) });
+  });
+  if (overSeconds > 0) lines.push({ label: `${size.solvers.length} solver(s) × ${overSeconds} s above ${included.maxSecondsPerSolver} s`, amount: Math.ceil(overSeconds / 60) * p.perExtraMinute * size.solvers.length });
+  return { amount: lines.reduce((s, l) => s + l.amount, 0), currency: CURRENCY, lines };
+}
+
+/** "€12.50" — amounts are cents. */
+export function formatMoney(price: Price): string {
+  const symbol = price.currency.toLowerCase() === 'eur' ? '€' : `${price.currency.toUpperCase()} `;
+  return `${symbol}${(price.amount / 100).toFixed(2)}`;
 }
