@@ -74,9 +74,9 @@ export function layoutNetwork(depots: readonly Depot[], lanes: readonly { from: 
     .filter((l) => l.source !== undefined && l.target !== undefined && l.source !== l.target);
   const simulation = forceSimulation(nodes)
     .force('link', forceLink(links).distance(LANE_LENGTH).strength(0.7))
-    .force('charge', forceManyBody().strength(-160).distanceMax(LANE_LENGTH * 6))
-    .force('x', forceX(0).strength(0.04)) // keeps separate components from drifting apart
-    .force('y', forceY(0).strength(0.04))
+    .force('charge', forceManyBody().strength(-250))
+    .force('x', forceX(0).strength(0.015)) // keeps separate components from drifting apart
+    .force('y', forceY(0).strength(0.015))
     .force('center', forceCenter(0, 0));
   simulation.stop();
   simulation.tick(300);
