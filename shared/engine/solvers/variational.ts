@@ -158,11 +158,13 @@ async function solveVariational(problem: Problem, s: CommonSettings, ctx: SolveC
     }
   };
   const notes: string[] = [];
+  const recursive = problem.kind === 'kway' && s.kwayStrategy === 'recursive';
+  let stoppedAny = false;
   const finish = (assignment: ArrayLike<number>, outcome: VariationalOutcome | null, extra: Partial<SolveResult>): SolveResult => {
     const a = Array.from(assignment, (x) => x | 0);
     const infeasible = !isBalanced(problem, a);
-    if (infeasible) notes.push('no sampled answer met the balance rule; the best infeasible sample is returned');
-    if (outcome?.stopped) notes.push('stopped early (time limit or cancel)');
+    if (infeasible) notes.push(recursive ? 'the combined assignment breaks the balance rule (a split could not meet its window)' : 'no sampled answer met the balance rule; the best infeasible sample is returned');
+    if (outcome?.stopped || stoppedAny) notes.push('stopped early (time limit or cancel)');
     return {
       value: crossingWeight(problem, a),
       assignment: a,
@@ -183,7 +185,7 @@ async function solveVariational(problem: Problem, s: CommonSettings, ctx: SolveC
   };
   const toSamples = (o: VariationalOutcome): SampledAssignment[] => o.samples.map((d) => ({ assignment: d.assignment, count: d.count, value: d.value }));
 
-  if (problem.kind === 'kway' && s.kwayStrategy === 'recursive') {
+  if (recursive) {
     let evaluations = 0, shots = 0;
     let first: VariationalOutcome | null = null;
     const assignment = await recursiveBisection(problem, async (step) => {
@@ -194,6 +196,7 @@ async function solveVariational(problem: Problem, s: CommonSettings, ctx: SolveC
       evaluations += out.evaluations;
       shots += out.shotsUsed;
       first = first ?? out;
+      stoppedAny = stoppedAny || out.stopped;
       notes.push(`split regions ${step.firstRegion}…${step.firstRegion + step.regions0 - 1} | ${step.firstRegion + step.regions0}…${step.firstRegion + step.regions0 + step.regions1 - 1}: ${enc.numQubits} qubits, ${enc.rule}`);
       await new Promise((r) => setTimeout(r, 0)); // let a cancel message arrive between splits
       return out.best ? out.best.assignment : step.problem.pins.map((p) => Math.max(0, p));

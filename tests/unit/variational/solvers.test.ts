@@ -122,6 +122,14 @@ describe('solve', () => {
     expect(r.notes).toContain('stopped early (time limit or cancel)');
   });
 
+  test('a cancelled recursive k-way run still answers every depot and says it stopped', async () => {
+    const p = problemOf(8, randomGraph(createRng(12), 8, 0.5), { kind: 'kway', k: 4 });
+    const r = await qaoaSolver.solve(p, qaoaSolver.parseSettings({ layers: 1 }), ctx(2, { cancel: { cancelled: true } }));
+    expect(r.assignment).toHaveLength(8);
+    expect(r.trace!.length).toBe(3); // one iteration per split, k − 1 = 3 splits
+    expect(r.notes).toContain('stopped early (time limit or cancel)');
+  });
+
   test('a cancelled run stops after its first iteration and says so', async () => {
     const p = problemOf(n, edges, { kind: 'maxcut' });
     const progress: number[] = [];
