@@ -38,7 +38,7 @@ describe('recursive bisection for k-way (driver strategy)', () => {
     expect(step.imbalanceWindow.max).toBeCloseTo(2 * L - 9, 6);
   });
 
-  test.each([[3, 7], [4, 8], [5, 10]])('k = %i on %i depots with exact splits: balanced, pins kept, value ≥ brute-force optimum', async (k, n) => {
+  test.each([[3, 7], [4, 8], [5, 10], [8, 16]])('k = %i on %i depots with exact splits: balanced, pins kept, value ≥ brute-force optimum', async (k, n) => {
     const p = problemOf(n, randomGraph(createRng(k * n), n, 0.45, () => 1 + (k % 2)), { kind: 'kway', k, pins: { '1': k - 1 } });
     const a = await recursiveBisection(p, exactSplit);
     expect(a[0]).toBe(k - 1);
