@@ -4,6 +4,7 @@ import type { AppExtras } from './app';
 import { createAuthenticate } from './middleware/authenticate';
 import { csrfCheck } from './middleware/csrf';
 import { demoSignInText, ensureDemoOrganisation } from './services/seed-demo';
+import { reconcileQueue } from './services/queue';
 import { ensureDemoNetworks } from './services/demo-networks';
 
 /** Hooks the feature modules plug into (authentication, demo seed). */
@@ -16,6 +17,8 @@ export function serverExtras(deps: Deps): AppExtras {
 }
 
 export async function afterStart(deps: Deps, opts: { seedDemo: boolean }): Promise<void> {
+  // Solve service: re-enqueue queued jobs whose queue entries were lost (Redis restart, failed enqueue).
+  await reconcileQueue(deps).catch((err) => deps.logger.warn({ err }, 'solve queue not reconciled at start (Redis down?); workers reconcile when they start'));
   if (!opts.seedDemo) return;
   const demo = await ensureDemoOrganisation(deps);
   await ensureDemoNetworks(deps, demo.organisationId);

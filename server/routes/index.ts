@@ -8,6 +8,7 @@ import { membersRoutes } from './members';
 import { invitationsRoutes } from './invitations';
 import { auditRoutes } from './audit';
 import { tokensRoutes } from './tokens';
+import { runsRoutes } from './runs';
 import { solversRoutes } from './solvers';
 
 /** The API's route table, in one list (mounted under /api; read by the OpenAPI and isolation tests). */
@@ -21,6 +22,7 @@ export function apiRoutes(deps: Deps): RouteSpec[] {
     ...auditRoutes(deps),
     ...tokensRoutes(deps),
     ...networksRoutes(deps),
+    ...runsRoutes(deps),
     ...solversRoutes(deps),
   ];
   return routes;

@@ -19,6 +19,7 @@ const schema = {
   restarts: { default: 1, min: 1, max: 10, integer: true },
   maxIterations: { default: 150, min: 1, max: 5000, integer: true },
   mergeExactLimit: { default: 16, min: 1, max: 20, integer: true },
+  rounds: { default: 3, min: 0, max: 20, integer: true },
 } satisfies NumberSchema;
 
 export type QaoaBlocksSettings = { [K in keyof typeof schema]: number };
@@ -57,7 +58,7 @@ export const qaoaBlocksSolver: SolverDefinition<QaoaBlocksSettings> & { simulate
     const largest = outcome.blocks.reduce((q, b) => Math.max(q, b.qubits), 0);
     const notes = [
       `${outcome.merge.blocks} block(s) of at most ${s.blockSize} depots (largest circuit ${largest} qubits); block orientations by ${outcome.merge.method === 'exact' ? 'exact enumeration' : outcome.merge.method === 'qaoa' ? 'QAOA' : 'none needed'} (gain ${outcome.merge.gain})`,
-      `merged cut ${outcome.mergedValue}; 1-flip refinement made ${outcome.refineFlips} flip(s)`,
+      `merged cut ${outcome.mergedValue}; block re-solves with fixed surroundings gained ${outcome.roundsGain}; 1-flip refinement made ${outcome.refineFlips} flip(s)`,
       'heuristic: no optimality guarantee',
     ];
     if (outcome.stopped) notes.push('stopped early (time limit or cancel): later blocks kept their starting sides');

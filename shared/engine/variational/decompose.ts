@@ -8,7 +8,8 @@
  *  3. choose each block's orientation t_b ∈ {±1}: with block spins s_u, the lanes between
  *     blocks contribute Σ_{a<b} w'_ab (1 − t_a t_b)/2 + const, w'_ab = Σ_{u∈a, v∈b} w_uv s_u s_v —
  *     itself a small max-cut over the blocks, solved exactly when small or by QAOA;
- *  4. refine the merged answer with 1-flip local search.
+ *  4. improve: re-solve each block by QAOA with its surroundings fixed (our addition), and
+ *     refine with 1-flip local search.
  * A heuristic: no optimality guarantee (the caller shows it next to the classical best and the bound).
  */
 import { compactFromEdges } from '../network/build';
@@ -35,6 +36,11 @@ export interface DecomposeOptions {
   maxIterations: number;
   /** Merge by exact enumeration when at most this many blocks are free, else by QAOA. */
   mergeExactLimit: number;
+  /**
+   * Improvement rounds after the merge: each block is solved again by QAOA with the depots
+   * around it fixed at their current sides (lanes to them become fields); kept when the cut rises.
+   */
+  rounds: number;
 }
 
 export interface BlockReport {
@@ -53,6 +59,8 @@ export interface DecomposeOutcome {
   merge: { method: 'single' | 'exact' | 'qaoa'; blocks: number; gain: number };
   /** Cut after merging, before the 1-flip refinement; and flips the refinement made. */
   mergedValue: number;
+  /** Cut gained by the improvement rounds (block re-solves with fixed surroundings). */
+  roundsGain: number;
   refineFlips: number;
   evaluations: number;
   shots: number;
@@ -113,6 +121,37 @@ function blockProblem(problem: Problem, members: number[]): Problem {
   const network = compactFromEdges(members.length, edges);
   const pins = Int32Array.from(members, (v) => problem.pins[v]);
   return { kind: 'maxcut', k: 2, network, pins, tolerance: 0 };
+}
+
+/**
+ * One block with its surroundings fixed: the block's depots are free (unless pinned), every
+ * depot outside the block that shares a lane with it is pinned to its current side. The first
+ * `members.length` depots of the sub-problem are the block's.
+ */
+function blockInContext(problem: Problem, members: number[], sides: ArrayLike<number>): { sub: Problem; around: number[] } {
+  const local = new Map(members.map((v, i) => [v, i]));
+  const around: number[] = [];
+  const { adjStart, adjIndex } = problem.network;
+  for (const v of members) {
+    for (let p = adjStart[v]; p < adjStart[v + 1]; p++) {
+      const u = adjIndex[p];
+      if (!local.has(u)) {
+        local.set(u, members.length + around.length);
+        around.push(u);
+      }
+    }
+  }
+  const all = [...members, ...around];
+  const { adjWeight } = problem.network;
+  const edges: [number, number, number][] = [];
+  members.forEach((v, i) => {
+    for (let p = adjStart[v]; p < adjStart[v + 1]; p++) {
+      const j = local.get(adjIndex[p])!;
+      if (j > i) edges.push([i, j, adjWeight[p]]);
+    }
+  });
+  const pins = Int32Array.from(all, (v, i) => (i < members.length ? problem.pins[v] : sides[v]));
+  return { sub: { kind: 'maxcut', k: 2, network: compactFromEdges(all.length, edges), pins, tolerance: 0 }, around };
 }
 
 /** Exact max-cut over ≤ ~20 free vertices by enumeration (Gray code, O(2^f · deg)). */
@@ -234,9 +273,51 @@ export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: R
   const mergedValue = crossingWeight(problem, assignment);
   control.onStep?.(blockCount / (blockCount + 1), mergedValue);
 
-  // 4. 1-flip refinement on the whole network (free depots only).
-  const st = createFlipState(network, assignment);
-  const refineFlips = polishMaxcut(problem, st, freeDepots(problem.pins));
+  // 4. Improvement rounds: each block again, its surroundings fixed; 1-flip refinement between.
+  let current = assignment;
+  let currentValue = mergedValue;
+  const freeAll = freeDepots(problem.pins);
+  const polish = (a: ArrayLike<number>) => {
+    const st = createFlipState(network, a);
+    const flips = polishMaxcut(problem, st, freeAll);
+    return { sides: Int32Array.from(st.side), flips, value: st.cut };
+  };
+  let refineFlips = 0;
+  let roundsGain = 0;
+  for (let round = 0; round < opts.rounds && blockCount > 1 && !control.shouldStop(); round++) {
+    const polished = polish(current);
+    refineFlips += polished.flips;
+    current = polished.sides;
+    const startValue = crossingWeight(problem, current);
+    currentValue = startValue;
+    for (const list of members) {
+      if (control.shouldStop()) break;
+      const { sub } = blockInContext(problem, list, current);
+      const encoding = encodeMaxCut(sub);
+      if (encoding.numQubits === 0) continue;
+      const out = runQaoa({
+        encoding, layers: opts.layers, optimizer: opts.shots > 0 ? 'spsa' : 'nelder-mead', shots: opts.shots, readoutShots: opts.readoutShots,
+        restarts: 1, maxIterations: opts.maxIterations, rng, shouldStop: () => control.shouldStop(),
+      });
+      evaluations += out.evaluations;
+      shots += out.shotsUsed;
+      if (!out.best) continue;
+      const trial = current.slice();
+      list.forEach((v, i) => (trial[v] = out.best!.assignment[i]));
+      const value = crossingWeight(problem, trial);
+      if (value > currentValue + 1e-12) {
+        current = trial;
+        currentValue = value;
+      }
+    }
+    roundsGain += currentValue - startValue;
+    control.onStep?.(1, currentValue);
+    if (currentValue <= startValue + 1e-12) break; // a round that changed nothing: later ones would not either
+  }
+
+  // 5. Final 1-flip refinement on the whole network (free depots only).
+  const st = createFlipState(network, current);
+  refineFlips += polishMaxcut(problem, st, freeAll);
   const final = Int32Array.from(st.side);
   return {
     assignment: final,
@@ -244,6 +325,7 @@ export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: R
     blockOf,
     merge: { method: mergeMethod, blocks: blockCount, gain: mergedValue - beforeMerge },
     mergedValue,
+    roundsGain,
     refineFlips,
     evaluations,
     shots,

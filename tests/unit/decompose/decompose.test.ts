@@ -120,7 +120,7 @@ describe('qaoa-blocks solver', () => {
 
   test('keeps pins and merges by QAOA when there are more free blocks than the exact limit', () => {
     const problem = maxcut(40, randomGraph(40, 0.15, 21), { 0: 1, 39: 0 });
-    const out = decomposeMaxcut(problem, { blockSize: 6, layers: 1, shots: 0, readoutShots: 256, restarts: 1, maxIterations: 40, mergeExactLimit: 3 }, createRng(2), { shouldStop: () => false });
+    const out = decomposeMaxcut(problem, { blockSize: 6, layers: 1, shots: 0, readoutShots: 256, restarts: 1, maxIterations: 40, mergeExactLimit: 3, rounds: 1 }, createRng(2), { shouldStop: () => false });
     expect(out.merge.method).toBe('qaoa');
     expect(out.assignment[0]).toBe(1);
     expect(out.assignment[39]).toBe(0);

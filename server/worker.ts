@@ -1,0 +1,113 @@
+/**
+ * Solve worker process (`npm run worker`): takes jobs from the solve queue and runs the engine
+ * in solve threads. Start any number of them, on any machine that reaches MariaDB and Redis.
+ * A worker killed mid-job loses nothing: its queue lock lapses, another worker's stalled-job
+ * check puts the job back, and the guarded result write keeps the outcome to exactly one.
+ */
+import { Worker } from 'bullmq';
+import { Redis } from 'ioredis';
+import { loadConfig, ConfigError } from './config';
+import { createDeps, closeDeps, type Deps } from './deps';
+import { databaseUp } from './db';
+import { loadRunsConfig, type RunsConfig } from './services/queue-config';
+import { CANCEL_CHANNEL, closeSolveQueue, reconcileQueue, type SolveJobData } from './services/queue';
+import { CANCEL_GRACE_MS, createJobProcessor, markEntryFailed, workerName, type ProcessorEnv } from './workers/process-job';
+import { createThreadSlot } from './workers/thread-slot';
+
+export interface StartedWorker {
+  deps: Deps;
+  config: RunsConfig;
+  stop: () => Promise<void>;
+}
+
+async function waitForTables(deps: Deps, seconds: number): Promise<void> {
+  const deadline = Date.now() + seconds * 1000;
+  for (;;) {
+    if (await databaseUp(deps.db)) {
+      try {
+        await deps.db.query('SELECT 1 FROM run_jobs LIMIT 1');
+        return;
+      } catch {
+        // tables come from the API server's migrations; wait for them
+      }
+    }
+    if (Date.now() > deadline) throw new ConfigError(`MariaDB at ${deps.config.DB_HOST}:${deps.config.DB_PORT} is not reachable or not migrated after ${seconds} s; start the API server first (npm start does both)`);
+    await new Promise((r) => setTimeout(r, 500));
+  }
+}
+
+export async function startWorker(): Promise<StartedWorker> {
+  const config = loadConfig();
+  const rc = loadRunsConfig();
+  const deps = createDeps(config);
+  await waitForTables(deps, 60);
+
+  const env: ProcessorEnv = {
+    deps,
+    config: rc,
+    slots: Array.from({ length: rc.WORKER_CONCURRENCY }, () => createThreadSlot()),
+    running: new Map(),
+    workerName: workerName(),
+  };
+  const allSlots = [...env.slots];
+  const processor = createJobProcessor(env);
+
+  const subscriber = new Redis(config.REDIS_URL, { maxRetriesPerRequest: null });
+  subscriber.on('error', () => {});
+  subscriber.on('message', (_channel: string, message: string) => {
+    env.running.get(Number(message))?.cancel(CANCEL_GRACE_MS);
+  });
+  await subscriber.subscribe(CANCEL_CHANNEL);
+
+  const connection = new Redis(config.REDIS_URL, { maxRetriesPerRequest: null });
+  connection.on('error', () => {});
+  const worker = new Worker<SolveJobData>(rc.RUN_QUEUE_NAME, processor, {
+    connection,
+    concurrency: rc.WORKER_CONCURRENCY,
+    lockDuration: rc.RUN_LOCK_MS,
+    stalledInterval: rc.RUN_STALLED_INTERVAL_MS,
+    maxStalledCount: rc.RUN_MAX_STALLED,
+  });
+  worker.on('error', (err) => deps.logger.warn({ err }, 'solve worker: queue error'));
+  worker.on('failed', (entry, err) => {
+    if (!entry) return;
+    const final = entry.attemptsMade >= (entry.opts.attempts ?? 1) || /stalled/i.test(err.message);
+    deps.logger.warn({ err: err.message, job: entry.id, final }, 'solve worker: queue entry failed');
+    if (final) void markEntryFailed(deps, entry.data, /stalled/i.test(err.message) ? 'the job was interrupted too many times (its worker kept stopping); retry it' : `the job could not be processed: ${err.message}`).catch(() => {});
+  });
+  await worker.waitUntilReady();
+  await reconcileQueue(deps).catch((err) => deps.logger.warn({ err }, 'solve worker: reconcile failed'));
+  deps.logger.info({ queue: rc.RUN_QUEUE_NAME, concurrency: rc.WORKER_CONCURRENCY, worker: env.workerName }, 'solve worker ready');
+
+  const stop = async () => {
+    await worker.close();
+    await Promise.allSettled(allSlots.map((s) => s.close()));
+    subscriber.disconnect();
+    connection.disconnect();
+    await closeSolveQueue(deps);
+    await closeDeps(deps);
+  };
+  return { deps, config: rc, stop };
+}
+
+if (require.main === module) {
+  startWorker()
+    .then(({ deps, stop }) => {
+      console.log('spinyard: solve worker ready');
+      let stopping = false;
+      const shutdown = (signal: string) => {
+        if (stopping) return;
+        stopping = true;
+        deps.logger.info({ signal }, 'solve worker stopping (running jobs finish or are picked up by another worker)');
+        const force = setTimeout(() => process.exit(0), 10_000);
+        force.unref();
+        stop().then(() => process.exit(0), () => process.exit(1));
+      };
+      process.on('SIGINT', () => shutdown('SIGINT'));
+      process.on('SIGTERM', () => shutdown('SIGTERM'));
+    })
+    .catch((err) => {
+      console.error(`spinyard worker: ${err instanceof ConfigError ? err.message : err?.stack ?? err}`);
+      process.exit(err instanceof ConfigError ? 2 : 1);
+    });
+}

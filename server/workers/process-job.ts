@@ -1,0 +1,168 @@
+import { hostname } from 'node:os';
+import type { Job } from 'bullmq';
+import type { Redis } from 'ioredis';
+import type { Deps } from '../deps';
+import type { SolveProgress } from '../../shared/engine/solvers/types';
+import type { ProblemSpec } from '../../shared/engine/problem/types';
+import type { JobStatus } from '../../shared/schemas/runs';
+import type { RunJobRow } from '../models/run-job';
+import type { RunRow } from '../models/run';
+import { getVersionDocument } from '../services/networks';
+import { cancelKey, runChannel, type RunEvent, type SolveJobData } from '../services/queue';
+import type { RunsConfig } from '../services/queue-config';
+import { refreshRunStatus } from '../services/runs-status';
+import type { SlotRun, ThreadSlot } from './thread-slot';
+
+/**
+ * The queue processor of a worker process: claim the job row (attempt + 1, guarded), run the
+ * solver in one of this process's solve threads, publish progress, honour cancel requests, and
+ * store the outcome only while the claim still holds (UPDATE … WHERE status = 'running' AND
+ * attempt = mine) — so a job taken over after a worker died is stored exactly once.
+ */
+export interface ProcessorEnv {
+  deps: Deps;
+  config: RunsConfig;
+  /** Free solve threads (one per concurrency slot). */
+  slots: ThreadSlot[];
+  /** Running jobs of this process by job id (the cancel subscriber looks them up). */
+  running: Map<number, SlotRun>;
+  workerName: string;
+}
+
+export type ProcessOutcome = 'stale' | 'finished-elsewhere' | 'claimed-elsewhere' | JobStatus | 'lost-claim';
+
+/** Cancel grace: the solver gets this long to return its best answer before its thread is stopped. */
+export const CANCEL_GRACE_MS = 800;
+
+export function workerName(): string {
+  return `${hostname()}#${process.pid}`;
+}
+
+async function publish(redis: Redis, event: RunEvent): Promise<void> {
+  try {
+    await redis.publish(runChannel(event.runId), JSON.stringify(event));
+  } catch {
+    // live events are a convenience; the row is the truth
+  }
+}
+
+/** Hard limit for one job: its time limit, the bound computation after it (≤ 10 s), a grace. */
+export function hardLimitMs(timeLimitSeconds: number, graceSeconds: number): number {
+  const bounds = Math.min(10, Math.max(0.5, timeLimitSeconds / 5));
+  return Math.round((timeLimitSeconds + bounds + graceSeconds) * 1000);
+}
+
+export function createJobProcessor(env: ProcessorEnv) {
+  const { deps, config } = env;
+  const { RunJob, Run } = deps.models;
+
+  const finishRow = async (jobId: number, attempt: number, fields: Partial<RunJobRow>): Promise<boolean> => {
+    const [changed] = await RunJob.update({ ...fields, finishedAt: new Date() }, { where: { id: jobId, status: 'running', attempt } });
+    return changed === 1;
+  };
+
+  return async function processSolveJob(entry: Job<SolveJobData>): Promise<ProcessOutcome> {
+    const { jobId, generation } = entry.data;
+    const found = await RunJob.findByPk(jobId);
+    if (!found) return 'stale';
+    const row = found.get({ plain: true }) as RunJobRow;
+    if (row.generation !== generation) return 'stale';
+    if (row.status !== 'queued' && row.status !== 'running') return 'finished-elsewhere';
+    const run = (await Run.findByPk(row.runId))?.get({ plain: true }) as RunRow | undefined;
+
+    // Cancelled (or deleted) before this worker got to it: record that without running.
+    if (!run || run.deletedAt || (await deps.redis.exists(cancelKey(jobId))) === 1) {
+      const [changed] = await RunJob.update(
+        { status: 'cancelled', finishedAt: new Date(), error: run && !run.deletedAt ? 'cancelled before it started' : 'the run was deleted' },
+        { where: { id: jobId, generation, status: ['queued', 'running'] } },
+      );
+      if (run) await refreshRunStatus(deps, run.id);
+      if (changed && run) await publish(deps.redis, { type: 'status', runId: run.id, jobId, status: 'cancelled' });
+      return 'cancelled';
+    }
+
+    const attempt = row.attempt + 1;
+    const [claimed] = await RunJob.update(
+      { status: 'running', attempt, startedAt: new Date(), worker: env.workerName, progress: 0, live: null, error: null },
+      { where: { id: jobId, generation, attempt: row.attempt, status: ['queued', 'running'] } },
+    );
+    if (claimed !== 1) return 'claimed-elsewhere';
+    await refreshRunStatus(deps, run.id);
+    await publish(deps.redis, { type: 'status', runId: run.id, jobId, status: 'running' });
+
+    const slot = env.slots.pop();
+    if (!slot) throw new Error('no free solve thread (concurrency and slots disagree)');
+    try {
+      const document = await getVersionDocument(deps, run.organisationId, run.versionId);
+      let lastWrite = 0, lastPublish = 0;
+      let pendingWrite: Promise<unknown> = Promise.resolve();
+      const onProgress = (p: SolveProgress) => {
+        const now = Date.now();
+        const live = { fraction: p.fraction, iteration: p.iteration, bestValue: p.bestValue, energy: p.energy, stdError: p.stdError };
+        if (now - lastPublish >= 200) {
+          lastPublish = now;
+          void publish(deps.redis, { type: 'progress', runId: run.id, jobId, progress: p.fraction, live });
+        }
+        if (now - lastWrite >= config.RUN_PROGRESS_WRITE_MS) {
+          lastWrite = now;
+          pendingWrite = RunJob.update({ progress: Math.min(1, Math.max(0, p.fraction)), live: JSON.stringify(live) }, { where: { id: jobId, status: 'running', attempt } }).catch(() => {});
+        }
+      };
+      const handle = slot.run(
+        {
+          document,
+          problem: JSON.parse(run.problem) as ProblemSpec,
+          solver: row.solver,
+          settings: JSON.parse(row.settings) as Record<string, unknown>,
+          seed: run.seed,
+          timeLimitSeconds: run.timeLimitSeconds,
+        },
+        { hardLimitMs: hardLimitMs(run.timeLimitSeconds, config.RUN_GRACE_SECONDS), onProgress },
+      );
+      env.running.set(jobId, handle);
+      // The pub/sub message normally arrives first; this poll covers a missed message.
+      const poll = setInterval(() => {
+        deps.redis.exists(cancelKey(jobId)).then((n) => { if (n === 1) handle.cancel(CANCEL_GRACE_MS); }, () => {});
+      }, 500);
+      const outcome = await handle.outcome.finally(() => {
+        clearInterval(poll);
+        env.running.delete(jobId);
+      });
+      await pendingWrite;
+
+      let status: JobStatus;
+      let fields: Partial<RunJobRow>;
+      if (outcome.kind === 'done') {
+        status = outcome.cancelled ? 'cancelled' : 'succeeded';
+        fields = { status, result: JSON.stringify(outcome.result), progress: 1, error: outcome.cancelled ? 'cancelled; the best answer found until then is kept' : null };
+      } else if (outcome.kind === 'error') {
+        status = 'failed';
+        fields = { status, error: outcome.message };
+      } else {
+        status = outcome.reason === 'cancel' ? 'cancelled' : 'failed';
+        fields = { status, error: outcome.message };
+      }
+      const stored = await finishRow(jobId, attempt, fields);
+      await refreshRunStatus(deps, run.id);
+      await publish(deps.redis, { type: 'status', runId: run.id, jobId, status });
+      return stored ? status : 'lost-claim';
+    } finally {
+      env.slots.push(slot);
+    }
+  };
+}
+
+/**
+ * A queue entry that failed for good at queue level (stalled too often, database unreachable
+ * on every attempt): record it on the row unless the row already moved on.
+ */
+export async function markEntryFailed(deps: Deps, data: SolveJobData, reason: string): Promise<void> {
+  const [changed] = await deps.models.RunJob.update(
+    { status: 'failed', finishedAt: new Date(), error: reason },
+    { where: { id: data.jobId, generation: data.generation, status: ['queued', 'running'] } },
+  );
+  if (changed) {
+    await refreshRunStatus(deps, data.runId);
+    await publish(deps.redis, { type: 'status', runId: data.runId, jobId: data.jobId, status: 'failed' });
+  }
+}

@@ -1,0 +1,22 @@
+import type { NetworkDocument } from '../../shared/engine/network/types';
+import type { ProblemSpec } from '../../shared/engine/problem/types';
+import type { SolveProgress } from '../../shared/engine/solvers/types';
+import type { RunResult } from '../../shared/engine/solvers/orchestrate';
+
+/** What the worker's main thread sends a solve thread (plain data, structured-cloned). */
+export interface SolveTask {
+  document: NetworkDocument;
+  problem: ProblemSpec;
+  solver: string;
+  settings: Record<string, unknown>;
+  seed: number;
+  timeLimitSeconds: number;
+  /** Int32Array(1) over a SharedArrayBuffer: 1 = stop. Read by the CancelToken even while the thread is busy. */
+  cancelFlag: SharedArrayBuffer;
+}
+
+/** Messages a solve thread posts back. */
+export type SolveThreadMessage =
+  | { type: 'progress'; progress: SolveProgress }
+  | { type: 'done'; result: RunResult; cancelled: boolean }
+  | { type: 'error'; message: string; userError: boolean };

@@ -1,0 +1,42 @@
+/**
+ * Inside a solve thread: build the network, bind the problem and run the engine's orchestrator
+ * (the same solveProblem the CLI uses). CPU-heavy and possibly synchronous for seconds, which is
+ * why it runs here and not in the worker's main thread (that one must keep renewing queue locks).
+ */
+import { parentPort } from 'node:worker_threads';
+import { buildCompactNetwork } from '../../shared/engine/network/build';
+import { bindProblem } from '../../shared/engine/problem/bind';
+import { solveProblem } from '../../shared/engine/solvers/orchestrate';
+import type { SolveProgress } from '../../shared/engine/solvers/types';
+import type { SolveTask, SolveThreadMessage } from './solve-task';
+
+// Errors that describe the user's input (shown as they are) rather than a fault of ours.
+const USER_ERRORS = new Set(['SettingsError', 'SolverRefusedError', 'ProblemError', 'NetworkError', 'UnknownSolverError']);
+
+const post = (msg: SolveThreadMessage) => parentPort!.postMessage(msg);
+
+async function handle(task: SolveTask): Promise<void> {
+  const flag = new Int32Array(task.cancelFlag);
+  const cancel = { get cancelled() { return Atomics.load(flag, 0) === 1; } };
+  let last = 0;
+  const onProgress = (progress: SolveProgress) => {
+    const now = Date.now();
+    if (now - last < 100 && progress.fraction < 1) return;
+    last = now;
+    post({ type: 'progress', progress: { ...progress } });
+  };
+  try {
+    const network = buildCompactNetwork(task.document);
+    const problem = bindProblem(network, task.problem);
+    const result = await solveProblem(problem, task.solver, task.settings, { seed: task.seed, timeLimitSeconds: task.timeLimitSeconds, cancel, onProgress });
+    post({ type: 'done', result, cancelled: cancel.cancelled });
+  } catch (e) {
+    const err = e as Error;
+    const userError = USER_ERRORS.has(err?.name);
+    post({ type: 'error', message: userError ? err.message : `internal error in the solver: ${err?.message ?? String(e)}`, userError });
+  }
+}
+
+parentPort!.on('message', (task: SolveTask) => {
+  void handle(task);
+});

@@ -1,0 +1,101 @@
+import { Worker } from 'node:worker_threads';
+import * as path from 'node:path';
+import type { SolveProgress } from '../../shared/engine/solvers/types';
+import type { RunResult } from '../../shared/engine/solvers/orchestrate';
+import type { SolveTask, SolveThreadMessage } from './solve-task';
+
+/**
+ * One solve slot of a worker process: a long-lived thread that runs one task at a time (so the
+ * engine is loaded once, not per job). A thread that must be stopped — cancel not honoured in
+ * time, hard time limit passed, crash — is terminated and a fresh one starts with the next task.
+ */
+export type SlotOutcome =
+  | { kind: 'done'; result: RunResult; cancelled: boolean }
+  | { kind: 'error'; message: string; userError: boolean }
+  | { kind: 'killed'; reason: 'cancel' | 'timeout' | 'crash'; message: string };
+
+export interface SlotRun {
+  outcome: Promise<SlotOutcome>;
+  /** Ask the solver to stop (it returns its best so far); terminate the thread after `graceMs` if it does not. */
+  cancel(graceMs: number): void;
+}
+
+export interface ThreadSlot {
+  run(task: Omit<SolveTask, 'cancelFlag'>, opts: { hardLimitMs: number; onProgress: (p: SolveProgress) => void }): SlotRun;
+  close(): Promise<void>;
+}
+
+const ENTRY = path.join(__dirname, 'solve-thread.cjs');
+
+export function createThreadSlot(): ThreadSlot {
+  let worker: Worker | null = null;
+  const fresh = (): Worker => {
+    if (!worker) {
+      worker = new Worker(ENTRY);
+      worker.unref();
+    }
+    return worker;
+  };
+  const kill = (w: Worker) => {
+    if (worker === w) worker = null;
+    void w.terminate();
+  };
+  return {
+    run(task, opts) {
+      const w = fresh();
+      const flagBuffer = new SharedArrayBuffer(4);
+      const flag = new Int32Array(flagBuffer);
+      let settle!: (o: SlotOutcome) => void;
+      const outcome = new Promise<SlotOutcome>((resolve) => (settle = resolve));
+      let settled = false;
+      let cancelTimer: NodeJS.Timeout | null = null;
+      const finish = (o: SlotOutcome) => {
+        if (settled) return;
+        settled = true;
+        clearTimeout(hard);
+        if (cancelTimer) clearTimeout(cancelTimer);
+        w.off('message', onMessage);
+        w.off('error', onError);
+        w.off('exit', onExit);
+        settle(o);
+      };
+      const onMessage = (msg: SolveThreadMessage) => {
+        if (msg.type === 'progress') opts.onProgress(msg.progress);
+        else if (msg.type === 'done') finish({ kind: 'done', result: msg.result, cancelled: msg.cancelled });
+        else finish({ kind: 'error', message: msg.message, userError: msg.userError });
+      };
+      const onError = (err: Error) => {
+        kill(w);
+        finish({ kind: 'killed', reason: 'crash', message: `the solver thread crashed: ${err.message}` });
+      };
+      const onExit = (code: number) => {
+        if (worker === w) worker = null;
+        finish({ kind: 'killed', reason: 'crash', message: `the solver thread stopped unexpectedly (exit code ${code})` });
+      };
+      const hard = setTimeout(() => {
+        kill(w);
+        finish({ kind: 'killed', reason: 'timeout', message: `stopped after ${Math.round(opts.hardLimitMs / 1000)} s: the solver went past its time limit and grace period` });
+      }, opts.hardLimitMs);
+      w.on('message', onMessage);
+      w.on('error', onError);
+      w.on('exit', onExit);
+      w.postMessage({ ...task, cancelFlag: flagBuffer } satisfies SolveTask);
+      return {
+        outcome,
+        cancel(graceMs) {
+          if (settled || Atomics.load(flag, 0) === 1) return;
+          Atomics.store(flag, 0, 1);
+          cancelTimer = setTimeout(() => {
+            kill(w);
+            finish({ kind: 'killed', reason: 'cancel', message: 'cancelled; the solver was stopped before it returned an answer' });
+          }, graceMs);
+        },
+      };
+    },
+    async close() {
+      const w = worker;
+      worker = null;
+      if (w) await w.terminate();
+    },
+  };
+}
