@@ -201,6 +201,8 @@ export function createChunkWalk(problem: Problem, plan: ExactPlan, chunk: number
       }
       return outerStep >= outerCount;
     },
+    /** Best value so far in this chunk (±∞ before a feasible state). */
+    bestValue: (): number => bestValue,
     /** Outer steps per chunk (for progress). */
     outerCount,
     result(): ExactBest {

@@ -132,7 +132,8 @@ export const exactSolver: SolverDefinition<ExactSettings> = {
       outer: for (let c = 0; c < chunks; c++) {
         const walk = createChunkWalk(problem, plan, c);
         while (!walk.run(16)) {
-          if (await control.tick(best.assignment ? best.value : undefined)) {
+          const sofar = problem.kind === 'maxcut' ? Math.max(best.value, walk.bestValue()) : Math.min(best.value, walk.bestValue());
+          if (await control.tick(Number.isFinite(sofar) ? sofar : undefined)) {
             best = betterExact(problem, best, { ...walk.result(), complete: false });
             break outer;
           }

@@ -112,3 +112,21 @@ export const pinsOf = (pins: Record<number, number>): Record<string, number> =>
   Object.fromEntries(Object.entries(pins).map(([i, p]) => [String(Number(i) + 1), p]));
 
 export const ctx = (timeLimitSeconds: number, seed = 7) => ({ seed, timeLimitSeconds });
+
+/** Rows of a small CSV with quoted fields (the data folders' OPTIMA.csv / best-known.csv). */
+export function readCsv(file: string): Array<Record<string, string>> {
+  const [head, ...rows] = fs.readFileSync(file, 'utf8').trim().split(/\r?\n/);
+  const split = (line: string): string[] => {
+    const out: string[] = [];
+    let cur = '', quoted = false;
+    for (const ch of line) {
+      if (ch === '"') quoted = !quoted;
+      else if (ch === ',' && !quoted) { out.push(cur); cur = ''; }
+      else cur += ch;
+    }
+    out.push(cur);
+    return out;
+  };
+  const keys = split(head);
+  return rows.map((r) => Object.fromEntries(split(r).map((v, i) => [keys[i], v])));
+}

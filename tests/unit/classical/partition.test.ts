@@ -1,5 +1,5 @@
 import * as path from 'node:path';
-import { bestSolver, exactSolver, fmSolver, tabuSolver } from '../../../shared/engine/solvers/classical';
+import { exactSolver, fmSolver } from '../../../shared/engine/solvers/classical';
 import { isBalanced, maxPartWeight, partWeights, respectsPins } from '../../../shared/engine/problem/evaluate';
 import { DATA, ctx, cycle, grid, path as pathGraph, pinsOf, problemOf, randomGraph, readInstance } from './helpers';
 
@@ -60,30 +60,3 @@ describe('fm respects the balance rule (several tolerances, weighted depots) and
   });
 });
 
-describe('best: portfolio answer with bound and gap', () => {
-  test('small max-cut: exact proves the optimum', async () => {
-    const problem = problemOf(18, randomGraph(18, 0.4, 61, 'pm1'));
-    const r = await bestSolver.solve(problem, bestSolver.parseSettings({ threads: 1 }), ctx(5));
-    const opt = await exactSolver.solve(problem, exactSolver.parseSettings({ threads: 1 }), ctx(5));
-    expect(r.value).toBe(opt.value);
-    expect(r.provenOptimal).toBe(true);
-    expect(r.gap).toBe(0);
-  });
-  test('medium max-cut (n = 80): tabu + MILP; bound ≥ value, gap ≥ 0, pins kept', async () => {
-    const problem = problemOf(80, randomGraph(80, 0.05, 62, 'unit'), { pins: pinsOf({ 0: 1 }) });
-    const r = await bestSolver.solve(problem, bestSolver.parseSettings({}), ctx(4));
-    expect(r.bound).not.toBeNull();
-    expect(r.bound!).toBeGreaterThanOrEqual(r.value);
-    expect(r.gap!).toBeGreaterThanOrEqual(0);
-    expect(respectsPins(problem, r.assignment)).toBe(true);
-    const tabu = await tabuSolver.solve(problem, tabuSolver.parseSettings({}), ctx(1));
-    expect(r.value).toBeGreaterThanOrEqual(tabu.value - 2); // at least as strong as its own part, give or take run noise
-  }, 30000);
-  test('bisection: balanced answer with a lower bound ≤ value', async () => {
-    const problem = problemOf(200, randomGraph(200, 0.03, 63, 'real'), { kind: 'bisection' });
-    const r = await bestSolver.solve(problem, bestSolver.parseSettings({}), ctx(2));
-    expect(isBalanced(problem, r.assignment)).toBe(true);
-    expect(r.bound!).toBeLessThanOrEqual(r.value + 1e-9);
-    expect(r.gap!).toBeGreaterThanOrEqual(0);
-  }, 30000);
-});

@@ -1,0 +1,22 @@
+import * as path from 'node:path';
+import { tabuSolver } from '../../../shared/engine/solvers/classical';
+import { DATA, ctx, problemOf, readCsv, readInstance } from './helpers';
+
+
+// G-set (Helmberg & Rendl, SIAM J. Optim. 10(3) 2000); best-known cuts from Benlic & Hao,
+// "Breakout local search for the max-cut problem", Eng. Appl. AI 26(3) (2013).
+const bestKnown = readCsv(path.join(DATA, 'gset/best-known.csv'));
+
+describe('G-set: tabu within 0.5 % of the best known cut (Benlic & Hao 2013)', () => {
+  test.each(['G11', 'G14'])('%s within 10 s', async (name) => {
+    const row = bestKnown.find((r) => r.instance === name)!;
+    const best = Number(row.best_known);
+    const { n, edges } = readInstance(path.join(DATA, 'gset', `${name}.txt`));
+    const problem = problemOf(n, edges);
+    const threshold = Math.ceil(0.995 * best);
+    const r = await tabuSolver.solve(problem, tabuSolver.parseSettings({ target: threshold }), ctx(10, 1));
+    expect(r.value).toBeGreaterThanOrEqual(threshold);
+    expect(r.value).toBeLessThanOrEqual(best); // a value above the best known would need a second look
+    expect(r.value).toBeLessThanOrEqual(Number(row.sdp_upper_bound)); // certified SDP bound in the csv
+  }, 20000);
+});
