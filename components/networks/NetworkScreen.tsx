@@ -16,7 +16,6 @@ import { formatWhen } from './format';
 import { NetworkWorkspace } from './NetworkWorkspace';
 import { VersionsPanel } from './VersionsPanel';
 import { NewRunButton } from '../runs/NewRunButton';
-import { NewRunButton } from '../runs/NewRunButton';
 
 /** /networks/:id — the latest version (or an opened older one) in the drawing and tables. */
 export function NetworkScreen(props: { id: number }) {
