@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { ActivityIndicator, StyleSheet, View, useWindowDimensions } from 'react-native';
+import { useRouter } from 'expo-router';
 import { can } from '../../shared/permissions';
 import { useMeQuery } from '../queries/auth';
 import { useAuditQuery } from '../queries/audit';
@@ -16,6 +17,7 @@ const PAGE_SIZE = 25;
 
 /** The organisation's audit log for admins: who did what, when, from where; newest first. */
 export function AuditLog() {
+  const router = useRouter();
   const me = useMeQuery();
   const allowed = can(me.data?.current?.role, 'audit:read');
   const [page, setPage] = useState(1);
@@ -31,7 +33,12 @@ export function AuditLog() {
   }
   const pages = q.data ? Math.max(1, Math.ceil(q.data.total / PAGE_SIZE)) : 1;
   return (
-    <Screen title="Audit log" subtitle="Sign-ins, membership and role changes, invitations and tokens" testID="audit-screen">
+    <Screen
+      title="Audit log"
+      subtitle="Sign-ins, membership and role changes, invitations and tokens"
+      testID="audit-screen"
+      actions={<Button label="Back to team" tone="secondary" onPress={() => router.push('/team')} />}
+    >
       {q.isPending ? (
         <View style={styles.center}>
           <ActivityIndicator color={colors.ink} accessibilityLabel="Loading the audit log" />

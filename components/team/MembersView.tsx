@@ -12,10 +12,11 @@ import { formatDate } from './format';
 import { RoleBadge, RolePicker } from './RolePicker';
 
 /** What the viewer may do to one member (mirrors the server's rules; the server checks again). */
-export function memberActions(myRole: Role | null, target: Member): { changeRole: boolean; remove: boolean; roleOptions: Role[] } {
+export function memberActions(myRole: Role | null, target: Member, ownerCount: number): { changeRole: boolean; remove: boolean; roleOptions: Role[] } {
   const manage = can(myRole, 'members:manage');
   const owner = myRole === 'owner';
-  const mayTouch = manage && (target.role !== 'owner' || owner);
+  const lastOwner = target.role === 'owner' && ownerCount <= 1; // the organisation always keeps an owner
+  const mayTouch = manage && (target.role !== 'owner' || owner) && !lastOwner;
   return { changeRole: mayTouch, remove: mayTouch, roleOptions: ROLES.filter((r) => r !== 'owner' || owner) };
 }
 
@@ -23,6 +24,7 @@ export function memberActions(myRole: Role | null, target: Member): { changeRole
 export function MembersView(props: { members: Member[]; myRole: Role | null; myUserId: number }) {
   const { width } = useWindowDimensions();
   const wide = width >= WIDE_BREAKPOINT;
+  const ownerCount = props.members.filter((m) => m.role === 'owner').length;
   return (
     <Card style={styles.card} testID={wide ? 'members-table' : 'members-list'}>
       {wide ? (
@@ -31,19 +33,19 @@ export function MembersView(props: { members: Member[]; myRole: Role | null; myU
           <Label style={styles.cEmail}>E-mail</Label>
           <Label style={styles.cRole}>Role</Label>
           <Label style={styles.cDate}>Joined</Label>
-          <Label style={styles.cActions}>Actions</Label>
+          <Label style={[styles.cActions, styles.right]}>Actions</Label>
         </View>
       ) : null}
       {props.members.map((m) => (
-        <MemberRow key={m.id} member={m} wide={wide} myRole={props.myRole} isMe={m.userId === props.myUserId} />
+        <MemberRow key={m.id} member={m} wide={wide} myRole={props.myRole} isMe={m.userId === props.myUserId} ownerCount={ownerCount} />
       ))}
     </Card>
   );
 }
 
-function MemberRow(props: { member: Member; wide: boolean; myRole: Role | null; isMe: boolean }) {
+function MemberRow(props: { member: Member; wide: boolean; myRole: Role | null; isMe: boolean; ownerCount: number }) {
   const m = props.member;
-  const allowed = memberActions(props.myRole, m);
+  const allowed = memberActions(props.myRole, m, props.ownerCount);
   const [mode, setMode] = useState<'idle' | 'role' | 'remove'>('idle');
   const changeRole = useMemberRoleMutation();
   const remove = useMemberRemoveMutation();
@@ -127,6 +129,7 @@ const styles = StyleSheet.create({
   cRole: { flex: 1.2 },
   cDate: { flex: 1.2 },
   cActions: { flex: 3, alignItems: 'flex-end' },
+  right: { textAlign: 'right' },
   cardHead: { flexDirection: 'row', alignItems: 'flex-start', justifyContent: 'space-between', gap: space.sm },
   cardTitle: { flex: 1, minWidth: 0, gap: 2 },
   name: { fontFamily: fonts.semibold },

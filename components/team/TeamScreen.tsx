@@ -1,9 +1,9 @@
-import { ActivityIndicator, StyleSheet, View } from 'react-native';
+import { ActivityIndicator, StyleSheet, View, useWindowDimensions } from 'react-native';
 import { useRouter } from 'expo-router';
 import { can } from '../../shared/permissions';
 import { useMeQuery } from '../queries/auth';
 import { useMembersQuery } from '../queries/members';
-import { colors, space } from '../theme';
+import { colors, space, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { EmptyState } from '../ui/EmptyState';
 import { Notice } from '../ui/Notice';
@@ -22,6 +22,7 @@ export function TeamScreen() {
   const seats = members.data?.seats;
   const subtitle = seats ? `${seats.used} of ${seats.limit} seats in use · ${seats.planLabel} plan` : undefined;
   const canManage = can(role, 'members:manage');
+  const wide = useWindowDimensions().width >= WIDE_BREAKPOINT;
   if (!me.data?.current) {
     return (
       <Screen title="Team">
@@ -47,13 +48,21 @@ export function TeamScreen() {
         </Notice>
       ) : (
         <>
-          {canManage ? <InviteForm myRole={role!} seatsFull={!!seats && seats.used >= seats.limit} /> : null}
           {members.data.members.length === 0 ? (
             <EmptyState title="No members" message="This organisation has no members yet." />
           ) : (
             <MembersView members={members.data.members} myRole={role} myUserId={me.data.user.id} />
           )}
-          {canManage ? <PendingInvitations /> : null}
+          {canManage ? (
+            <View style={[styles.manage, wide && styles.manageWide]}>
+              <View style={styles.half}>
+                <InviteForm myRole={role!} seatsFull={!!seats && seats.used >= seats.limit} />
+              </View>
+              <View style={styles.half}>
+                <PendingInvitations />
+              </View>
+            </View>
+          ) : null}
         </>
       )}
     </Screen>
@@ -62,4 +71,7 @@ export function TeamScreen() {
 
 const styles = StyleSheet.create({
   center: { padding: space.xl, alignItems: 'center' },
+  manage: { gap: space.lg },
+  manageWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  half: { flex: 1, minWidth: 0 },
 });
