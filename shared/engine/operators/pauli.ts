@@ -179,3 +179,29 @@ export function exactExpectation(s: StateVector, p: PauliSum | CompiledPauliSum)
   }
   return e;
 }
+
+/**
+ * output = H·input for a real operator (c.real) on real vectors of length 2ⁿ — half the memory
+ * and arithmetic of the complex form (Lanczos on real symmetric spin models).
+ */
+export function applyCompiledReal(c: CompiledPauliSum, input: Float64Array, output: Float64Array): void {
+  if (!c.real) throw new RangeError('applyCompiledReal needs a real operator (an even number of Y in every string)');
+  const d = c.diagonal, dim = d.length;
+  if (input.length !== dim || output.length !== dim) throw new RangeError(`vectors must have 2^${c.numQubits} = ${dim} numbers`);
+  for (let x = 0; x < dim; x++) output[x] = d[x] * input[x];
+  for (const g of c.flipGroups) {
+    const { flip, zy, re } = g;
+    const T = zy.length;
+    if (T === 1 && zy[0] === 0) {
+      // A bare X-type string: no signs at all.
+      const c0 = re[0];
+      for (let x = 0; x < dim; x++) output[x ^ flip] += c0 * input[x];
+      continue;
+    }
+    for (let x = 0; x < dim; x++) {
+      let pr = 0;
+      for (let t = 0; t < T; t++) pr += parity(x & zy[t]) ? -re[t] : re[t];
+      output[x ^ flip] += pr * input[x];
+    }
+  }
+}

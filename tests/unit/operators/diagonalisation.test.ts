@@ -42,6 +42,17 @@ describe('Lanczos and dense agree on random operators', () => {
     }
   });
 
+  test('thick restarts with a small basis still converge (chain N = 10 vs closed form; complex n = 7 vs dense)', () => {
+    const r = lanczosLowest(tfimChain(10, 1, 0.7), { rng: createRng(3), krylov: 8, keep: 3 });
+    expect(r.converged).toBe(true);
+    expect(r.restarts).toBeGreaterThan(0);
+    expect(Math.abs(r.energy - pfeutyGroundEnergy(10, 1, 0.7))).toBeLessThan(1e-8);
+    const p = simplifyPauliSum(randomPauliSum(7, 20, createRng(77)));
+    const c = lanczosLowest(p, { rng: createRng(4), krylov: 10, keep: 4 });
+    expect(c.converged).toBe(true);
+    expect(Math.abs(c.energy - groundEnergyDense(p))).toBeLessThan(1e-8);
+  });
+
   test('the dense spectrum has trace and Frobenius norm of the Kronecker matrix (n = 4, with Y)', () => {
     const p = simplifyPauliSum(randomPauliSum(4, 10, createRng(5)));
     const spec = spectrumDense(p);
