@@ -1,7 +1,8 @@
 import { useState } from 'react';
 import { StyleSheet, View, useWindowDimensions } from 'react-native';
 import type { Member } from '../../shared/schemas/auth';
-import { ROLES, can, type Role } from '../../shared/permissions';
+import type { Role } from '../../shared/permissions';
+import { memberActions } from './member-actions';
 import { useMemberRemoveMutation, useMemberRoleMutation } from '../queries/members';
 import { colors, fonts, space, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
@@ -10,15 +11,6 @@ import { Body, Label, Small } from '../ui/Text';
 import { ConfirmBar } from './ConfirmBar';
 import { formatDate } from './format';
 import { RoleBadge, RolePicker } from './RolePicker';
-
-/** What the viewer may do to one member (mirrors the server's rules; the server checks again). */
-export function memberActions(myRole: Role | null, target: Member, ownerCount: number): { changeRole: boolean; remove: boolean; roleOptions: Role[] } {
-  const manage = can(myRole, 'members:manage');
-  const owner = myRole === 'owner';
-  const lastOwner = target.role === 'owner' && ownerCount <= 1; // the organisation always keeps an owner
-  const mayTouch = manage && (target.role !== 'owner' || owner) && !lastOwner;
-  return { changeRole: mayTouch, remove: mayTouch, roleOptions: ROLES.filter((r) => r !== 'owner' || owner) };
-}
 
 /** Members as cards on a phone, as a table on a wide screen. */
 export function MembersView(props: { members: Member[]; myRole: Role | null; myUserId: number }) {
