@@ -17,6 +17,14 @@ const ConfigSchema = z.object({
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(1025),
   MAIL_FROM: z.string().default('Spinyard <no-reply@spinyard.local>'),
   WEB_DIR: z.string().optional(),
+  // Payments through the official SDK; defaults point at the local fake (server/fakes/payments), see docs/billing.md.
+  STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_\S+$/, 'must start with sk_test_ or sk_live_').default('sk_test_spinyard_local_fake'),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).default('whsec_spinyard_local_fake'),
+  STRIPE_API_HOST: z.string().default('127.0.0.1'),
+  /** Unset = the local fake's port (PAYMENTS_PORT). */
+  STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).default('http'),
+  PAYMENTS_PORT: z.coerce.number().int().min(1).max(65535).default(12111),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
