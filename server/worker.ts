@@ -93,7 +93,7 @@ export async function startWorker(): Promise<StartedWorker> {
 if (require.main === module) {
   startWorker()
     .then(({ deps, stop }) => {
-      console.log('spinyard: solve worker ready');
+      console.log(`spinyard: solve worker ready (pid ${process.pid})`);
       let stopping = false;
       const shutdown = (signal: string) => {
         if (stopping) return;

@@ -87,6 +87,7 @@ export function createJobProcessor(env: ProcessorEnv) {
       { where: { id: jobId, generation, attempt: row.attempt, status: ['queued', 'running'] } },
     );
     if (claimed !== 1) return 'claimed-elsewhere';
+    deps.logger.info({ jobId, attempt, entry: entry.id, worker: env.workerName }, 'solve job claimed');
     await refreshRunStatus(deps, run.id);
     await publish(deps.redis, { type: 'status', runId: run.id, jobId, status: 'running' });
 

@@ -33,6 +33,7 @@ export function applyRunsEnv(opts: { smtpPort: number; queue: string; extra?: Re
 
 export interface WorkerChild {
   child: ChildProcess;
+  /** Pid of the node process that runs the worker (tsx may start it as a child of its own). */
   pid: number;
   output: () => string;
   /** Resolves with the exit code or signal once the process is gone. */
@@ -54,7 +55,7 @@ export async function startWorkerChild(extra: Record<string, string> = {}): Prom
   await new Promise<void>((resolve, reject) => {
     const t = setTimeout(() => reject(new Error(`worker did not get ready in 60 s:\n${out}`)), 60_000);
     const check = () => {
-      if (out.includes('solve worker ready')) {
+      if (/solve worker ready \(pid \d+\)/.test(out)) {
         clearTimeout(t);
         resolve();
       }
@@ -65,13 +66,21 @@ export async function startWorkerChild(extra: Record<string, string> = {}): Prom
       reject(new Error(`worker exited (${code}) before it was ready:\n${out}`));
     });
   });
+  const pid = Number(/solve worker ready \(pid (\d+)\)/.exec(out)?.[1] ?? child.pid);
   return {
     child,
-    pid: child.pid!,
+    pid,
     output: () => out,
     exited,
     async kill(signal = 'SIGTERM') {
-      if (child.exitCode === null && child.signalCode === null) child.kill(signal);
+      if (child.exitCode === null && child.signalCode === null) {
+        try {
+          if (pid !== child.pid) process.kill(pid, signal);
+        } catch {
+          // already gone
+        }
+        child.kill(signal);
+      }
       return exited;
     },
   };

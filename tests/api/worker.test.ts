@@ -1,0 +1,161 @@
+/**
+ * Fault tolerance of the solve service with real worker processes on the test MariaDB and
+ * Redis: a worker killed with SIGKILL mid-job (the job is recovered by another worker and its
+ * result stored exactly once), an API restart with the queue entry lost (the reconciler puts it
+ * back), Redis unreachable (503 for runs, reads still served), and the hard time limit of a
+ * solve thread.
+ */
+import request from 'supertest';
+import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail/mail-catcher';
+import {
+  applyRunsEnv, createTestApp, networkBody, orgWithTokens, randomEdges, saveNetwork, startWorkerChild, waitFor, type Edge, type TestApp, type WorkerChild,
+} from './runs-support';
+
+const SMTP_PORT = 3188;
+applyRunsEnv({ smtpPort: SMTP_PORT, queue: 'worker-test', extra: { RUN_LOCK_MS: '4000' } });
+
+let t: TestApp;
+let mail: MailCatcher;
+let org: Awaited<ReturnType<typeof orgWithTokens>>;
+const workers: WorkerChild[] = [];
+
+const as = (app: TestApp['app'], token: string) => ({
+  get: (p: string) => request(app).get(`/api${p}`).set('Authorization', `Bearer ${token}`),
+  post: (p: string, body: object = {}) => request(app).post(`/api${p}`).set('Authorization', `Bearer ${token}`).send(body),
+});
+const cutOf = (edges: Edge[], a: number[]) => edges.reduce((s, [u, v, w]) => s + (a[u] !== a[v] ? w : 0), 0);
+
+async function jobRow(jobId: number) {
+  return (await t.deps.models.RunJob.findByPk(jobId))!.get({ plain: true }) as { status: string; attempt: number; worker: string | null; result: string | null; startedAt: Date | null };
+}
+
+beforeAll(async () => {
+  mail = await startMailCatcher({ smtpPort: SMTP_PORT });
+  t = await createTestApp();
+  const { migrate } = await import('../../server/migrate');
+  await migrate(t.deps.db);
+  org = await orgWithTokens(t.deps, 'Worker yard', 'team');
+}, 60_000);
+
+afterAll(async () => {
+  await Promise.allSettled(workers.map((w) => w.kill('SIGKILL')));
+  const { closeSolveQueue } = await import('../../server/services/queue');
+  if (t) await closeSolveQueue(t.deps);
+  await t?.close();
+  await mail?.close();
+});
+
+test('a worker killed with SIGKILL mid-job: another worker takes the job over and stores its result once', async () => {
+  const edges = randomEdges(200, 0.03, 41);
+  const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Kill test', 200, edges));
+  const first = await startWorkerChild();
+  workers.push(first);
+  const created = await as(t.app, org.tokens.dispatcher).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }], timeLimitSeconds: 4 });
+  expect(created.status).toBe(201);
+  const jobId = (await as(t.app, org.tokens.viewer).get(`/runs/${created.body.id}`)).body.jobs[0].id;
+  await waitFor('the first worker to start the job', async () => {
+    const row = await jobRow(jobId);
+    return row.status === 'running' && row.worker?.endsWith(`#${first.pid}`);
+  }, 30_000);
+  await new Promise((r) => setTimeout(r, 700)); // mid-job
+  process.kill(first.pid, 'SIGKILL');
+  await first.kill('SIGKILL');
+  expect((await jobRow(jobId)).status).toBe('running'); // nobody finished it
+
+  const second = await startWorkerChild();
+  workers.push(second);
+  const run = await waitFor('the job to finish on the second worker', async () => {
+    const r = await as(t.app, org.tokens.viewer).get(`/runs/${created.body.id}`);
+    return r.body.status === 'succeeded' ? r.body : null;
+  }, 60_000, 200);
+  const row = await jobRow(jobId);
+  // 2 normally; more only if the second worker's own lock lapsed on a starved machine (then the
+  // guard below is what keeps the result single).
+  expect(row.attempt).toBeGreaterThanOrEqual(2);
+  expect(row.worker).toMatch(new RegExp(`#${second.pid}$`));
+  const result = JSON.parse(row.result!);
+  expect(cutOf(edges, result.assignment)).toBe(result.value);
+  expect(run.jobs[0].result.value).toBe(result.value);
+
+  // The first claim can never write any more: the guarded UPDATE the worker uses changes nothing.
+  for (let attempt = 1; attempt <= row.attempt; attempt++) {
+    const [stale] = await t.deps.models.RunJob.update({ status: 'succeeded', result: '{"value":0}' }, { where: { id: jobId, status: 'running', attempt } });
+    expect(stale).toBe(0);
+  }
+  expect((await jobRow(jobId)).result).toBe(row.result);
+  await second.kill('SIGTERM');
+});
+
+test('an API restart with the queue entry lost loses no run: the reconciler puts it back', async () => {
+  await Promise.allSettled(workers.map((w) => w.kill('SIGKILL'))); // no worker may take the entry meanwhile
+  const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Restart test', 12, randomEdges(12, 0.4, 5)));
+  const created = await as(t.app, org.tokens.dispatcher).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'exact' }] });
+  expect(created.status).toBe(201);
+  const { solveQueue, queueEntryId, closeSolveQueue } = await import('../../server/services/queue');
+  const jobId = (await as(t.app, org.tokens.viewer).get(`/runs/${created.body.id}`)).body.jobs[0].id;
+  const entry = await solveQueue(t.deps).queue.getJob(queueEntryId(jobId, 0));
+  expect(entry).toBeTruthy();
+  await entry!.remove(); // as if Redis had been flushed
+  expect(await solveQueue(t.deps).queue.getJob(queueEntryId(jobId, 0))).toBeUndefined();
+
+  // "Restart": a fresh API process state (new deps), whose start hook reconciles.
+  await closeSolveQueue(t.deps);
+  await t.close();
+  t = await createTestApp();
+  const { afterStart } = await import('../../server/bootstrap');
+  await afterStart(t.deps, { seedDemo: false });
+  expect(await solveQueue(t.deps).queue.getJob(queueEntryId(jobId, 0))).toBeTruthy();
+
+  const w = await startWorkerChild();
+  workers.push(w);
+  const run = await waitFor('the reconciled run to finish', async () => {
+    const r = await as(t.app, org.tokens.viewer).get(`/runs/${created.body.id}`);
+    return r.body.status === 'succeeded' ? r.body : null;
+  }, 60_000, 200);
+  expect(run.jobs[0].result.provenOptimal).toBe(true);
+  expect(run.jobs[0].attempt).toBe(1);
+  await w.kill('SIGTERM');
+});
+
+test('with Redis unreachable, starting runs answers 503 and saved runs can still be read', async () => {
+  const { loadConfig } = await import('../../server/config');
+  const { createDeps, closeDeps } = await import('../../server/deps');
+  const { createApp } = await import('../../server/app');
+  const { serverExtras } = await import('../../server/bootstrap');
+  const deps = createDeps(loadConfig({ ...process.env, REDIS_URL: 'redis://127.0.0.1:1' }));
+  const { app, dispose } = createApp(deps, serverExtras(deps));
+  try {
+    const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Redis down', 5, [[0, 1, 1], [1, 2, 1]]));
+    const res = await as(app, org.tokens.dispatcher).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }] });
+    expect(res.status).toBe(503);
+    expect(res.body.error).toMatch(/queue/);
+    expect(await deps.models.Run.count({ where: { versionId: net.versionId } })).toBe(0); // nothing half-written
+    const list = await as(app, org.tokens.viewer).get('/runs');
+    expect(list.status).toBe(200);
+    expect(list.body.length).toBeGreaterThan(0);
+    expect((await as(app, org.tokens.viewer).get(`/runs/${list.body[0].id}`)).status).toBe(200);
+  } finally {
+    dispose();
+    await closeDeps(deps);
+  }
+});
+
+test('a solve thread past its hard limit is terminated and the slot starts a fresh thread', async () => {
+  const { createThreadSlot } = await import('../../server/workers/thread-slot');
+  const slot = createThreadSlot();
+  const document = networkBody('Hard limit', 300, randomEdges(300, 0.02, 8));
+  try {
+    const started = Date.now();
+    // tabu honours its own 30 s limit; the hard limit (1.5 s here) must stop it first.
+    const slow = slot.run({ document, problem: { kind: 'maxcut' }, solver: 'tabu', settings: {}, seed: 1, timeLimitSeconds: 30 }, { hardLimitMs: 1500, onProgress: () => {} });
+    const outcome = await slow.outcome;
+    expect(outcome).toMatchObject({ kind: 'killed', reason: 'timeout' });
+    expect((outcome as { message: string }).message).toMatch(/time limit and grace/);
+    expect(Date.now() - started).toBeLessThan(4000);
+    const next = await slot.run({ document: networkBody('Tiny', 4, [[0, 1, 1], [1, 2, 1], [2, 3, 1]]), problem: { kind: 'maxcut' }, solver: 'exact', settings: {}, seed: 1, timeLimitSeconds: 5 }, { hardLimitMs: 30_000, onProgress: () => {} }).outcome;
+    expect(next.kind).toBe('done');
+    expect((next as { result: { value: number } }).result.value).toBe(3); // a path's max-cut is its lane count (bipartite, common practice)
+  } finally {
+    await slot.close();
+  }
+});
