@@ -3,7 +3,8 @@ import { maxPartWeight } from '../problem/evaluate';
 import type { Problem } from '../problem/types';
 import { createRng } from '../random';
 import { integerLanes } from './result';
-import { certifiesUpper, denseLaplacian, denseTop, lanczosTop, laplacianApply } from './spectral';
+import { createLowRank } from './burer-monteiro';
+import { certifiesLaplacianUpper, certifiesUpper, denseLaplacian, denseTop, lanczosTop, laplacianApply } from './spectral';
 
 /**
  * Proven bounds attached to every run (upper for max-cut, lower for the min kinds).
@@ -26,8 +27,12 @@ export interface BoundOptions {
   milpBound?: number | null;
   /** A known achievable value (cut for max-cut) to aim the subgradient steps. */
   knownValue?: number | null;
-  /** Subgradient steps for the diagonal shift (0 = plain eigenvalue bound only). */
+  /** Subgradient steps for the diagonal shift after the SDP start (0 = none). */
   shiftSteps?: number;
+  /** Burer–Monteiro sweeps for the starting shift (0 = start from u = 0). */
+  sdpSweeps?: number;
+  /** A ready diagonal shift (e.g. from the gw solver's vectors) instead of a fresh SDP run. */
+  dualShift?: Float64Array;
   /** Largest n for dense certification / dense λ₂. */
   denseLimit?: number;
   seed?: number;
@@ -63,10 +68,20 @@ function certifiedEigenBound(problem: Problem, shift: Float64Array | null, estim
     return (n / 4) * (top.value + 1e-9 * Math.max(1, Math.abs(top.value)));
   }
   if (n > denseLimit) return null;
-  const a = denseLaplacian(problem.network, shift);
   let margin = 1e-7 * Math.max(1, Math.abs(estimate));
-  for (let t = 0; t < 6; t++, margin *= 10) if (certifiesUpper(a, estimate + margin)) return (n / 4) * (estimate + margin);
+  for (let t = 0; t < 6; t++, margin *= 10) if (certifiesLaplacianUpper(problem.network, shift, estimate + margin)) return (n / 4) * (estimate + margin);
   return null;
+}
+
+/**
+ * Certified (n/4)·λmax(L + diag u) for a given shift u with Σu = 0 (e.g. the gw solver's dual
+ * candidate), or null when n is above the dense limit or certification fails.
+ */
+export function certifiedShiftBound(problem: Problem, u: Float64Array, denseLimit = 1500, seed = 1): number | null {
+  const n = problem.network.n;
+  if (n === 0) return 0;
+  const est = lanczosTop(n, (x, out) => laplacianApply(problem.network, u, x, out), createRng(seed), { steps: 100, restarts: 8 });
+  return certifiedEigenBound(problem, u, est.value, denseLimit);
 }
 
 export function maxcutEigenBound(problem: Problem, opts: BoundOptions = {}): EigenBound | null {
@@ -82,12 +97,32 @@ export function maxcutEigenBound(problem: Problem, opts: BoundOptions = {}): Eig
   const plainEstimate = top.value;
   const plain = certifiedEigenBound(problem, null, plainEstimate, denseLimit);
   if (plain === null) return null;
-  // Projected subgradient on u (Σu = 0): ∂λmax = v∘v, projected by removing its mean.
-  // Polyak step aimed at the known value (any achievable cut keeps the step safe).
-  const steps = opts.shiftSteps ?? 40;
+  // Start the shift from the dual candidate of a low-rank SDP solution (Burer–Monteiro),
+  // which lands near the Delorme–Poljak optimum; then projected subgradient steps on u
+  // (Σu = 0): ∂λmax = v∘v, projected by removing its mean, Polyak step aimed at the known
+  // value (any achievable cut keeps the step safe).
   let bestU = new Float64Array(n);
   let bestLambda = plainEstimate;
-  const target = opts.knownValue !== undefined && opts.knownValue !== null ? (4 * opts.knownValue) / n : plainEstimate * 0.9;
+  const sweeps = opts.sdpSweeps ?? 100;
+  if (sweeps > 0 && net.m > 0) {
+    const sdp = createLowRank(net, 0, rng);
+    let value = sdp.objective();
+    for (let t = 0; t < sweeps; t++) {
+      const next = sdp.sweep();
+      if (next - value <= 1e-7 * Math.max(1, Math.abs(next))) break;
+      value = next;
+    }
+    const u = opts.dualShift ?? sdp.dualShift();
+    const est = lanczosTop(n, applyWith(u), rng, { steps: 80, restarts: 6 });
+    if (est.value < bestLambda) {
+      bestLambda = est.value;
+      bestU = u.slice();
+      shift.set(u);
+      top = est;
+    }
+  }
+  const steps = opts.shiftSteps ?? 5;
+  const target = opts.knownValue !== undefined && opts.knownValue !== null ? (4 * opts.knownValue) / n : bestLambda * 0.95;
   for (let s = 0; s < steps; s++) {
     const v = top.vector;
     let mean = 0;
@@ -96,16 +131,16 @@ export function maxcutEigenBound(problem: Problem, opts: BoundOptions = {}): Eig
     let g2 = 0;
     for (let i = 0; i < n; i++) { tmp[i] = v[i] * v[i] - mean; g2 += tmp[i] * tmp[i]; }
     if (g2 < 1e-18) break;
-    const step = (0.7 * Math.max(top.value - target, 1e-6 * Math.abs(top.value))) / g2;
+    const step = (0.5 * Math.max(top.value - target, 1e-6 * Math.abs(top.value))) / g2;
     for (let i = 0; i < n; i++) shift[i] -= step * tmp[i];
     top = lanczosTop(n, applyWith(shift), rng, { start: top.vector, steps: 40 });
     if (top.value < bestLambda) { bestLambda = top.value; bestU = shift.slice(); }
   }
   let shifted = plain;
   if (bestLambda < plainEstimate) {
-    // Re-estimate tightly before certifying (the subgradient steps used short Lanczos runs).
-    const fine = lanczosTop(n, applyWith(bestU), rng, { start: top.vector, steps: 80, restarts: 6 });
-    const c = certifiedEigenBound(problem, bestU, fine.value, denseLimit);
+    // Re-estimate tightly before certifying (the steps used short Lanczos runs).
+    const fine = lanczosTop(n, applyWith(bestU), rng, { start: top.vector, steps: 100, restarts: 8 });
+    const c = certifiedEigenBound(problem, bestU, Math.max(fine.value, bestLambda), denseLimit);
     if (c !== null && c < shifted) shifted = c;
   }
   return { plain, shifted, method: n <= 200 ? 'dense eigendecomposition (ml-matrix)' : 'Lanczos + dense Cholesky certificate' };

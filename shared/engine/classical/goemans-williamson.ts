@@ -1,5 +1,6 @@
 import type { Problem } from '../problem/types';
 import type { Rng } from '../random';
+import { createLowRank } from './burer-monteiro';
 import { createFlipState } from './flip-state';
 import { polishMaxcut } from './local-search';
 import type { RunControl } from './run-control';
@@ -10,8 +11,8 @@ import type { RunControl } from './run-control';
  * depot i gets a unit vector v_i ∈ R^r, r ≈ √(2n), and we maximise Σ w(1 − v_u·v_v)/2.
  * The ascent is block-coordinate: v_i ← −g_i/‖g_i‖ with g_i = Σ_j w_ij v_j, the exact best
  * unit vector for row i with the others fixed (never lowers the objective).
- * The SDP objective reached is an ESTIMATE of the relaxation value, not a bound (no dual
- * certificate is computed here). Rounding: random hyperplanes, each cut polished by 1-flip
+ * The SDP objective reached is an ESTIMATE of the relaxation value, not a bound; the dual
+ * candidate from the vectors (dualShift) becomes a bound only once certified (bounds.ts). Rounding: random hyperplanes, each cut polished by 1-flip
  * local search; pinned depots are set after rounding (the orientation that agrees with most
  * pins first) and never move.
  */
@@ -35,58 +36,26 @@ export interface GwRun {
   expectedCut: number;
   sweeps: number;
   rounds: number;
+  /** Diagonal shift from the vectors (dual candidate) for a certified eigenvalue bound. */
+  dualShift: Float64Array;
 }
 
 export async function goemansWilliamson(problem: Problem, opts: GwOptions, rng: Rng, control: RunControl): Promise<GwRun> {
   const net = problem.network;
-  const { n, adjStart, adjIndex, adjWeight, m, laneFrom, laneTo, laneWeight } = net;
-  const r = Math.max(2, opts.rank > 0 ? opts.rank : Math.ceil(Math.sqrt(2 * n)));
-  const V = new Float64Array(n * r); // row i = v_i
-  for (let i = 0; i < n; i++) {
-    let norm = 0;
-    for (let d = 0; d < r; d++) { const x = rng.normal(); V[i * r + d] = x; norm += x * x; }
-    norm = Math.sqrt(norm) || 1;
-    for (let d = 0; d < r; d++) V[i * r + d] /= norm;
-  }
-  const objective = (): number => {
-    let s = 0;
-    for (let e = 0; e < m; e++) {
-      const a = laneFrom[e] * r, b = laneTo[e] * r;
-      let dot = 0;
-      for (let d = 0; d < r; d++) dot += V[a + d] * V[b + d];
-      s += (laneWeight[e] * (1 - dot)) / 2;
-    }
-    return s;
-  };
-  const g = new Float64Array(r);
-  let value = objective();
+  const { n } = net;
+  const sdp = createLowRank(net, opts.rank, rng);
+  const { V, r } = sdp;
+  let value = sdp.objective();
   let sweeps = 0;
   for (; sweeps < opts.maxSweeps; sweeps++) {
-    for (let i = 0; i < n; i++) {
-      g.fill(0);
-      for (let p = adjStart[i]; p < adjStart[i + 1]; p++) {
-        const j = adjIndex[p] * r, w = adjWeight[p];
-        for (let d = 0; d < r; d++) g[d] += w * V[j + d];
-      }
-      let norm = 0;
-      for (let d = 0; d < r; d++) norm += g[d] * g[d];
-      norm = Math.sqrt(norm);
-      if (norm < 1e-12) continue;
-      for (let d = 0; d < r; d++) V[i * r + d] = -g[d] / norm;
-    }
-    const next = objective();
+    const next = sdp.sweep();
     const gain = next - value;
     value = next;
     if (gain <= opts.tolerance * Math.max(1, Math.abs(value))) { sweeps++; break; }
     if (await control.tick(value, sweeps)) { sweeps++; break; }
   }
-  let expectedCut = 0;
-  for (let e = 0; e < m; e++) {
-    const a = laneFrom[e] * r, b = laneTo[e] * r;
-    let dot = 0;
-    for (let d = 0; d < r; d++) dot += V[a + d] * V[b + d];
-    expectedCut += (laneWeight[e] * Math.acos(Math.max(-1, Math.min(1, dot)))) / Math.PI;
-  }
+  const expectedCut = sdp.expectedCut();
+  const dualShift = sdp.dualShift();
 
   const free: number[] = [];
   for (let i = 0; i < n; i++) if (problem.pins[i] < 0) free.push(i);
@@ -116,5 +85,5 @@ export async function goemansWilliamson(problem: Problem, opts: GwOptions, rng: 
     }
     if ((rounds & 7) === 7 && (await control.tick(bestCut, rounds))) { rounds++; break; }
   }
-  return { side: bestSide, cut: bestCut, sdpEstimate: value, expectedCut, sweeps, rounds };
+  return { side: bestSide, cut: bestCut, sdpEstimate: value, expectedCut, sweeps, rounds, dualShift };
 }

@@ -28,7 +28,8 @@ export function classicalResult(problem: Problem, outcome: ClassicalOutcome): So
     assignment,
     bound,
     gap: gapOf(problem.kind, value, bound),
-    provenOptimal: (outcome.provenOptimal ?? false) && !infeasible,
+    // Proven when the solver says so or when its own bound meets the recomputed value.
+    provenOptimal: ((outcome.provenOptimal ?? false) || meetsBound(problem.kind, value, bound)) && !infeasible,
     energy: null,
     expectation: null,
     params: null,
@@ -38,6 +39,12 @@ export function classicalResult(problem: Problem, outcome: ClassicalOutcome): So
     ...(infeasible ? { infeasible: true } : {}),
     ...(notes.length > 0 ? { notes } : {}),
   };
+}
+
+function meetsBound(kind: Problem['kind'], value: number, bound: number | null): boolean {
+  if (bound === null) return false;
+  const tol = 1e-9 * Math.max(1, Math.abs(value));
+  return kind === 'maxcut' ? value >= bound - tol : value <= bound + tol;
 }
 
 /** Indices of free (unpinned) depots, in input order. */

@@ -130,6 +130,25 @@ export function certifiesUpper(a: Matrix, lambda: number): boolean {
   const n = a.rows;
   const L = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j <= i; j++) L[i * n + j] = (i === j ? lambda : 0) - a.get(i, j);
+  return choleskyInPlace(L, n);
+}
+
+/** Same test for λ·I − (L + diag(shift)), built straight from the lanes (no dense Matrix). */
+export function certifiesLaplacianUpper(net: CompactNetwork, shift: Float64Array | null, lambda: number): boolean {
+  const n = net.n;
+  const L = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) L[i * n + i] = lambda - (shift ? shift[i] : 0);
+  for (let e = 0; e < net.m; e++) {
+    const u = net.laneFrom[e], v = net.laneTo[e], w = net.laneWeight[e];
+    L[u * n + u] -= w;
+    L[v * n + v] -= w;
+    L[Math.max(u, v) * n + Math.min(u, v)] += w;
+  }
+  return choleskyInPlace(L, n);
+}
+
+/** Lower-triangular Cholesky in place; false when a pivot is not positive. */
+function choleskyInPlace(L: Float64Array, n: number): boolean {
   for (let j = 0; j < n; j++) {
     let d = L[j * n + j];
     for (let p = 0; p < j; p++) d -= L[j * n + p] * L[j * n + p];

@@ -1,5 +1,5 @@
 import * as path from 'node:path';
-import { computeBounds, tabuSolver } from '../../../shared/engine/solvers/classical';
+import { computeBounds, gwSolver, tabuSolver } from '../../../shared/engine/solvers/classical';
 import { maxcutEigenBound } from '../../../shared/engine/classical/bounds';
 import { DATA, ctx, problemOf, readCsv, readInstance } from './helpers';
 
@@ -29,3 +29,18 @@ describe('Biq Mac proven optima (Wiegele 2007; BiqBin outputs)', () => {
   );
 });
 
+
+describe('Goemans–Williamson on a Biq Mac instance (non-negative weights)', () => {
+  test('g05_60.0: cut ≥ 0.878 × the proven optimum 536 (Goemans & Williamson, J. ACM 42(6) 1995: α = 0.87856 in expectation; best of many hyperplanes + polish); certified SDP bound ≥ 536', async () => {
+    const row = optima.find((r) => r.instance === 'g05_60.0')!;
+    expect(row.status).toBe('proven');
+    const optimum = Number(row.optimum);
+    const { n, edges } = readInstance(path.join(DATA, 'biqmac', 'g05_60.0'));
+    const problem = problemOf(n, edges);
+    const r = await gwSolver.solve(problem, gwSolver.parseSettings({}), ctx(5, 2));
+    expect(r.value).toBeGreaterThanOrEqual(0.87856 * optimum);
+    expect(r.value).toBeLessThanOrEqual(optimum);
+    expect(r.bound).not.toBeNull();
+    expect(r.bound!).toBeGreaterThanOrEqual(optimum);
+  });
+});

@@ -1,5 +1,5 @@
 import * as path from 'node:path';
-import { tabuSolver } from '../../../shared/engine/solvers/classical';
+import { computeBounds, tabuSolver } from '../../../shared/engine/solvers/classical';
 import { DATA, ctx, problemOf, readCsv, readInstance } from './helpers';
 
 
@@ -18,5 +18,18 @@ describe('G-set: tabu within 0.5 % of the best known cut (Benlic & Hao 2013)', (
     expect(r.value).toBeGreaterThanOrEqual(threshold);
     expect(r.value).toBeLessThanOrEqual(best); // a value above the best known would need a second look
     expect(r.value).toBeLessThanOrEqual(Number(row.sdp_upper_bound)); // certified SDP bound in the csv
+  }, 20000);
+});
+
+describe('G-set: the shifted eigenvalue bound reaches the SDP value (Delorme & Poljak 1993)', () => {
+  // sdp_upper_bound in best-known.csv: certified low-rank SDP values [computed when the data
+  // folder was assembled]; min over u of (n/4)·λmax(L + diag u) equals the SDP value.
+  test.each(['G11', 'G14'])('%s: best known ≤ bound ≤ SDP value + 1', (name) => {
+    const row = bestKnown.find((r) => r.instance === name)!;
+    const { n, edges } = readInstance(path.join(DATA, 'gset', `${name}.txt`));
+    const report = computeBounds(problemOf(n, edges));
+    expect(report.bound!).toBeGreaterThanOrEqual(Number(row.best_known));
+    expect(report.bound!).toBeLessThanOrEqual(Number(row.sdp_upper_bound) + 1);
+    expect(report.source).toMatch(/shift/);
   }, 20000);
 });
