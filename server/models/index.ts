@@ -11,6 +11,10 @@ import { defineNetwork } from './network';
 import { defineNetworkVersion } from './network-version';
 import { defineRun } from './run';
 import { defineRunJob } from './run-job';
+import { definePayment } from './payment';
+import { defineRunCharge } from './payment-run-charge';
+import { defineLedgerEntry } from './ledger-entry';
+import { defineSeatGrant } from './ledger-seat-grant';
 
 /** All Sequelize models, defined once per database handle. Tables come from migrations only. */
 export function defineModels(db: Sequelize) {
@@ -19,6 +23,7 @@ export function defineModels(db: Sequelize) {
   const Network = defineNetwork(db);
   const NetworkVersion = defineNetworkVersion(db);
   const runs = { Run: defineRun(db), RunJob: defineRunJob(db) };
-  return { Session, ...accounts, Network, NetworkVersion, ...runs };
+  const billing = { Payment: definePayment(db), RunCharge: defineRunCharge(db), LedgerEntry: defineLedgerEntry(db), SeatGrant: defineSeatGrant(db) };
+  return { Session, ...accounts, Network, NetworkVersion, ...runs, ...billing };
 }
 export type Models = ReturnType<typeof defineModels>;
