@@ -28,6 +28,7 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
   const { width } = useWindowDimensions();
   const wide = width >= WIDE_BREAKPOINT;
   const [s, setS] = useState<SetupState>(initialSetup);
+  const [allSolvers, setAllSolvers] = useState(false);
   const set = (patch: Partial<SetupState>) => setS((prev) => ({ ...prev, ...patch }));
   const version = useRunVersionQuery(props.networkId, props.versionId);
   const solvers = useSolversQuery();
@@ -91,9 +92,17 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
           ? `Chosen for ${defaults.data.depots} depots${defaults.data.qubits !== null ? ` and ${defaults.data.qubits} qubits` : ''}: exact when small enough, the strongest classical heuristic, and quantum solvers when the qubits fit.`
           : 'Choosing defaults for this size…'}
       </Small>
-      {offered.map((o) => (
-        <CheckRow key={o.name} title={`${o.label} · ${FAMILY_WORDS[o.family]}`} hint={o.guarantee} checked={chosen.includes(o.name)} onPress={() => toggle(o.name)} testID={`solver-${o.name}`} />
-      ))}
+      {offered
+        .filter((o) => allSolvers || chosen.includes(o.name) || defaults.data?.defaults.includes(o.name))
+        .map((o) => (
+          <CheckRow key={o.name} title={`${o.label} · ${FAMILY_WORDS[o.family]}`} hint={o.guarantee} checked={chosen.includes(o.name)} onPress={() => toggle(o.name)} testID={`solver-${o.name}`} />
+        ))}
+      <Button
+        label={allSolvers ? 'Show only the suggested solvers' : `Show all ${offered.length} solvers`}
+        tone="quiet"
+        onPress={() => setAllSolvers((a) => !a)}
+        testID="all-solvers"
+      />
       {advancedAllowed ? (
         <Button label={s.advanced ? 'Hide advanced settings (back to defaults)' : 'Advanced settings'} tone="secondary" onPress={() => set({ advanced: s.advanced ? null : { ...DEFAULT_ADVANCED } })} testID="advanced-toggle" />
       ) : (

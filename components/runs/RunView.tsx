@@ -33,7 +33,8 @@ export const STATUS_TEXT: Record<string, string> = {
   awaiting_payment: 'Waiting for payment',
 };
 
-const seconds = (from: string | null | undefined, to: string | null | undefined, now: number) => (from ? ((to ? Date.parse(to) : now) - Date.parse(from)) / 1000 : null);
+// Browser and server clocks differ a little: never show a negative duration.
+const seconds = (from: string | null | undefined, to: string | null | undefined, now: number) => (from ? Math.max(0, ((to ? Date.parse(to) : now) - Date.parse(from)) / 1000) : null);
 
 /** A clock that ticks each second while `on` (elapsed times between polls). */
 function useNow(on: boolean) {
@@ -49,9 +50,11 @@ function useNow(on: boolean) {
 function JobProgressRow(props: { job: RunJob; label: string; now: number }) {
   const { job } = props;
   const best = job.result?.value ?? job.live?.bestValue;
+  const done = job.status === 'succeeded' && job.result;
   const tone = job.status === 'succeeded' ? 'success' : job.status === 'failed' ? 'danger' : job.status === 'cancelled' ? 'muted' : 'ink';
   const fraction = job.status === 'succeeded' ? 1 : job.progress;
-  const elapsed = seconds(job.startedAt, job.finishedAt, props.now);
+  // A finished job reports its own solving time; the clock covers queued and running ones.
+  const elapsed = done ? job.result!.seconds : seconds(job.startedAt, job.finishedAt, props.now);
   return (
     <View style={styles.job} testID={`progress-${job.solver}`}>
       <View style={styles.jobHead}>
@@ -62,7 +65,7 @@ function JobProgressRow(props: { job: RunJob; label: string; now: number }) {
       <Small>
         {STATUS_TEXT[job.status] ?? job.status}
         {elapsed !== null ? ` · ${formatSeconds(elapsed)}` : ''}
-        {best !== undefined ? ` · best so far ${formatValue(best)}` : ''}
+        {best !== undefined ? ` · ${done ? 'value' : 'best so far'} ${formatValue(best)}` : ''}
         {job.live?.energy !== undefined && job.status === 'running' ? ` · energy ${formatValue(job.live.energy)}${job.live.stdError !== undefined ? ` ± ${formatValue(job.live.stdError)}` : ''}` : ''}
       </Small>
       {job.error ? <Small style={styles.error}>{job.error}</Small> : null}
@@ -179,17 +182,30 @@ export function RunView(props: { id: number; role: Role | null }) {
           <Small>Tap a solver to draw its answer on the network.</Small>
         </Card>
       ) : null}
-      {wide ? (
+      {wide && (partition || variationalDetail) ? (
         <View style={styles.columns}>
           <View style={styles.colWide}>{partition}{variationalDetail}</View>
           <View style={styles.col}>{progress}{chart}</View>
         </View>
-      ) : (
+      ) : wide ? (
+        <View style={styles.columns}>
+          <View style={styles.col}>{progress}</View>
+          <View style={styles.col}>{chart}</View>
+        </View>
+      ) : live || !finishedAny ? (
         <>
           {progress}
           {chart}
           {partition}
           {variationalDetail}
+        </>
+      ) : (
+        // Finished, on a phone: the answer first, how it was reached after.
+        <>
+          {partition}
+          {variationalDetail}
+          {chart}
+          {progress}
         </>
       )}
       {finishedAny && version.data ? <OperatorInspector run={r} document={version.data.document} /> : null}

@@ -9,6 +9,7 @@ import Papa from 'papaparse';
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, screenshot, watchPageErrors } from '../support/browser';
 import { startTestServer } from '../support/server';
+import { applyTestEnv } from '../support/env';
 import { startWorkerProcess } from '../support/worker-process';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
@@ -17,7 +18,27 @@ let worker: ReturnType<typeof startWorkerProcess>;
 let demo: { networkId: number; versionId: number; depots: { id: string; name?: string }[]; lanes: { from: string; to: string; weight: number }[] };
 const ANALYST = 'analyst@quillmere.example';
 
+/**
+ * A database and Redis index of this file's own: api suites drop and recreate `spinyard_test`
+ * when they start, and other suites' workers serve the shared queue, so a shared run could
+ * lose its rows or its jobs mid-test.
+ */
+async function isolate() {
+  applyTestEnv();
+  process.env.DB_NAME = 'spinyard_e2e_runs';
+  process.env.REDIS_URL = 'redis://127.0.0.1:6391/7';
+  const { loadConfig } = await import('../../server/config');
+  const { createDatabase } = await import('../../server/db');
+  const admin = createDatabase({ ...loadConfig(), DB_NAME: 'mysql' });
+  try {
+    await admin.query('CREATE DATABASE IF NOT EXISTS `spinyard_e2e_runs` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci');
+  } finally {
+    await admin.close();
+  }
+}
+
 beforeAll(async () => {
+  await isolate();
   server = await startTestServer(3190);
   worker = startWorkerProcess();
   const { ensureDemoOrganisation, DEMO_PASSWORD } = await import('../../server/services/seed-demo');
@@ -37,6 +58,7 @@ afterAll(async () => {
   await server?.stop();
 });
 let password = '';
+const runIds: number[] = [];
 
 async function signIn(page: Page) {
   await page.goto(`${server.url}/sign-in`);
@@ -110,8 +132,32 @@ describe.each([
     expect(rows.map((r) => r.depot_id)).toEqual(demo.depots.map((d) => d.id));
     const exactValue = Number(((await page.getByTestId('value-exact').textContent()) ?? '').replace(/,/g, ''));
     expect(cut).toBeCloseTo(exactValue, 6);
-    expect(runId).toBeGreaterThan(0);
+    runIds.push(runId);
+
+    // The printable report: same best value, every depot listed.
+    await page.getByTestId('open-report').click();
+    await page.waitForURL((u) => u.pathname === `/runs/${runId}/report`);
+    await page.getByTestId('report-assignment').getByText(demo.depots[0].id, { exact: true }).waitFor();
+    await screenshot(page, `runs-report-${label}`);
+
+    if (runIds.length >= 2) {
+      // Compare this run with the one from the phone test in one table (analysts: runs:compare).
+      await page.goto(`${server.url}/runs`);
+      for (const id of runIds) await page.getByTestId(`tick-${id}`).click();
+      await page.getByTestId('compare-runs').first().click();
+      await page.waitForURL((u) => u.pathname === '/runs/compare');
+      await page.getByTestId('compare-table').waitFor();
+      for (const id of runIds) await expect(page.getByTestId(`cmp-${id}-Best answer`).textContent()).resolves.toMatch(new RegExp(`^${exactValue.toLocaleString('en-GB')} by `));
+      await screenshot(page, `runs-compare-${label}`);
+    }
     expect(errors).toEqual([]);
     await context.close();
+
+    // The shared link is for members only: a signed-out visitor lands on the sign-in page.
+    const stranger = await browser.newContext({ viewport });
+    const other = await stranger.newPage();
+    await other.goto(`${server.url}/runs/${runId}`);
+    await other.getByTestId('sign-in-form').waitFor();
+    await stranger.close();
   });
 });
