@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { ScrollView, StyleSheet, View } from 'react-native';
+import { ScrollView, StyleSheet, View, useWindowDimensions } from 'react-native';
 import * as Print from 'expo-print';
 import { useRouter } from 'expo-router';
 import { useRunQuery, useRunVersionQuery, useSolversQuery } from '../queries/runs';
@@ -19,6 +19,7 @@ import { STATUS_TEXT } from './RunView';
  */
 export function RunReport(props: { id: number }) {
   const router = useRouter();
+  const { width } = useWindowDimensions();
   const run = useRunQuery(props.id);
   const solvers = useSolversQuery();
   const version = useRunVersionQuery(run.data?.networkId, run.data?.versionId);
@@ -46,7 +47,7 @@ export function RunReport(props: { id: number }) {
       </View>
       <DecisionSupportNote />
       <Heading>Scorecard</Heading>
-      <Scorecard card={card} valueName={r.problem.kind === 'maxcut' ? 'Cut weight' : 'Crossing weight'} wide />
+      <Scorecard card={card} valueName={r.problem.kind === 'maxcut' ? 'Cut weight' : 'Crossing weight'} wide={width >= 760} />
       {best?.result && doc ? (
         <>
           <PartitionView document={doc} problem={r.problem} assignment={best.result.assignment} title={`Best answer: ${labels[best.solver] ?? best.solver}`} height={420} />

@@ -98,6 +98,13 @@ describe.each([
     for (const name of ['exact', 'tabu', 'qaoa']) await expect(page.getByTestId(`solver-${name}`).getAttribute('aria-checked')).resolves.toBe('true');
     await page.getByTestId('solver-vqe').click();
     await expect(page.getByTestId('solver-vqe').getAttribute('aria-checked')).resolves.toBe('false');
+    if (label === 'wide') {
+      // The analyst's advanced panel: QAOA with p = 1 and 512 shots per energy estimate, so this
+      // run's chart carries the shot-noise band and the comparison gets a row of its own for it.
+      await page.getByTestId('advanced-toggle').click();
+      await page.getByRole('textbox', { name: 'Circuit layers (QAOA p, VQE depth)' }).fill('1');
+      await page.getByRole('textbox', { name: 'Shots per energy estimate (0 = exact expectation)' }).fill('512');
+    }
     await page.getByTestId('encoding-summary').waitFor();
     await expect(page.getByTestId('enc-qubits').textContent()).resolves.toBe(String(demo.depots.length));
     await screenshot(page, `runs-setup-${label}`);
@@ -124,6 +131,11 @@ describe.each([
     await page.getByTestId('partition-view').getByText(/QAOA/).waitFor();
     await page.getByTestId('partition-view').scrollIntoViewIfNeeded();
     await screenshot(page, `runs-partition-${label}`);
+    // QAOA's sampled assignments and final parameters.
+    await page.getByTestId('variational-detail').scrollIntoViewIfNeeded();
+    await page.getByTestId('final-params').waitFor();
+    await screenshot(page, `runs-samples-${label}`);
+    if (label === 'wide') await page.getByTestId('convergence-band').waitFor({ state: 'attached' });
 
     // The CSV download: every depot once, and its cut (computed here) equals the best value shown.
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('download-csv').click()]);
