@@ -55,10 +55,10 @@ export function TeamScreen() {
           )}
           {canManage ? (
             <View style={[styles.manage, wide && styles.manageWide]}>
-              <View style={styles.half}>
+              <View style={wide ? styles.half : undefined}>
                 <InviteForm myRole={role!} seatsFull={!!seats && seats.used >= seats.limit} />
               </View>
-              <View style={styles.half}>
+              <View style={wide ? styles.half : undefined}>
                 <PendingInvitations />
               </View>
             </View>
