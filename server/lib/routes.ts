@@ -1,5 +1,5 @@
 import type { Request, Response, NextFunction, Router } from 'express';
-import type { ZodType } from 'zod';
+import { z, type ZodType } from 'zod';
 import { can, type Permission, type Role } from '../../shared/permissions';
 import { HttpError, badRequest, forbidden, unauthorized } from './http-error';
 
@@ -45,6 +45,12 @@ export interface RouteSpec {
   /** Extra middleware before validation (e.g. rate limits, file uploads). */
   before?: Array<(req: Request, res: Response, next: NextFunction) => void>;
 }
+
+/**
+ * The body of a state-changing route that takes no input: `{}` or nothing. Declared anyway so
+ * every POST/PUT/PATCH validates its body and unexpected fields are refused with 400.
+ */
+export const NoBodySchema = z.object({}).strict();
 
 declare module 'express-serve-static-core' {
   interface Request {

@@ -1,5 +1,5 @@
 import type { Deps } from '../deps';
-import type { RouteInput, RouteSpec } from '../lib/routes';
+import { NoBodySchema, type RouteInput, type RouteSpec } from '../lib/routes';
 import { HttpError, badRequest, forbidden, unauthorized } from '../lib/http-error';
 import {
   ChangePasswordSchema,
@@ -85,6 +85,7 @@ export function authRoutes(deps: Deps): RouteSpec[] {
       path: '/auth/sign-out',
       summary: 'Sign out (ends the session)',
       access: { kind: 'public' },
+      body: NoBodySchema,
       handler: async ({ req, res }) => {
         await endSession(req);
         res.clearCookie('spinyard.sid' /* SESSION_COOKIE in server/app.ts */, { path: '/', httpOnly: true, sameSite: 'lax' });

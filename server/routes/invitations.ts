@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { Deps } from '../deps';
-import type { RouteSpec } from '../lib/routes';
+import { NoBodySchema, type RouteSpec } from '../lib/routes';
 import { AcceptInvitationSchema, IdParamsSchema, InviteSchema, LinkTokenSchema } from '../../shared/schemas/auth';
 import { acceptInvitation, cancelInvitation, createInvitation, listInvitations, previewInvitation, resendInvitation } from '../services/invitations';
 import { loadMe } from '../services/accounts';
@@ -46,6 +46,7 @@ export function invitationsRoutes(deps: Deps): RouteSpec[] {
       summary: 'Send a pending invitation again with a fresh link and a fresh 7 days',
       access: { kind: 'member', permission: 'members:manage' },
       params: IdParamsSchema,
+      body: NoBodySchema,
       handler: (input) => {
         const { organisationId, actor } = actorOf(input);
         return resendInvitation(deps, organisationId, actor, input.params.id);

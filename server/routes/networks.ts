@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { Deps } from '../deps';
-import type { AuthContext, RouteSpec } from '../lib/routes';
+import { NoBodySchema, type AuthContext, type RouteSpec } from '../lib/routes';
 import { unauthorized } from '../lib/http-error';
 import {
   CompareQuerySchema, IdParamsSchema, ImportFieldsSchema, NetworkBodySchema, NetworkListQuerySchema, RenameBodySchema, VersionBodySchema, VersionParamsSchema,
@@ -109,7 +109,7 @@ export function networksRoutes(deps: Deps): RouteSpec[] {
       handler: ({ params, auth }) => getVersion(deps, actorOf(auth).organisationId, params.id, params.versionId),
     },
     {
-      method: 'post', path: '/networks/:id/versions/:versionId/duplicate', summary: 'Save a copy of a version as the newest version', access: write, params: VersionParamsSchema, status: 201,
+      method: 'post', path: '/networks/:id/versions/:versionId/duplicate', summary: 'Save a copy of a version as the newest version', access: write, params: VersionParamsSchema, body: NoBodySchema, status: 201,
       handler: async ({ params, auth }) => {
         const r = await duplicateVersion(deps, actorOf(auth), params.id, params.versionId);
         return { versionId: r.versionId, number: r.number };

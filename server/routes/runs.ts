@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { Deps } from '../deps';
-import type { AuthContext, RouteSpec } from '../lib/routes';
-import { unauthorized } from '../lib/http-error';
+import { NoBodySchema, type AuthContext, type RouteSpec } from '../lib/routes';
+import { unauthorized, unavailable } from '../lib/http-error';
 import { CreateRunBodySchema, PreviewBodySchema, RunIdParamsSchema, RunListQuerySchema, type RunStatus } from '../../shared/schemas/runs';
 import { assignmentCsv, cancelRun, createRun, deleteRun, getRun, listRuns, previewRun, retryRun, runReport, type RunActor } from '../services/runs';
 import { assertQueueUp, runChannel } from '../services/queue';
@@ -19,9 +19,27 @@ function actorOf(auth: AuthContext | null): RunActor {
 const FINISHED: RunStatus[] = ['succeeded', 'partial', 'failed', 'cancelled'];
 const JobQuerySchema = z.object({ job: z.coerce.number().int().positive().optional() });
 
+/** MariaDB unreachable: 503 with what to do, instead of a bare 500. */
+function databaseDown(err: unknown): boolean {
+  const name = (err as { name?: string })?.name ?? '';
+  return /^Sequelize(Connection|HostNotReachable|HostNotFound|ConnectionRefused|ConnectionTimedOut|AccessDenied)/.test(name);
+}
+
+const guarded = (spec: RouteSpec): RouteSpec => ({
+  ...spec,
+  handler: async (input) => {
+    try {
+      return await spec.handler(input);
+    } catch (err) {
+      if (databaseDown(err)) throw unavailable('The run database cannot be reached right now; nothing was changed. Try again in a minute.');
+      throw err;
+    }
+  },
+});
+
 /** Runs: create (queued for the workers), follow, cancel, retry, delete, download (docs/runs-service.md). */
 export function runsRoutes(deps: Deps): RouteSpec[] {
-  return [
+  const routes: RouteSpec[] = [
     {
       method: 'post', path: '/runs', summary: 'Start a run: one network version, one problem, one or more solvers (each a queued job)', access: start, body: CreateRunBodySchema, status: 201,
       handler: ({ body, auth }) => createRun(deps, actorOf(auth), body),
@@ -39,11 +57,11 @@ export function runsRoutes(deps: Deps): RouteSpec[] {
       handler: ({ params, auth }) => getRun(deps, actorOf(auth).organisationId, params.id),
     },
     {
-      method: 'post', path: '/runs/:id/cancel', summary: 'Cancel the queued and running jobs of a run (running ones keep their best answer so far)', access: cancel, params: RunIdParamsSchema,
+      method: 'post', path: '/runs/:id/cancel', summary: 'Cancel the queued and running jobs of a run (running ones keep their best answer so far)', access: cancel, params: RunIdParamsSchema, body: NoBodySchema,
       handler: ({ params, auth }) => cancelRun(deps, actorOf(auth).organisationId, params.id),
     },
     {
-      method: 'post', path: '/runs/:id/retry', summary: 'Queue the failed and cancelled jobs of a run again', access: start, params: RunIdParamsSchema,
+      method: 'post', path: '/runs/:id/retry', summary: 'Queue the failed and cancelled jobs of a run again', access: start, params: RunIdParamsSchema, body: NoBodySchema,
       handler: ({ params, auth }) => retryRun(deps, actorOf(auth).organisationId, params.id),
     },
     {
@@ -75,20 +93,26 @@ export function runsRoutes(deps: Deps): RouteSpec[] {
       method: 'get', path: '/runs/:id/events', summary: 'Live progress as Server-Sent Events (snapshot, then progress and status events)', access: read, params: RunIdParamsSchema,
       handler: async ({ params, auth, req, res }) => {
         const organisationId = actorOf(auth).organisationId;
-        const snapshot = await getRun(deps, organisationId, params.id);
+        await getRun(deps, organisationId, params.id); // 404 before anything is opened
         await assertQueueUp(deps.redis);
+        // Subscribe before the snapshot, so no event between the two is lost.
+        const sub = deps.redis.duplicate();
+        sub.on('error', () => {});
+        const early: string[] = [];
+        let forward: ((message: string) => void) | null = null;
+        sub.on('message', (_channel: string, message: string) => (forward ? forward(message) : early.push(message)));
+        try {
+          await sub.subscribe(runChannel(params.id));
+        } catch (err) {
+          sub.disconnect();
+          throw err;
+        }
+        const snapshot = await getRun(deps, organisationId, params.id);
         res.status(200).set({ 'Content-Type': 'text/event-stream; charset=utf-8', 'Cache-Control': 'no-cache, no-transform', Connection: 'keep-alive', 'X-Accel-Buffering': 'no' });
         res.flushHeaders();
         const send = (event: string, data: unknown) => res.write(`event: ${event}\ndata: ${JSON.stringify(data)}\n\n`);
-        send('snapshot', snapshot);
-        if (FINISHED.includes(snapshot.status)) {
-          send('end', { status: snapshot.status });
-          res.end();
-          return undefined;
-        }
-        const sub = deps.redis.duplicate();
-        sub.on('error', () => {});
         let closed = false;
+        const heartbeat = setInterval(() => res.write(': keep-alive\n\n'), 15_000);
         const close = () => {
           if (closed) return;
           closed = true;
@@ -96,24 +120,28 @@ export function runsRoutes(deps: Deps): RouteSpec[] {
           sub.disconnect();
           res.end();
         };
-        const heartbeat = setInterval(() => res.write(': keep-alive\n\n'), 15_000);
         req.on('close', close);
-        sub.on('message', (_channel: string, message: string) => {
+        send('snapshot', snapshot);
+        if (FINISHED.includes(snapshot.status)) {
+          send('end', { status: snapshot.status, run: snapshot });
+          close();
+          return undefined;
+        }
+        forward = (message: string) => {
+          if (closed) return;
           const event = JSON.parse(message) as { type: string };
           send(event.type, event);
-          if (event.type === 'status') {
-            void getRun(deps, organisationId, params.id).then((view) => {
-              if (closed) return;
-              if (FINISHED.includes(view.status)) {
-                send('end', { status: view.status, run: view });
-                close();
-              }
-            }, () => close());
-          }
-        });
-        await sub.subscribe(runChannel(params.id));
+          if (event.type !== 'status') return;
+          void getRun(deps, organisationId, params.id).then((view) => {
+            if (closed || !FINISHED.includes(view.status)) return;
+            send('end', { status: view.status, run: view });
+            close();
+          }, () => close());
+        };
+        early.splice(0).forEach(forward);
         return undefined;
       },
     },
   ];
+  return routes.map(guarded);
 }
