@@ -159,3 +159,67 @@ test('a solve thread past its hard limit is terminated and the slot starts a fre
     await slot.close();
   }
 });
+
+test('with MariaDB unreachable, the runs routes answer 503 with what to do', async () => {
+  const { loadConfig } = await import('../../server/config');
+  const { createDeps, closeDeps } = await import('../../server/deps');
+  const { createApp } = await import('../../server/app');
+  const deps = createDeps(loadConfig({ ...process.env, DB_PORT: '1' }));
+  // A stand-in for the accounts middleware (it needs the database itself).
+  const authenticate = (req: any, _res: unknown, next: () => void) => {
+    req.auth = { userId: org.users.dispatcher.id, organisationId: org.organisationId, role: 'dispatcher', via: 'token' };
+    next();
+  };
+  const { app, dispose } = createApp(deps, { authenticate });
+  try {
+    const list = await request(app).get('/api/runs');
+    expect(list.status).toBe(503);
+    expect(list.body.error).toMatch(/database cannot be reached/);
+    expect((await request(app).get('/api/runs/1')).status).toBe(503);
+  } finally {
+    dispose();
+    await closeDeps(deps);
+  }
+});
+
+describe('held runs and priorities', () => {
+  test('a run created held waits (awaiting_payment) until releaseRun; paid plans go first', async () => {
+    await Promise.allSettled(workers.map((w) => w.kill('SIGKILL')));
+    const { createRun, releaseRun } = await import('../../server/services/runs');
+    const fleet = await orgWithTokens(t.deps, 'Fleet yard', 'fleet');
+    const edges = randomEdges(10, 0.5, 77);
+    const freeNet = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Queue order', 10, edges));
+    const fleetNet = await saveNetwork(t.app, fleet.tokens.dispatcher, networkBody('Queue order', 10, edges));
+    await t.deps.models.Organisation.update({ plan: 'free' }, { where: { id: org.organisationId } });
+    try {
+      const body = (versionId: number) => ({ versionId, problem: { kind: 'maxcut' as const }, solvers: [{ solver: 'exact' }], timeLimitSeconds: 5 });
+      const actor = (o: typeof org) => ({ organisationId: o.organisationId, userId: o.users.dispatcher.id, role: 'dispatcher' as const });
+      const held = await createRun(t.deps, actor(org), body(freeNet.versionId), { hold: true });
+      expect(held.status).toBe('awaiting_payment');
+      // The free run takes its full 2 s (tabu); the fleet one is instant (exact on 10 depots).
+      const freeRun = await createRun(t.deps, actor(org), { ...body(freeNet.versionId), solvers: [{ solver: 'tabu' }], timeLimitSeconds: 2 });
+      const fleetRun = await createRun(t.deps, actor(fleet), body(fleetNet.versionId));
+
+      const w = await startWorkerChild();
+      workers.push(w);
+      const started = async (id: number) => (await t.deps.models.RunJob.findOne({ where: { runId: id } }))!.get('startedAt') as Date | null;
+      const finishedAt = async (id: number) => ((await t.deps.models.Run.findByPk(id))!.get('finishedAt') as Date).getTime();
+      await waitFor('both queued runs to finish', async () => {
+        const rows = await t.deps.models.Run.findAll({ where: { id: [freeRun.id, fleetRun.id] } });
+        return rows.every((r) => r.get('status') === 'succeeded');
+      }, 60_000, 200);
+      // The fleet plan's priority (1) beats the free plan's (10), though it was queued later: with one
+      // slot, the instant fleet run finished while the 2 s free run was still to come.
+      expect(await finishedAt(fleetRun.id)).toBeLessThan(await finishedAt(freeRun.id));
+      expect((await t.deps.models.Run.findByPk(held.id))!.get('status')).toBe('awaiting_payment');
+      expect(await started(held.id)).toBeNull();
+
+      expect(await releaseRun(t.deps, held.id)).toBe(true);
+      expect(await releaseRun(t.deps, held.id)).toBe(false); // only once
+      await waitFor('the released run to finish', async () => (await t.deps.models.Run.findByPk(held.id))!.get('status') === 'succeeded', 60_000, 200);
+      await w.kill('SIGTERM');
+    } finally {
+      await t.deps.models.Organisation.update({ plan: 'team' }, { where: { id: org.organisationId } });
+    }
+  });
+});
