@@ -21,7 +21,7 @@ export function SampleHistogram(props: { samples: readonly HistogramSample[]; se
           </SvgText>
         ))}
       </Svg>
-      <Small>Bars: how often each assignment was sampled ({total} shots), labelled with its value; amber = best value sampled.</Small>
+      <Small>Bars: the most frequent sampled assignments ({total} of the shots stored with the result), each labelled with its value; amber = the best value among them.</Small>
     </View>
   );
 }

@@ -153,3 +153,14 @@ export function useRunVersionQuery(networkId: number | null | undefined, version
     queryFn: () => api.get<VersionDetail>(`/networks/${networkId}/versions/${versionId}`),
   });
 }
+
+/** The versions of several runs at once (compare shows which version each run used). */
+export function useRunVersionsQuery(pairs: Array<{ networkId: number; versionId: number }>) {
+  return useQueries({
+    queries: pairs.map((p) => ({
+      queryKey: runKeys.version(p.networkId, p.versionId),
+      staleTime: Infinity,
+      queryFn: () => api.get<VersionDetail>(`/networks/${p.networkId}/versions/${p.versionId}`),
+    })),
+  });
+}

@@ -1,7 +1,7 @@
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { useRouter } from 'expo-router';
 import { can, type Role } from '../../shared/permissions';
-import { useRunsByIdQuery, useSolversQuery } from '../queries/runs';
+import { useRunsByIdQuery, useRunVersionsQuery, useSolversQuery } from '../queries/runs';
 import { colors, fonts, space } from '../theme';
 import { Button } from '../ui/Button';
 import { DecisionSupportNote, Notice } from '../ui/Notice';
@@ -24,6 +24,9 @@ export function CompareView(props: { ids: number[]; role: Role | null }) {
   const router = useRouter();
   const queries = useRunsByIdQuery(props.ids);
   const solvers = useSolversQuery();
+  const loaded = queries.map((q) => q.data).filter((d): d is RunDetail => !!d);
+  const versions = useRunVersionsQuery(loaded.map((r) => ({ networkId: r.networkId, versionId: r.versionId })));
+  const versionNumber = new Map(versions.map((v) => [v.data?.id, v.data?.number]));
   if (!can(props.role, 'runs:compare')) return <Screen title="Compare runs"><Notice>Comparing runs is for analysts. Ask an admin for the analyst role.</Notice></Screen>;
   if (props.ids.length < 2) return <Screen title="Compare runs"><Notice>Choose two or more runs on the runs page.</Notice><Button label="Runs" onPress={() => router.push('/runs')} /></Screen>;
   const failed = queries.find((q) => q.isError);
@@ -45,7 +48,7 @@ export function CompareView(props: { ids: number[]; role: Role | null }) {
   };
   const rows: Array<{ head: string; get: (c: CompareColumn) => string }> = [
     { head: 'Question', get: (c) => questionLabel(c.question) + (c.question.tolerance ? ` ± ${Math.round(c.question.tolerance * 100)} %` : '') },
-    { head: 'Network', get: (c) => `${c.network} (version id ${c.versionId})` },
+    { head: 'Network', get: (c) => `${c.network} · version ${versionNumber.get(c.versionId) ?? '…'}` },
     { head: 'Best answer', get: (c) => (c.bestValue === null ? '—' : `${formatValue(c.bestValue)} by ${c.bestSolver}`) },
     { head: 'Best proven bound', get: (c) => formatValue(c.bound) },
     ...solverKeys.map((key) => ({ head: key, get: (c: CompareColumn) => cell(c, key) })),

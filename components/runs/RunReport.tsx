@@ -37,7 +37,7 @@ export function RunReport(props: { id: number }) {
           <Title>Spinyard run {r.id}</Title>
           <Small>
             {questionLabel(r.problem)}
-            {r.problem.tolerance !== undefined && r.problem.kind !== 'maxcut' ? ` · tolerance ${Math.round(r.problem.tolerance * 1000) / 10} %` : ''} · {r.networkName ?? `network ${r.networkId}`} (version id {r.versionId}) · {new Date(r.createdAt).toLocaleString('en-GB')} · {STATUS_TEXT[r.status] ?? r.status}
+            {r.problem.tolerance !== undefined && r.problem.kind !== 'maxcut' ? ` · tolerance ${Math.round(r.problem.tolerance * 1000) / 10} %` : ''} · {r.networkName ?? `network ${r.networkId}`}{version.data ? ` · version ${version.data.number}` : ''} · {new Date(r.createdAt).toLocaleString('en-GB')} · {STATUS_TEXT[r.status] ?? r.status}
           </Small>
         </View>
         <View style={styles.actions}>

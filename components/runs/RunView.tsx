@@ -170,7 +170,7 @@ export function RunView(props: { id: number; role: Role | null }) {
   return (
     <Screen
       title={`Run ${r.id}`}
-      subtitle={`${questionLabel(r.problem)} · ${r.networkName ?? `network ${r.networkId}`} (version id ${r.versionId}) · ${STATUS_TEXT[r.status] ?? r.status}`}
+      subtitle={`${questionLabel(r.problem)} · ${r.networkName ?? `network ${r.networkId}`}${version.data ? ` · version ${version.data.number}` : ''} · ${STATUS_TEXT[r.status] ?? r.status}`}
       actions={can(props.role, 'runs:compare') && !live ? <Button label="Compare with…" tone="secondary" onPress={() => router.push(`/runs?compare=${r.id}`)} testID="compare-from-run" /> : null}
     >
       {r.status === 'awaiting_payment' ? <Notice tone="caution">This run waits for payment before it is queued.</Notice> : null}

@@ -152,9 +152,11 @@ describe.each([
     await page.getByTestId('report-assignment').getByText(demo.depots[0].id, { exact: true }).waitFor();
     await screenshot(page, `runs-report-${label}`);
 
+    await page.goto(`${server.url}/runs`);
+    await page.getByTestId(`run-item-${runId}`).waitFor();
+    await screenshot(page, `runs-list-${label}`);
     if (runIds.length >= 2) {
       // Compare this run with the one from the phone test in one table (analysts: runs:compare).
-      await page.goto(`${server.url}/runs`);
       for (const id of runIds) await page.getByTestId(`tick-${id}`).click();
       await page.getByTestId('compare-runs').first().click();
       await page.waitForURL((u) => u.pathname === '/runs/compare');
