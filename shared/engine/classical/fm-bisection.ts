@@ -117,7 +117,7 @@ export function fmRefine(g: PartGraph, side: Int8Array, win: Window, opts: { max
 }
 
 /** Heavy-edge matching: returns the coarse graph and the fine → coarse map, or null when it stalls. */
-export function coarsen(g: PartGraph, rng: Rng, maxVertexWeight: number): { coarse: PartGraph; map: Int32Array } | null {
+export function coarsen(g: PartGraph, rng: Rng, maxVertexWeight: number, keep: Int8Array | null = null): { coarse: PartGraph; map: Int32Array; keep?: Int8Array | null } | null {
   const { n, adjStart, adjIndex, adjWeight, vw, pin } = g;
   const match = new Int32Array(n).fill(-1);
   const order = Array.from({ length: n }, (_, i) => i);
@@ -132,6 +132,7 @@ export function coarsen(g: PartGraph, rng: Rng, maxVertexWeight: number): { coar
       const v = adjIndex[p];
       if (match[v] >= 0 || v === u || adjWeight[p] <= bw) continue;
       if (pin[u] >= 0 && pin[v] >= 0 && pin[u] !== pin[v]) continue;
+      if (keep && keep[u] !== keep[v]) continue;
       if (vw[u] + vw[v] > maxVertexWeight) continue;
       best = v;
       bw = adjWeight[p];
@@ -148,6 +149,8 @@ export function coarsen(g: PartGraph, rng: Rng, maxVertexWeight: number): { coar
     cn++;
   }
   if (cn > 0.95 * n) return null;
+  const keepCoarse = keep ? new Int8Array(cn) : null;
+  if (keep && keepCoarse) for (let u = 0; u < n; u++) keepCoarse[map[u]] = keep[u];
   const cvw = new Float64Array(cn);
   const cpin = new Int8Array(cn).fill(-1);
   for (let u = 0; u < n; u++) {
@@ -184,6 +187,7 @@ export function coarsen(g: PartGraph, rng: Rng, maxVertexWeight: number): { coar
   return {
     coarse: { n: cn, adjStart: starts, adjIndex: Int32Array.from(idx), adjWeight: Float64Array.from(wts), vw: cvw, pin: cpin },
     map,
+    keep: keepCoarse,
   };
 }
 
@@ -238,24 +242,32 @@ export interface MultilevelOptions {
 
 export const multilevelDefaults: MultilevelOptions = { coarsestSize: 80, initialTries: 8, maxPasses: 8, stall: 200 };
 
-/** One multilevel V-cycle: coarsen, split the coarsest graph a few ways, refine on the way up. */
-export function multilevelBisect(g: PartGraph, win: Window, rng: Rng, opts: MultilevelOptions = multilevelDefaults): Int8Array {
+/**
+ * One multilevel V-cycle: coarsen, split the coarsest graph a few ways, refine on the way up.
+ * With `start`, an iterated V-cycle: only depots on the same side of `start` are merged, the
+ * coarsest graph starts from `start` projected, so the result is never worse than `start`
+ * (common practice in multilevel partitioners).
+ */
+export function multilevelBisect(g: PartGraph, win: Window, rng: Rng, opts: MultilevelOptions = multilevelDefaults, start: Int8Array | null = null): Int8Array {
   let total = 0, maxW = 0;
   for (let i = 0; i < g.n; i++) { total += g.vw[i]; maxW = Math.max(maxW, g.vw[i]); }
   const maxVertexWeight = Math.max(maxW, (1.5 * total) / opts.coarsestSize);
   const levels: Array<{ graph: PartGraph; map: Int32Array }> = [];
   let cur = g;
+  let keep = start;
   while (cur.n > opts.coarsestSize) {
-    const next = coarsen(cur, rng, maxVertexWeight);
+    const next = coarsen(cur, rng, maxVertexWeight, keep);
     if (!next) break;
     levels.push({ graph: cur, map: next.map });
     cur = next.coarse;
+    keep = next.keep ?? null;
   }
   const refine = { maxPasses: opts.maxPasses, stall: Math.max(opts.stall, 50) };
   let bestSide: Int8Array | null = null;
   let bestScore = Infinity;
-  for (let t = 0; t < opts.initialTries; t++) {
-    const side = growSplit(cur, win, rng);
+  const tries = keep ? 1 : opts.initialTries;
+  for (let t = 0; t < tries; t++) {
+    const side = keep ? keep.slice() : growSplit(cur, win, rng);
     const cut = fmRefine(cur, side, win, refine);
     let w1 = 0;
     for (let i = 0; i < cur.n; i++) if (side[i] === 1) w1 += cur.vw[i];

@@ -421,11 +421,13 @@ export const fmSolver: SolverDefinition<FmSettings> = {
     let bestValue = Infinity, bestFeasible = false;
     let cycles = 0;
     while (cycles < s.cycles) {
-      const side = problem.kind === 'bisection'
-        ? multilevelBisect(g, win, rng, s)
+      // Bisection: fresh V-cycles alternate with iterated ones from the best split so far.
+      const iterate: boolean = problem.kind === 'bisection' && best !== null && bestFeasible && cycles % 2 === 1;
+      const side: Int8Array = problem.kind === 'bisection'
+        ? multilevelBisect(g, win, rng, s, iterate ? Int8Array.from(best!) : null)
         : kwayPartition(g, problem.pins, problem.k, limit, rng, { ...kwayDefaults, ...s });
       cycles++;
-      const a = Array.from(side);
+      const a: number[] = Array.from(side);
       const v = crossingWeight(problem, a);
       const ok = isBalanced(problem, a);
       if (best === null || (ok && !bestFeasible) || (ok === bestFeasible && v < bestValue)) {
@@ -487,8 +489,12 @@ export const bestSolver: SolverDefinition<BestSettings> = {
       const heuristic = problem.kind === 'maxcut' ? tabuSolver : fmSolver;
       const hSettings = heuristic.parseSettings(problem.kind === 'maxcut' ? { threads: useMilp ? 1 : s.threads } : {});
       // The second core: the MILP worker when it runs, else a worker copy of the heuristic.
+      // Bisection: tabu in the worker (it wins on dense random networks, FM on sparse ones).
       if (!useMilp && s.threads > 1 && problem.kind !== 'maxcut') {
-        tasks.push(workerCopies(heuristic.name, problem, hSettings, sub(work), s.threads - 1, rng).then((r) => r[0] ?? null));
+        const other = problem.kind === 'bisection' ? 'tabu' : heuristic.name;
+        const otherSettings = problem.kind === 'bisection' ? tabuSolver.parseSettings({}) : hSettings;
+        tasks.push(workerCopies(other, problem, otherSettings, sub(work), s.threads - 1, rng).then((r) => r[0] ?? null));
+        notes.push(`worker thread ran ${other}`);
       }
       tasks.push(heuristic.solve(problem, hSettings as never, sub(work)));
       for (const r of await Promise.all(tasks)) if (r) results.push(r);
