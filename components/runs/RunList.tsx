@@ -1,14 +1,14 @@
 import { useState } from 'react';
-import { Pressable, StyleSheet, View, useWindowDimensions } from 'react-native';
+import { Pressable, StyleSheet, View } from 'react-native';
 import { useRouter } from 'expo-router';
 import { can, type Role } from '../../shared/permissions';
 import { useRunsQuery } from '../queries/runs';
-import { colors, fonts, radius, space, TOUCH, WIDE_BREAKPOINT } from '../theme';
+import { colors, fonts, radius, space, TOUCH } from '../theme';
 import { Button } from '../ui/Button';
 import { EmptyState } from '../ui/EmptyState';
 import { Notice } from '../ui/Notice';
 import { Screen } from '../ui/Screen';
-import { Body, Label, Small } from '../ui/Text';
+import { Body, Small } from '../ui/Text';
 import { CheckRow } from './controls';
 import { questionLabel } from './format';
 import { STATUS_TEXT } from './RunView';
@@ -19,8 +19,6 @@ const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { day: 'nume
 /** The organisation's runs, newest first; analysts tick two or more to compare them. */
 export function RunList(props: { role: Role | null; compareWith?: number }) {
   const router = useRouter();
-  const { width } = useWindowDimensions();
-  const wide = width >= WIDE_BREAKPOINT;
   const runs = useRunsQuery();
   const mayCompare = can(props.role, 'runs:compare');
   const [ticked, setTicked] = useState<number[]>(props.compareWith ? [props.compareWith] : []);
@@ -39,13 +37,13 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
     );
   }
   const row = (r: RunListItem) => (
-    <View key={r.id} style={[styles.item, wide && styles.itemWide]} testID={`run-item-${r.id}`}>
-      {mayCompare ? <CheckRow title={`Compare run ${r.id}`} checked={ticked.includes(r.id)} onPress={() => toggle(r.id)} testID={`tick-${r.id}`} /> : null}
+    <View key={r.id} style={styles.item} testID={`run-item-${r.id}`}>
       <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} onPress={() => router.push(`/runs/${r.id}`)} style={styles.open}>
         <Body style={styles.title}>Run {r.id} · {questionLabel(r.problem)}</Body>
         <Small>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots · {r.solvers.join(', ')}</Small>
         <Small>{STATUS_TEXT[r.status] ?? r.status} · {when(r.createdAt)}</Small>
       </Pressable>
+      {mayCompare ? <CheckRow title="Compare" accessibilityLabel={`Compare run ${r.id}`} checked={ticked.includes(r.id)} onPress={() => toggle(r.id)} testID={`tick-${r.id}`} /> : null}
     </View>
   );
   return (
@@ -53,15 +51,13 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
       <View style={styles.list}>{runs.data.map(row)}</View>
       {compare}
       {!mayCompare ? <Small>Comparing runs is for analysts.</Small> : null}
-      <Label> </Label>
     </Screen>
   );
 }
 
 const styles = StyleSheet.create({
   list: { gap: space.sm },
-  item: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, padding: space.md, gap: space.xs },
-  itemWide: { flexDirection: 'row', alignItems: 'center', gap: space.lg },
+  item: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, padding: space.md, flexDirection: 'row', alignItems: 'center', gap: space.md },
   open: { minHeight: TOUCH, justifyContent: 'center', flex: 1, gap: 2 },
   title: { fontFamily: fonts.semibold },
 });

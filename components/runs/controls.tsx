@@ -25,11 +25,11 @@ export function ChoiceCard(props: { title: string; hint?: string; selected: bool
 }
 
 /** A tick box row. */
-export function CheckRow(props: { title: string; hint?: string; checked: boolean; onPress: () => void; disabled?: boolean; testID?: string }) {
+export function CheckRow(props: { title: string; hint?: string; checked: boolean; onPress: () => void; disabled?: boolean; testID?: string; accessibilityLabel?: string }) {
   return (
     <Pressable
       accessibilityRole="checkbox"
-      accessibilityLabel={props.title}
+      accessibilityLabel={props.accessibilityLabel ?? props.title}
       accessibilityHint={props.hint}
       accessibilityState={{ checked: props.checked, disabled: !!props.disabled }}
       aria-checked={props.checked}
