@@ -3,13 +3,15 @@
  *
  * Single gates sweep the state once per gate. Layers (transverse mixer, rotation layers, the
  * QAOA layer) are fused and cache-blocked instead (Häner & Steiger, SC17, arXiv:1704.01127):
- *  - sweep 1 walks the state in contiguous blocks of 2^LOW_BITS amplitudes (64 KiB, stays in L1/L2)
- *    and applies the diagonal phase plus every rotation on qubits 0…LOW_BITS−1 while the block
- *    is hot;
- *  - the remaining high qubits are applied in tiles of 2^RUN_BITS contiguous amplitudes × 2^g
- *    strided rows (≤ 2^TILE_BITS amplitudes, ≤ 1 MiB, fits L2), g qubits per tile.
- * A layer thus costs 2 passes over memory up to n = LOW_BITS + (TILE_BITS − RUN_BITS) = 24 and 3
- * passes up to 36, instead of one pass per qubit.
+ *  - sweep 1 walks the state in contiguous blocks of 2^lowBits amplitudes (64 KiB) and applies
+ *    the diagonal phase plus every rotation on qubits 0…lowBits−1 while the block is hot;
+ *  - each further sweep takes g = tileBits − runBits high qubits: a tile of 2^g rows (2^lo apart)
+ *    × 2^runBits contiguous amplitudes is copied into a contiguous scratch block (256 KiB, in L2),
+ *    rotated there, and copied back.
+ * Qubits are processed two at a time in registers (layer-kernels.ts). With the defaults a layer
+ * is 1 + ⌈(n − 12)/6⌉ sweeps (2 up to n = 18, 3 up to 24, 4 at 26) instead of n + 1. In JS the
+ * arithmetic (~0.5 ns per qubit·amplitude in cache) rather than memory is then the limit — see
+ * docs/benchmarks.md "## Simulator" for measured ratios.
  *
  * Rotation convention: R_σ(θ) = exp(−iθσ/2); the mixer exp(−iβ Σ_j X_j) = ⊗_j R_X(2β).
  */
@@ -25,7 +27,7 @@ export interface LayerBlocking {
   runBits: number;
   tileBits: number;
 }
-export const DEFAULT_BLOCKING: LayerBlocking = { lowBits: 12, runBits: 3, tileBits: 15 };
+export const DEFAULT_BLOCKING: LayerBlocking = { lowBits: 12, runBits: 8, tileBits: 14 };
 
 // ---------------------------------------------------------------- matrices
 
@@ -279,7 +281,8 @@ function productLayer(
   const run = Math.min(blocking.runBits, low);
   const g = Math.max(1, blocking.tileBits - run);
   const runLen = 1 << run, runDoubles = 2 * runLen;
-  const scratch = low < n ? new Float64Array(2 << Math.min(run + g, n)) : null;
+  // Scratch sized to the largest tile actually used (allocating more would cost a pass at small n).
+  const scratch = low < n ? new Float64Array(2 * runLen * 2 ** Math.min(g, n - low)) : null;
   for (let lo = low; lo < n && scratch; lo += g) {
     const hi = Math.min(n, lo + g);
     const rows = 2 ** (hi - lo), rowStride = 2 ** lo, tileSpan = 2 ** hi;
@@ -288,8 +291,9 @@ function productLayer(
     for (let outer = 0; outer < dim; outer += tileSpan) {
       for (let mid = 0; mid < midCount; mid++) {
         const base = outer + mid * runLen;
-        for (let j = 0, src = 2 * base, dst = 0; j < rows; j++, src += 2 * rowStride) {
-          for (let k = 0; k < runDoubles; k++, dst++) scratch[dst] = a[src + k];
+        // TypedArray.set copies each row at memcpy speed (an element loop here is ~4× slower).
+        for (let j = 0, src = 2 * base, dst = 0; j < rows; j++, src += 2 * rowStride, dst += runDoubles) {
+          scratch.set(a.subarray(src, src + runDoubles), dst);
         }
         // In the scratch block qubit lo+t is bit run+t.
         let t = 0;
@@ -303,8 +307,8 @@ function productLayer(
           if (rx) pairRx(scratch, 0, tileLen, 2 * h, h, h, coef);
           else pairGeneral(scratch, 0, tileLen, 2 * h, h, h, coef, lo + t);
         }
-        for (let j = 0, dst = 2 * base, src = 0; j < rows; j++, dst += 2 * rowStride) {
-          for (let k = 0; k < runDoubles; k++, src++) a[dst + k] = scratch[src];
+        for (let j = 0, dst = 2 * base, src = 0; j < rows; j++, dst += 2 * rowStride, src += runDoubles) {
+          a.set(scratch.subarray(src, src + runDoubles), dst);
         }
       }
     }

@@ -73,6 +73,18 @@ describe('fused layers equal gate-by-gate products', () => {
     }
   });
 
+  test('n = 19 at the default blocking (two high-qubit sweeps): mixer and QAOA layer', () => {
+    const n = 19;
+    const start = randomState(n, 5);
+    const diag = Float64Array.from({ length: 1 << n }, (_, x) => (x * 7919) % 13);
+    const fused = copyState(start);
+    applyQaoaLayer(fused, diagonalLevels(diag)!, 0.7, -0.4);
+    const plain = copyState(start);
+    applyDiagonalPhase(plain, diag, 0.7);
+    for (let q = 0; q < n; q++) applyRx(plain, q, -0.8);
+    expect(maxDiff(fused.amps, plain.amps)).toBeLessThan(1e-12);
+  });
+
   test('diagonalLevels gives back every entry and refuses when there are too many levels', () => {
     const diag = Float64Array.of(3, -1, 3, 0.5, -1, 0.5, 7, 3);
     const lv = diagonalLevels(diag)!;
