@@ -14,6 +14,9 @@ let dispatcher: SessionAgent;
 let worker: ReturnType<typeof startWorkerProcess>;
 
 beforeAll(async () => {
+  // A queue of this file's own, so only the worker started here takes its jobs.
+  process.env.RUN_QUEUE_NAME = `run-exports-${Date.now().toString(36)}`;
+  process.env.LOG_LEVEL = 'silent';
   t = await createTestApp();
   org = await createOrgWithRoles(t.deps, 'Export Yard');
   other = await createOrgWithRoles(t.deps, 'Other Yard');
