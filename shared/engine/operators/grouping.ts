@@ -25,10 +25,38 @@ export interface QubitWiseGroups {
 
 export function groupQubitWise(p: PauliSum): QubitWiseGroups {
   const T = p.terms.length;
+  // Strings as bit masks (n ≤ 30): x = qubits with X or Y, z = qubits with Z or Y. Two strings
+  // clash qubit-wise where both act and the letters differ: (a.x|a.z) & (b.x|b.z) & ((a.x^b.x)|(a.z^b.z)).
+  const useMasks = p.numQubits <= 30;
+  const xs = new Int32Array(T), zs = new Int32Array(T);
+  let allDiagonal = true;
+  for (let k = 0; k < T; k++) {
+    const s = p.terms[k].letters;
+    if (s.length !== p.numQubits) throw new RangeError(`Pauli string "${s}" must have ${p.numQubits} letters`);
+    if (!useMasks) continue;
+    for (let q = 0; q < s.length; q++) {
+      const c = s[q];
+      if (c === 'X' || c === 'Y') xs[k] |= 1 << q;
+      if (c === 'Z' || c === 'Y') zs[k] |= 1 << q;
+    }
+    if (xs[k] !== 0) allDiagonal = false;
+  }
+  if (useMasks && allDiagonal) {
+    // Only I and Z: everything is measured in the Z basis at once.
+    if (T === 0) return { groups: [], basis: [] };
+    let support = 0;
+    for (let k = 0; k < T; k++) support |= zs[k];
+    let basis = '';
+    for (let q = 0; q < p.numQubits; q++) basis += (support >>> q) & 1 ? 'Z' : 'I';
+    return { groups: [Array.from({ length: T }, (_, i) => i)], basis: [basis] };
+  }
   const conflicts: number[][] = Array.from({ length: T }, () => []);
   for (let i = 0; i < T; i++) {
     for (let j = i + 1; j < T; j++) {
-      if (!qubitWiseCommute(p.terms[i].letters, p.terms[j].letters)) {
+      const clash = useMasks
+        ? ((xs[i] | zs[i]) & (xs[j] | zs[j]) & ((xs[i] ^ xs[j]) | (zs[i] ^ zs[j]))) !== 0
+        : !qubitWiseCommute(p.terms[i].letters, p.terms[j].letters);
+      if (clash) {
         conflicts[i].push(j);
         conflicts[j].push(i);
       }

@@ -34,6 +34,15 @@ describe('qubit-wise commuting groups', () => {
     }
   });
 
+  test('the bit-mask clash test agrees with the letter-by-letter definition on random pairs', () => {
+    const rng = createRng(3);
+    for (let t = 0; t < 300; t++) {
+      const p = randomPauliSum(3, 2, rng);
+      const { groups } = groupQubitWise(p);
+      expect(groups.length).toBe(qubitWiseCommute(p.terms[0].letters, p.terms[1].letters) ? 1 : 2);
+    }
+  });
+
   test('an all-Z operator is one group measured in the Z basis', () => {
     const p: PauliSum = { numQubits: 4, offset: 0, terms: [{ letters: 'ZZII', coeff: 1 }, { letters: 'IZZI', coeff: 2 }, { letters: 'ZIIZ', coeff: -1 }, { letters: 'IIIZ', coeff: 3 }] };
     const { groups, basis } = groupQubitWise(p);
