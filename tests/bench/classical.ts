@@ -4,7 +4,7 @@
  * (average degree 3) the MILP solves to proven optimality within 60 s (doubling search).
  * Prints a markdown report and rewrites the `## Classical` section of docs/benchmarks.md.
  *
- *   npx tsx tests/bench/classical.ts [--limit SECONDS] [--instances G1,G11] [--skip-exact] [--skip-milp] [--no-write]
+ *   npx tsx tests/bench/classical.ts [--limit SECONDS] [--instances G1,G11] [--skip-exact] [--skip-partition] [--skip-milp] [--no-write]
  *
  * Best-known values: Benlic & Hao, "Breakout local search for the max-cut problem",
  * Eng. Appl. AI 26(3) (2013), via /work/shared/data/gset/best-known.csv.
@@ -17,7 +17,7 @@ import { bindProblem } from '../../shared/engine/problem/bind';
 import type { ProblemSpec } from '../../shared/engine/problem/types';
 import { createRng } from '../../shared/engine/random';
 import { crossingWeight } from '../../shared/engine/problem/evaluate';
-import { exactSolver, milpSolver } from '../../shared/engine/solvers/classical';
+import { exactSolver, fmSolver, milpSolver, tabuSolver } from '../../shared/engine/solvers/classical';
 import { tabuMaxcut, tabuMaxcutDefaults } from '../../shared/engine/classical/tabu-maxcut';
 import { createRunControl } from '../../shared/engine/classical/run-control';
 import { randomSides } from '../../shared/engine/classical/balance';
@@ -34,6 +34,7 @@ const limit = Number(opt('--limit') ?? 20);
 const only = opt('--instances')?.split(',').map((s) => s.trim());
 const skipExact = args.includes('--skip-exact');
 const skipMilp = args.includes('--skip-milp');
+const skipPartition = args.includes('--skip-partition');
 const write = !args.includes('--no-write');
 
 type Edge = [number, number, number];
@@ -133,6 +134,43 @@ async function milpTable(lines: string[]): Promise<void> {
   lines.push('', `Largest solved to proven optimality within 60 s: n = ${largest}.`, '');
 }
 
+/** a × b torus (a rows, b columns), unit lanes. */
+function torusEdges(a: number, b: number): Edge[] {
+  const e: Edge[] = [];
+  for (let r = 0; r < a; r++) for (let c = 0; c < b; c++) {
+    const v = r * b + c;
+    e.push([v, r * b + ((c + 1) % b), 1]);
+    e.push([v, ((r + 1) % a) * b + c, 1]);
+  }
+  return e;
+}
+
+async function partitionTable(lines: string[]): Promise<void> {
+  const seconds = Math.min(limit, 10);
+  lines.push(`### Balanced partitioning, multilevel FM (and tabu for bisection), ${seconds} s each, tolerance 0`, '');
+  lines.push('| network | n | kind | reference | fm | tabu |', '|---|---:|---|---:|---:|---:|');
+  const cases: Array<{ name: string; n: number; edges: Edge[]; kind: 'bisection' | 'kway'; k?: number; reference: string }> = [];
+  for (const g of ['G48', 'G50']) {
+    const { n, edges } = readInstance(path.join(DATA, `${g}.txt`));
+    cases.push({ name: g, n, edges, kind: 'bisection', reference: g === 'G48' ? '100 (torus 60×50: 2 × 50)' : '50 (torus 120×25: 2 × 25)' });
+  }
+  cases.push({ name: '100×50 torus', n: 5000, edges: torusEdges(100, 50), kind: 'bisection', reference: '100 (a×b torus, a even, a ≥ b: 2b; common practice)' });
+  const g22 = readInstance(path.join(DATA, 'G22.txt'));
+  cases.push({ name: 'G22', n: g22.n, edges: g22.edges, kind: 'bisection', reference: '—' });
+  const g48 = readInstance(path.join(DATA, 'G48.txt'));
+  cases.push({ name: 'G48', n: g48.n, edges: g48.edges, kind: 'kway', k: 4, reference: '≤ 200 (four 15×50 strips)' });
+  for (const c of cases) {
+    const problem = problemOf(c.n, c.edges, { kind: c.kind, k: c.k });
+    const fm = await fmSolver.solve(problem, fmSolver.parseSettings({}), { seed: 1, timeLimitSeconds: seconds });
+    const tabu = c.kind === 'bisection' ? await tabuSolver.solve(problem, tabuSolver.parseSettings({}), { seed: 1, timeLimitSeconds: seconds }) : null;
+    const flag = (r: { value: number; infeasible?: boolean }) => `${r.value}${r.infeasible ? ' (unbalanced!)' : ''}`;
+    const line = `| ${c.name} | ${c.n} | ${c.kind}${c.k ? ` k=${c.k}` : ''} | ${c.reference} | ${flag(fm)} | ${tabu ? flag(tabu) : '—'} |`;
+    lines.push(line);
+    console.log(line);
+  }
+  lines.push('');
+}
+
 function machine(): string {
   const cpu = os.cpus()[0]?.model ?? 'unknown';
   return `Machine: ${cpu}, ${os.cpus().length} cores, ${(os.totalmem() / 2 ** 30).toFixed(1)} GiB, Node ${process.version}, ${new Date().toISOString()} (cores shared with other work; times are wall-clock).`;
@@ -157,6 +195,7 @@ async function main(): Promise<void> {
   const lines: string[] = ['Run: `npm run bench:classical` (`npx tsx tests/bench/classical.ts`; `--limit SECONDS`, `--instances G1,G11`).', '', machine(), ''];
   await gsetTable(lines);
   if (!skipExact) await exactTable(lines);
+  if (!skipPartition) await partitionTable(lines);
   if (!skipMilp) await milpTable(lines);
   const text = lines.join('\n');
   console.log('\n' + text);
