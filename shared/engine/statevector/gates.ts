@@ -194,11 +194,11 @@ export function diagonalLevels(diag: Float64Array, maxLevels = 65536): DiagonalL
 type Diagonal = Float64Array | DiagonalLevels;
 
 /** Phase amp_x *= exp(−iγ·diag[x]) on basis states start…end−1. */
-function phaseRange(a: Float64Array, diag: Diagonal, gamma: number, start: number, end: number, tables: PhaseTables | null): void {
-  if (tables && !(diag instanceof Float64Array)) {
-    const idx = diag.index, cs = tables.cos, sn = tables.sin;
+function phaseRange(a: Float64Array, diag: Diagonal, gamma: number, start: number, end: number, table: Float64Array | null): void {
+  if (table && !(diag instanceof Float64Array)) {
+    const idx = diag.index;
     for (let x = start; x < end; x++) {
-      const k = idx[x], c = cs[k], s = sn[k], i = 2 * x;
+      const k = 2 * idx[x], c = table[k], s = table[k + 1], i = 2 * x;
       const re = a[i], im = a[i + 1];
       a[i] = c * re + s * im;
       a[i + 1] = c * im - s * re;
@@ -214,19 +214,16 @@ function phaseRange(a: Float64Array, diag: Diagonal, gamma: number, start: numbe
   }
 }
 
-interface PhaseTables {
-  cos: Float64Array;
-  sin: Float64Array;
-}
-function phaseTables(diag: Diagonal, gamma: number): PhaseTables | null {
+/** Interleaved [cos γE_k, sin γE_k] per level (one cache line serves both lookups). */
+function phaseTables(diag: Diagonal, gamma: number): Float64Array | null {
   if (diag instanceof Float64Array) return null;
   const L = diag.levels;
-  const cos = new Float64Array(L.length), sin = new Float64Array(L.length);
+  const t = new Float64Array(2 * L.length);
   for (let k = 0; k < L.length; k++) {
-    cos[k] = Math.cos(gamma * L[k]);
-    sin[k] = Math.sin(gamma * L[k]);
+    t[2 * k] = Math.cos(gamma * L[k]);
+    t[2 * k + 1] = Math.sin(gamma * L[k]);
   }
-  return { cos, sin };
+  return t;
 }
 
 function checkDiagonal(s: StateVector, diag: Diagonal): void {
