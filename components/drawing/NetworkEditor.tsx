@@ -96,15 +96,29 @@ export function NetworkEditor(props: {
   const live = useRef({ draft, transform, mode, selection: props.selection, props, xy, ends, markScale });
   live.current = { draft, transform, mode, selection: props.selection, props, xy, ends, markScale };
   const gesture = useRef<Gesture>({ kind: 'none' });
+  const overlay = useRef<View>(null);
 
   const responder = useMemo(() => {
-    const local = (e: GestureResponderEvent): [number, number] => [e.nativeEvent.locationX, e.nativeEvent.locationY];
+    // On the web the overlay's own box is read at the moment of the event: react-native-web's
+    // locationX is measured against whatever element is current when it is read, which is not
+    // reliably the canvas. Native platforms report locationX relative to the responder view.
+    const local = (e: GestureResponderEvent): [number, number] => {
+      const node = overlay.current as unknown as { getBoundingClientRect?: () => { left: number; top: number } } | null;
+      if (Platform.OS === 'web' && node?.getBoundingClientRect) {
+        const r = node.getBoundingClientRect();
+        const w = globalThis as { scrollX?: number; scrollY?: number };
+        return [e.nativeEvent.pageX - r.left - (w.scrollX ?? 0), e.nativeEvent.pageY - r.top - (w.scrollY ?? 0)];
+      }
+      return [e.nativeEvent.locationX, e.nativeEvent.locationY];
+    };
     const touchPair = (e: GestureResponderEvent) => {
       const t = e.nativeEvent.touches;
       if (!t || t.length < 2) return null;
       const [a, b] = [t[0], t[1]];
-      // Canvas origin in page coordinates, from the first touch (its location is canvas-relative).
-      const ox = a.pageX - a.locationX, oy = a.pageY - a.locationY;
+      // Canvas origin in page coordinates: the overlay's box on the web, else from the first touch.
+      const node = overlay.current as unknown as { getBoundingClientRect?: () => { left: number; top: number } } | null;
+      const r = Platform.OS === 'web' && node?.getBoundingClientRect ? node.getBoundingClientRect() : null;
+      const ox = r ? r.left : a.pageX - a.locationX, oy = r ? r.top : a.pageY - a.locationY;
       return { d: Math.hypot(a.pageX - b.pageX, a.pageY - b.pageY), mid: [(a.pageX + b.pageX) / 2 - ox, (a.pageY + b.pageY) / 2 - oy] as [number, number] };
     };
     return PanResponder.create({
@@ -252,6 +266,7 @@ export function NetworkEditor(props: {
           />
         ) : null}
         <View
+          ref={overlay}
           style={StyleSheet.absoluteFill}
           {...responder.panHandlers}
           {...wheelProps}

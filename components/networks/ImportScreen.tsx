@@ -138,7 +138,6 @@ function PreviewView(props: { preview: ImportPreview; mapping: Record<string, st
       <Body testID="preview-counts">
         {p.fileName}{p.depotsFileName ? ` + ${p.depotsFileName}` : ''} read as {p.format ?? 'an unknown format'}: {formatVolume(p.counts.depots)} depots and {formatVolume(p.counts.lanes)} lanes passed every check.
       </Body>
-      {p.summary ? <SummaryBar summary={p.summary} testID="preview-summary" /> : null}
       {errors.length > 0 ? (
         <Notice tone="error" testID="preview-errors">
           <Label style={styles.issueTitle}>{p.errorCount} error{p.errorCount === 1 ? '' : 's'} — nothing will be saved as it stands</Label>
@@ -150,6 +149,7 @@ function PreviewView(props: { preview: ImportPreview; mapping: Record<string, st
       ) : (
         <Notice tone="success" testID="preview-ok">No errors found.</Notice>
       )}
+      {p.summary ? <SummaryBar summary={p.summary} testID="preview-summary" /> : null}
       {warnings.length > 0 ? (
         <Notice tone="caution" testID="preview-warnings">
           {warnings.slice(0, 10).map((i, k) => (

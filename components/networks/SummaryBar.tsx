@@ -16,13 +16,17 @@ export function SummaryBar(props: { summary: NetworkSummary; testID?: string }) 
   ];
   return (
     <View style={styles.row} testID={props.testID ?? 'network-summary'} accessibilityLabel={items.map(([k, v]) => `${k} ${v}`).join(', ')}>
-      {items.map(([k, v]) => (
-        <View key={k} style={styles.item}>
-          <Small>{k}</Small>
-          <Label style={styles.value} testID={`summary-${k.toLowerCase().replace(/\s/g, '-')}`}>{v}</Label>
-        </View>
-      ))}
-      {s.components > 1 ? <Small style={styles.warn}>{s.components} separate parts: depots in different parts share no lanes.</Small> : null}
+      {items.map(([k, v]) => {
+        // Several components are worth a colour, not an extra line: the canvas below must not
+        // jump while someone is drawing.
+        const split = k === 'Components' && s.components > 1;
+        return (
+          <View key={k} style={styles.item} accessibilityLabel={split ? `${s.components} separate parts: depots in different parts share no lanes` : undefined}>
+            <Small>{k}</Small>
+            <Label style={[styles.value, split && styles.warn]} testID={`summary-${k.toLowerCase().replace(/\s/g, '-')}`}>{v}</Label>
+          </View>
+        );
+      })}
     </View>
   );
 }
@@ -31,5 +35,5 @@ const styles = StyleSheet.create({
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   item: { minWidth: 92, flexGrow: 1, paddingVertical: space.sm, paddingHorizontal: space.md, borderRadius: radius.md, backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line },
   value: { fontSize: 17, lineHeight: 24, color: colors.text },
-  warn: { width: '100%', color: colors.signalDeep },
+  warn: { color: colors.signalDeep },
 });

@@ -1,0 +1,167 @@
+/**
+ * Networks in the browser at 390×844 and 1440×900: draw a 4-depot network with taps and drags,
+ * save it, find it in the list; import a CSV with one bad row (refused, nothing saved), fix it,
+ * import it, and see it in the tables. Screenshots go to artifacts/screenshots.
+ */
+import type { Browser, Page } from 'playwright-core';
+import { launchBrowser, PHONE, WIDE, screenshot, watchPageErrors } from '../support/browser';
+import { startTestServer } from '../support/server';
+import { createOrgWithRoles, type OrgWithRoles } from '../api/setup/test-app';
+
+let server: Awaited<ReturnType<typeof startTestServer>>;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startTestServer(3170);
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+async function signIn(page: Page, org: OrgWithRoles) {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByTestId('sign-in-email').fill(org.users.dispatcher.email);
+  await page.getByTestId('sign-in-password').fill(org.users.dispatcher.password);
+  await page.getByTestId('sign-in-submit').click();
+  await page.waitForURL((u) => u.pathname === '/networks');
+}
+
+const counts = async (organisationId: number) => ({
+  networks: await server.deps.models.Network.count({ where: { organisationId } }),
+  versions: await server.deps.models.NetworkVersion.count({ where: { organisationId } }),
+});
+
+const BAD_LANES = 'from,to,weight\nHUB,EAST,40\nEAST,WEST,-5\nWEST,HUB,25\n';
+const GOOD_LANES = 'from,to,weight\nHUB,EAST,40\nEAST,WEST,5\nWEST,HUB,25\n';
+
+describe.each([
+  ['phone', PHONE],
+  ['wide', WIDE],
+])('networks, %s', (label, viewport) => {
+  let org: OrgWithRoles;
+  beforeAll(async () => {
+    org = await createOrgWithRoles(server.deps, `Yard ${label}`);
+  });
+
+  test('draw 4 depots by taps and 4 lanes by drags, save, see it in the list', async () => {
+    const context = await browser.newContext({ viewport });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    await signIn(page, org);
+    await page.getByTestId('networks-empty').waitFor();
+    await screenshot(page, `networks-empty-${label}`);
+    await page.getByRole('button', { name: 'Draw a network' }).click();
+    await page.getByTestId('new-network-screen').waitFor();
+    await page.getByLabel('Network name', { exact: true }).fill(`Drawn ${label}`);
+
+    const canvas = page.getByTestId('drawing-canvas');
+    await canvas.scrollIntoViewIfNeeded();
+    // Positions are taken relative to the canvas at the moment of each gesture.
+    const fractions = [[0.25, 0.3], [0.75, 0.3], [0.75, 0.75], [0.25, 0.75]];
+    const spot = async (i: number) => {
+      const box = (await canvas.boundingBox())!;
+      return { x: box.x + box.width * fractions[i][0], y: box.y + box.height * fractions[i][1] };
+    };
+    const names = ['Harrowfen Yard', 'Ossel Bridge', 'Tarnwyth Hub', 'Lintmouth Quay'];
+    for (let i = 0; i < 4; i++) {
+      const p = await spot(i);
+      await page.mouse.click(p.x, p.y);
+      const field = page.getByLabel('Depot name');
+      await field.waitFor();
+      await field.fill(names[i]);
+      await page.getByRole('button', { name: 'Add depot' }).click();
+      await field.waitFor({ state: 'detached' });
+    }
+    await expect(page.getByRole('button', { name: 'Depots (4)' }).isVisible()).resolves.toBe(true);
+    const volumes = ['12', '7.5', '30', '4'];
+    for (let i = 0; i < 4; i++) {
+      const a = await spot(i), b = await spot((i + 1) % 4);
+      await page.mouse.move(a.x, a.y);
+      await page.mouse.down();
+      await page.mouse.move((a.x + b.x) / 2, (a.y + b.y) / 2, { steps: 5 });
+      await page.mouse.move(b.x, b.y, { steps: 5 });
+      await page.mouse.up();
+      const field = page.getByLabel('Volume', { exact: true });
+      await field.waitFor();
+      await field.fill(volumes[i]);
+      await page.getByRole('button', { name: 'Add lane' }).click();
+      await field.waitFor({ state: 'detached' });
+    }
+    await expect(page.getByRole('button', { name: 'Lanes (4)' }).isVisible()).resolves.toBe(true);
+    await expect(page.getByTestId('summary-total-volume').textContent()).resolves.toBe('53.5');
+    await expect(page.getByTestId('summary-degree').textContent()).resolves.toBe('2'); // a 4-cycle: every depot has 2 neighbours
+    await screenshot(page, `networks-drawn-${label}`);
+
+    await page.getByTestId('save-network').click();
+    await page.waitForURL((u) => /^\/networks\/\d+$/.test(u.pathname));
+    await page.getByTestId('network-screen').waitFor();
+    const id = Number(new URL(page.url()).pathname.split('/').pop());
+    const saved = await server.deps.models.NetworkVersion.findOne({ where: { networkId: id } });
+    const doc = JSON.parse(saved!.get('document') as string);
+    expect(doc.depots.map((d: { name: string }) => d.name)).toEqual(names);
+    expect(doc.lanes).toEqual([
+      { from: 'D1', to: 'D2', weight: 12 },
+      { from: 'D2', to: 'D3', weight: 7.5 },
+      { from: 'D3', to: 'D4', weight: 30 },
+      { from: 'D4', to: 'D1', weight: 4 },
+    ]);
+    await screenshot(page, `networks-saved-${label}`);
+
+    await page.getByRole('button', { name: 'All networks' }).click();
+    await page.waitForURL((u) => u.pathname === '/networks');
+    const entry = page.getByRole('link', { name: `Open Drawn ${label}` });
+    await entry.waitFor();
+    await expect(entry.textContent()).resolves.toMatch(label === 'wide' ? /Drawn wide\s*4\s*4\s*53\.5\s*1/ : /4 depots · 4 lanes · volume 53\.5/);
+    await screenshot(page, `networks-list-${label}`);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  test('import a CSV with one bad row: error shown, nothing saved; fixed file imports and fills the tables', async () => {
+    const context = await browser.newContext({ viewport });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page).filter(() => true);
+    await signIn(page, org);
+    await page.getByRole('button', { name: 'Import' }).click();
+    await page.getByTestId('import-screen').waitFor();
+    await expect(page.getByTestId('import-limits').textContent()).resolves.toMatch(/Up to 20 MB per file, 20 000 depots and 200 000 lanes/);
+    const before = await counts(org.organisationId);
+
+    const choose = async (content: string) => {
+      const chooser = page.waitForEvent('filechooser');
+      await page.getByTestId('choose-file').click();
+      await (await chooser).setFiles({ name: 'yard-lanes.csv', mimeType: 'text/csv', buffer: Buffer.from(content) });
+    };
+    await choose(BAD_LANES);
+    const problems = page.getByTestId('preview-errors');
+    await problems.waitFor();
+    await expect(problems.textContent()).resolves.toMatch(/yard-lanes\.csv line 3: lane EAST–WEST has volume -5; freight volumes must be ≥ 0/);
+    await expect(page.getByTestId('import-save').isDisabled()).resolves.toBe(true);
+    await problems.scrollIntoViewIfNeeded();
+    await screenshot(page, `networks-import-error-${label}`);
+    expect(await counts(org.organisationId)).toEqual(before);
+
+    await choose(GOOD_LANES);
+    await page.getByTestId('preview-ok').waitFor();
+    await expect(page.getByTestId('preview-counts').textContent()).resolves.toMatch(/3 depots and 3 lanes passed every check/);
+    await page.getByLabel('Network name', { exact: true }).fill(`Imported ${label}`);
+    await screenshot(page, `networks-import-ok-${label}`);
+    await page.getByTestId('import-save').click();
+    await page.waitForURL((u) => /^\/networks\/\d+$/.test(u.pathname));
+    await page.getByTestId('network-screen').waitFor();
+    expect(await counts(org.organisationId)).toEqual({ networks: before.networks + 1, versions: before.versions + 1 });
+
+    await page.getByTestId('tab-lanes').click();
+    const table = page.getByTestId('lanes-table');
+    await table.waitFor();
+    await expect(page.getByLabel('Volume of lane EAST–WEST').inputValue()).resolves.toBe('5');
+    await expect(page.getByRole('button', { name: 'Lane WEST–HUB' }).isVisible()).resolves.toBe(true);
+    await page.getByTestId('tab-depots').click();
+    await expect(page.getByTestId('depots-table').textContent()).resolves.toMatch(/HUB.*EAST.*WEST/s);
+    await screenshot(page, `networks-imported-tables-${label}`);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
