@@ -10,6 +10,7 @@ import { auditRoutes } from './audit';
 import { tokensRoutes } from './tokens';
 import { runsRoutes } from './runs';
 import { solversRoutes } from './solvers';
+import { billingRoutes } from './billing';
 
 /** The API's route table, in one list (mounted under /api; read by the OpenAPI and isolation tests). */
 export function apiRoutes(deps: Deps): RouteSpec[] {
@@ -24,6 +25,7 @@ export function apiRoutes(deps: Deps): RouteSpec[] {
     ...networksRoutes(deps),
     ...runsRoutes(deps),
     ...solversRoutes(deps),
+    ...billingRoutes(deps),
   ];
   return routes;
 }
