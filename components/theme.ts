@@ -9,11 +9,11 @@ export const colors = {
   textMuted: '#5A6468',
   line: '#D6CFC0',
   signal: '#E8A33D',
-  signalDeep: '#9A5B00',
+  signalDeep: '#935700', // ≥ 4.5:1 on surfaceSunk too
   focus: '#1F6FEB',
   danger: '#B3261E',
   dangerSoft: '#FBE9E7',
-  success: '#1E7A46',
+  success: '#1B7343', // ≥ 4.5:1 on surfaceSunk too (tests/unit/fuzz/contrast.test.ts)
   successSoft: '#E3F3E8',
   warnSoft: '#FFF4DC',
   onInk: '#F4F1EA',
