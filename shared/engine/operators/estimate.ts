@@ -5,10 +5,12 @@
  *
  * Error model (textbook, references.md "Shot noise"): within a group the per-shot value
  * G = Σ_{k∈g} c_k z_k is one sample, so its sample variance already holds the covariances of the
- * group's terms; groups are independent: Var(Ê) = Σ_g Var(G_g)/s_g. When all shots of a group
- * agree (sample variance 0) we do not report a zero error: each term's ±1 frequency is replaced by
- * the add-half estimate p = (n₊ + ½)/(s + 1) and the group variance by the Cauchy–Schwarz bound
- * (Σ_k |c_k| σ_k)², σ_k² = 4p(1 − p) — an honest, slightly conservative error for a finite sample.
+ * group's terms; groups are independent: Var(Ê) = Σ_g Var(G_g)/s_g. When every shot of a group
+ * gave the same value (sample variance 0) a finite sample cannot prove zero variance, so we do not
+ * report a zero error: the chance that a reading differs is taken as the add-half (binomial)
+ * estimate q = ½/(s + 1), and the deviation as at most the range 2Σ|c_k| of G, giving
+ * Var(G) ≈ (2Σ|c_k|)²·q(1 − q). Per term the same rule gives σ² = 4q(1 − q) when all its ±1
+ * readings agree.
  */
 import type { Rng } from '../random';
 import type { StateVector } from '../statevector/state';
@@ -90,18 +92,16 @@ export function estimateByShots(
     }
     const meanG = sumG / m;
     let varG = Math.max(0, (sumG2 - m * meanG * meanG) / (m - 1));
-    let bound = 0;
+    const q = 0.5 / (m + 1); // add-half chance of a reading unlike all seen so far
+    let range = 0;
     for (let j = 0; j < members.length; j++) {
       const pPlus = plus[j] / m;
-      const termMean = 2 * pPlus - 1;
       let termVar = (4 * m * pPlus * (1 - pPlus)) / (m - 1); // sample variance of ±1 readings
-      const pHalf = (plus[j] + 0.5) / (m + 1);
-      const fallback = 4 * pHalf * (1 - pHalf);
-      if (termVar === 0) termVar = fallback;
-      terms[members[j]] = { mean: termMean, stdError: Math.sqrt(termVar / m) };
-      bound += Math.abs(coeffs[j]) * Math.sqrt(fallback);
+      if (termVar === 0) termVar = 4 * q * (1 - q);
+      terms[members[j]] = { mean: 2 * pPlus - 1, stdError: Math.sqrt(termVar / m) };
+      range += 2 * Math.abs(coeffs[j]);
     }
-    if (varG <= 1e-15 * Math.max(1, meanG * meanG)) varG = bound * bound;
+    if (varG <= 1e-15 * Math.max(1, meanG * meanG)) varG = range * range * q * (1 - q);
     mean += meanG;
     variance += varG / m;
     shots += m;

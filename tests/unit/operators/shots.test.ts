@@ -66,10 +66,20 @@ describe('shot estimation', () => {
     const z: PauliSum = { numQubits: 2, offset: 0, terms: [{ letters: 'ZI', coeff: 1 }, { letters: 'IZ', coeff: 2 }] };
     const e = estimateByShots(createZeroState(2), z, { shotsPerGroup: 100, rng: createRng(1) });
     expect(e.mean).toBe(3);
-    // ...but a finite sample cannot prove zero variance: add-half bound (Σ|c|·σ)², σ² = 4p(1−p), p = 100.5/101.
-    const pHalf = 100.5 / 101;
-    expect(e.stdError).toBeCloseTo((3 * Math.sqrt(4 * pHalf * (1 - pHalf))) / Math.sqrt(100), 12);
+    // ...but a finite sample cannot prove zero variance: add-half chance q = ½/(m+1) of another
+    // reading, deviation at most the range 2Σ|c| = 6: Var ≈ 6²·q(1 − q).
+    const q = 0.5 / 101;
+    expect(e.stdError).toBeCloseTo(Math.sqrt((36 * q * (1 - q)) / 100), 12);
+    expect(e.terms[1].stdError).toBeCloseTo(Math.sqrt((4 * q * (1 - q)) / 100), 12);
     expect(e.terms[0].stdError).toBeGreaterThan(0);
+    // A conserved sum: Z0 + Z1 on (|01⟩ + |10⟩)/√2 is always 0 while each term is ±1 at random.
+    const bell = createZeroState(2);
+    bell.amps[2] = bell.amps[4] = Math.SQRT1_2;
+    const sum: PauliSum = { numQubits: 2, offset: 0, terms: [{ letters: 'ZI', coeff: 1 }, { letters: 'IZ', coeff: 1 }] };
+    const b = estimateByShots(bell, sum, { shotsPerGroup: 400, rng: createRng(2) });
+    expect(b.mean).toBe(0);
+    expect(b.stdError).toBeCloseTo(Math.sqrt((16 * (0.5 / 401) * (1 - 0.5 / 401)) / 400), 12);
+    expect(b.terms[0].stdError).toBeGreaterThan(0.04); // ≈ 1/√400
   });
 });
 
