@@ -74,6 +74,7 @@ describe('shot estimation', () => {
     expect(e.terms[0].stdError).toBeGreaterThan(0);
     // A conserved sum: Z0 + Z1 on (|01⟩ + |10⟩)/√2 is always 0 while each term is ±1 at random.
     const bell = createZeroState(2);
+    bell.amps[0] = 0;
     bell.amps[2] = bell.amps[4] = Math.SQRT1_2;
     const sum: PauliSum = { numQubits: 2, offset: 0, terms: [{ letters: 'ZI', coeff: 1 }, { letters: 'IZ', coeff: 1 }] };
     const b = estimateByShots(bell, sum, { shotsPerGroup: 400, rng: createRng(2) });
