@@ -128,7 +128,7 @@ function NetworkTable(props: { items: NetworkListItem[]; onOpen: (n: NetworkList
     <Card style={styles.table} accessibilityRole="list" testID="networks-table">
       <View style={[styles.tr, styles.th]}>
         {head.map((h, k) => (
-          <Small key={h} style={[styles.td, k === 0 ? styles.nameCol : styles.numCol]}>{h}</Small>
+          <Small key={h} style={[styles.td, k === 0 ? styles.nameCol : styles.numCol, k === head.length - 1 ? styles.whenCol : null]}>{h}</Small>
         ))}
       </View>
       {props.items.map((n) => (
@@ -138,7 +138,7 @@ function NetworkTable(props: { items: NetworkListItem[]; onOpen: (n: NetworkList
           <Body style={[styles.td, styles.numCol]}>{formatVolume(n.summary.lanes)}</Body>
           <Body style={[styles.td, styles.numCol]}>{formatVolume(n.summary.totalVolume)}</Body>
           <Body style={[styles.td, styles.numCol]}>{n.latestVersion}</Body>
-          <Body style={[styles.td, styles.numCol]}>{formatWhen(n.updatedAt)}</Body>
+          <Body style={[styles.td, styles.numCol, styles.whenCol]}>{formatWhen(n.updatedAt)}</Body>
         </Pressable>
       ))}
     </Card>
@@ -159,4 +159,5 @@ const styles = StyleSheet.create({
   nameCol: { flex: 3, minWidth: 0 },
   nameText: { fontFamily: 'Inter_600SemiBold' },
   numCol: { flex: 1, textAlign: 'right', fontVariant: ['tabular-nums'] },
+  whenCol: { flex: 1.8 },
 });

@@ -1,12 +1,12 @@
 import { useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { StyleSheet, View, useWindowDimensions } from 'react-native';
 import { useRouter } from 'expo-router';
 import { can } from '../../shared/permissions';
 import { useMeQuery } from '../queries/auth';
 import { useNetworkDeleteMutation, useNetworkQuery, useNetworkRenameMutation, useNetworkVersionCreateMutation, useNetworkVersionQuery } from '../queries/networks';
 import { ConfirmModal, PromptModal } from '../drawing/PromptModal';
 import { NetworkNameSchema } from '../../shared/schemas/networks';
-import { space } from '../theme';
+import { space, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { EmptyState } from '../ui/EmptyState';
 import { Notice } from '../ui/Notice';
@@ -20,6 +20,7 @@ import { NewRunButton } from '../runs/NewRunButton';
 /** /networks/:id — the latest version (or an opened older one) in the drawing and tables. */
 export function NetworkScreen(props: { id: number }) {
   const router = useRouter();
+  const wide = useWindowDimensions().width >= WIDE_BREAKPOINT;
   const me = useMeQuery();
   const canWrite = can(me.data?.current?.role, 'networks:write');
   const network = useNetworkQuery(props.id);
@@ -53,7 +54,7 @@ export function NetworkScreen(props: { id: number }) {
       title={n.name}
       subtitle={version ? `Version ${version.number} of ${n.versionCount} · saved ${formatWhen(version.createdAt)}` : undefined}
       actions={
-        <View style={styles.actions}>
+        <View style={wide ? styles.actionsWide : styles.actionsPhone}>
           {version ? <NewRunButton networkId={n.id} versionId={version.id} role={me.data?.current?.role ?? null} /> : null}
           <Button label="All networks" tone="secondary" onPress={leave} />
           {canWrite ? <Button label="Rename" tone="secondary" onPress={() => setAsking('rename')} /> : null}
@@ -130,4 +131,8 @@ export function NetworkScreen(props: { id: number }) {
   );
 }
 
-const styles = StyleSheet.create({ actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm } });
+const styles = StyleSheet.create({
+  // The header's action row does not wrap its children on phones, so the buttons take a full-width wrapping row there.
+  actionsPhone: { width: '100%', flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  actionsWide: { flexDirection: 'row', gap: space.sm },
+});

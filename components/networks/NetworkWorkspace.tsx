@@ -84,7 +84,7 @@ export function NetworkWorkspace(props: {
   const tabBar = (
     <View style={styles.tabs} accessibilityRole="tablist">
       {tabs.map((t) => (
-        <Button key={t} label={label(t)} tone={current === t ? 'primary' : 'quiet'} onPress={() => setTab(t)} testID={`tab-${t}`} />
+        <Button key={t} label={label(t)} tone={current === t ? 'primary' : 'quiet'} onPress={() => setTab(t)} testID={`tab-${t}`} style={styles.tab} />
       ))}
     </View>
   );
@@ -122,6 +122,7 @@ export function NetworkWorkspace(props: {
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
   tabs: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs, padding: 2, borderRadius: radius.md, backgroundColor: colors.surfaceSunk, alignSelf: 'flex-start' },
+  tab: { paddingHorizontal: space.sm },
   columns: { flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' },
   left: { flex: 3, minWidth: 0 },
   right: { flex: 2, minWidth: 0 },
