@@ -283,6 +283,9 @@ const tabuSchema = {
   stagnation: { default: tabuMaxcutDefaults.stagnation, min: 1, max: 1e6, integer: true },
   directedFloor: { default: tabuMaxcutDefaults.directedFloor, min: 0, max: 1 },
   recencyShare: { default: tabuMaxcutDefaults.recencyShare, min: 0, max: 1 },
+  epochMoves: { default: tabuMaxcutDefaults.epochMoves, min: 0, max: 1e6 },
+  walkTenureMin: { default: tabuMaxcutDefaults.walkTenureMin, min: 1, max: 1000, integer: true },
+  walkStagnation: { default: tabuMaxcutDefaults.walkStagnation, min: 1, max: 1e6 },
   /** Stop early once this value is reached (0 = never; for max-cut benchmarks). */
   target: { default: 0, min: -1e15, max: 1e15 },
 } satisfies NumberSchema;
