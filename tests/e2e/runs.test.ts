@@ -96,8 +96,19 @@ describe.each([
     await page.getByTestId('kind-maxcut').click();
     // Size-based defaults for 12 depots: exact, tabu, QAOA, VQE — keep exact + tabu + QAOA.
     for (const name of ['exact', 'tabu', 'qaoa']) await expect(page.getByTestId(`solver-${name}`).getAttribute('aria-checked')).resolves.toBe('true');
+    // Max-cut on the 12-depot network: one qubit per depot.
+    await page.getByTestId('enc-qubits').getByText(String(demo.depots.length), { exact: true }).waitFor();
     await page.getByTestId('solver-vqe').click();
     await expect(page.getByTestId('solver-vqe').getAttribute('aria-checked')).resolves.toBe('false');
+    if (label === 'phone') {
+      // Pin the first depot by tapping it on the drawing: it leaves the free qubits.
+      await page.getByTestId('pin-picker').scrollIntoViewIfNeeded();
+      const dot = await page.getByTestId('pin-picker').locator('circle').first().boundingBox();
+      await page.mouse.click(dot!.x + dot!.width / 2, dot!.y + dot!.height / 2);
+      await page.getByTestId(`pin-${demo.depots[0].id}`).waitFor();
+      await page.getByTestId('enc-qubits').getByText(String(demo.depots.length - 1), { exact: true }).waitFor();
+      await screenshot(page, `runs-setup-pins-${label}`);
+    }
     if (label === 'wide') {
       // The analyst's advanced panel: QAOA with p = 1 and 512 shots per energy estimate, so this
       // run's chart carries the shot-noise band and the comparison gets a row of its own for it.
@@ -106,8 +117,9 @@ describe.each([
       await page.getByRole('textbox', { name: 'Shots per energy estimate (0 = exact expectation)' }).fill('512');
     }
     await page.getByTestId('encoding-summary').waitFor();
-    await expect(page.getByTestId('enc-qubits').textContent()).resolves.toBe(String(demo.depots.length));
     await screenshot(page, `runs-setup-${label}`);
+    await page.getByTestId('encoding-summary').scrollIntoViewIfNeeded();
+    await screenshot(page, `runs-setup-summary-${label}`);
     await page.getByTestId('start-run').click();
     await page.waitForURL((u) => /^\/runs\/\d+$/.test(u.pathname));
     const runId = Number(new URL(page.url()).pathname.split('/').pop());
@@ -136,6 +148,14 @@ describe.each([
     await page.getByTestId('final-params').waitFor();
     await screenshot(page, `runs-samples-${label}`);
     if (label === 'wide') await page.getByTestId('convergence-band').waitFor({ state: 'attached' });
+
+    // The cost operator on request. Max-cut without pins: one ZZ term per lane, one qubit per
+    // depot; with the phone run's pinned depot, one qubit fewer (its lanes become Z terms).
+    await page.getByTestId('inspect-operator').click();
+    const terms = label === 'wide' ? `${demo.lanes.length} terms on ${demo.depots.length} qubits` : `on ${demo.depots.length - 1} qubits`;
+    await page.getByTestId('operator-inspector').getByText(terms, { exact: false }).waitFor();
+    await page.getByTestId('operator-inspector').scrollIntoViewIfNeeded();
+    await screenshot(page, `runs-operator-${label}`);
 
     // The CSV download: every depot once, and its cut (computed here) equals the best value shown.
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('download-csv').click()]);
