@@ -118,17 +118,16 @@ export const exactSolver: SolverDefinition<ExactSettings> = {
     const plan = planExact(problem, threads > 1 ? threads * 4 : 1);
     const chunks = 2 ** plan.splitBits;
     let best: ExactBest = emptyExact(problem);
-    if (threads > 1 && chunks > 1) {
-      const { runInWorker } = await import('../classical/threads/pool');
-      const deadlineMs = Date.now() + ctx.timeLimitSeconds * 1000;
-      const jobs = Array.from({ length: threads }, (_, t) => {
-        const mine: number[] = [];
-        for (let c = t; c < chunks; c += threads) mine.push(c);
-        return runInWorker({ task: 'exact', problem, plan, chunks: mine, deadlineMs }, { cancel: ctx.cancel, killAfterSeconds: ctx.timeLimitSeconds + 30 });
-      });
-      const answers = await Promise.all(jobs);
-      for (const a of answers) best = betterExact(problem, best, a ?? { ...emptyExact(problem), complete: false });
-    } else {
+    let threaded = threads > 1 && chunks > 1;
+    if (threaded) {
+      try {
+        best = await exactInWorkers(problem, plan, chunks, threads, ctx);
+      } catch {
+        threaded = false; // no worker threads here (or one failed): walk on this thread instead
+        best = emptyExact(problem);
+      }
+    }
+    if (!threaded) {
       outer: for (let c = 0; c < chunks; c++) {
         const walk = createChunkWalk(problem, plan, c);
         while (!walk.run(16)) {
@@ -148,10 +147,25 @@ export const exactSolver: SolverDefinition<ExactSettings> = {
       provenOptimal: best.complete && found,
       seconds: control.elapsed(),
       evaluations: best.states,
-      notes: !found ? ['no assignment meets the balance rule with these pins'] : best.complete ? [] : ['stopped before every state was seen: best found so far, not proven'],
+      notes: !found
+        ? [best.complete ? 'no assignment meets the balance rule with these pins' : 'stopped before a feasible state was found']
+        : best.complete ? [] : ['stopped before every state was seen: best found so far, not proven'],
     });
   },
 };
+
+async function exactInWorkers(problem: Problem, plan: ReturnType<typeof planExact>, chunks: number, threads: number, ctx: SolveContext): Promise<ExactBest> {
+  const { runInWorker } = await import('../classical/threads/pool');
+  const deadlineMs = Date.now() + ctx.timeLimitSeconds * 1000;
+  const jobs = Array.from({ length: threads }, (_, t) => {
+    const mine: number[] = [];
+    for (let c = t; c < chunks; c += threads) mine.push(c);
+    return runInWorker({ task: 'exact', problem, plan, chunks: mine, deadlineMs }, { cancel: ctx.cancel, killAfterSeconds: ctx.timeLimitSeconds + 30 });
+  });
+  let best = emptyExact(problem);
+  for (const a of await Promise.all(jobs)) best = betterExact(problem, best, a ?? { ...emptyExact(problem), complete: false });
+  return best;
+}
 
 function fallbackAssignment(problem: Problem): number[] {
   return Array.from(problem.pins, (p) => (p >= 0 ? p : 0));
