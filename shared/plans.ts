@@ -94,7 +94,7 @@ export interface PlanPrices {
 }
 
 export const PRICES: Record<PlanId, PlanPrices> = {
-  free: { monthlyFreeRuns: 50, smallRun: 50, largeRunBase: 200, per100DepotsOver: 50, perQubitDoubling: 25, perExtraMinute: 10, seat: 900 },
+  free: { monthlyFreeRuns: 200, smallRun: 50, largeRunBase: 200, per100DepotsOver: 50, perQubitDoubling: 25, perExtraMinute: 10, seat: 900 },
   team: { monthlyFreeRuns: 1000, smallRun: 20, largeRunBase: 150, per100DepotsOver: 30, perQubitDoubling: 15, perExtraMinute: 5, seat: 700 },
   fleet: { monthlyFreeRuns: 10000, smallRun: 10, largeRunBase: 100, per100DepotsOver: 20, perQubitDoubling: 10, perExtraMinute: 3, seat: 500 },
 };

@@ -6,6 +6,7 @@ import type { MembersAnswer } from '../../shared/schemas/auth';
 import { HttpError, badRequest, forbidden, notFound } from '../lib/http-error';
 import { recordAudit } from './audit';
 import { seatsInUse, type Actor } from './invitations';
+import { purchasedSeats } from './billing-seats';
 
 const lastOwner = () =>
   new HttpError(409, 'The organisation needs at least one owner. Make another member an owner (or transfer ownership) first.', { code: 'last_owner' });
@@ -21,7 +22,7 @@ export async function listMembers(deps: Deps, organisationId: number): Promise<M
     members: memberships
       .filter((m) => byId.has(m.userId))
       .map((m) => ({ id: m.id, userId: m.userId, email: byId.get(m.userId)!.email, name: byId.get(m.userId)!.name, role: m.role, joinedAt: m.createdAt.toISOString() })),
-    seats: { used: await seatsInUse(deps, organisationId), limit: seatLimit(org.plan), plan: org.plan, planLabel: planLabel(org.plan) },
+    seats: { used: await seatsInUse(deps, organisationId), limit: seatLimit(org.plan, await purchasedSeats(deps, organisationId)), plan: org.plan, planLabel: planLabel(org.plan) },
   };
 }
 

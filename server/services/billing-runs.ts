@@ -109,7 +109,7 @@ export async function releasePaidRun(deps: BillingRunDeps, runId: number): Promi
  * by card, a refund through the SDK and a `card_refund` entry (−) — so the money goes back where
  * it came from. Once per run (unique key `run:<id>:refund`). Returns whether it refunded now.
  */
-export async function refundFailedRun(deps: BillingRunDeps, runId: number): Promise<boolean> {
+export async function refundFailedRun(deps: Pick<Deps, 'db' | 'models' | 'config' | 'logger'>, runId: number): Promise<boolean> {
   const run = await deps.models.Run.findByPk(runId, { attributes: ['id', 'status', 'organisationId'] });
   if (!run || run.get('status') !== 'failed') return false;
   const organisationId = run.get('organisationId') as number;
@@ -142,7 +142,7 @@ export async function refundFailedRun(deps: BillingRunDeps, runId: number): Prom
 }
 
 /** Refund every paid run of the organisation that has failed since (called on billing reads and by the run service). */
-export async function refundFailedRuns(deps: BillingRunDeps, organisationId: number): Promise<number> {
+export async function refundFailedRuns(deps: Pick<Deps, 'db' | 'models' | 'config' | 'logger'>, organisationId: number): Promise<number> {
   const charges = await deps.models.RunCharge.findAll({ where: { organisationId, status: 'paid' }, attributes: ['runId'] });
   if (charges.length === 0) return 0;
   const failed = await deps.models.Run.findAll({ where: { id: charges.map((c) => c.runId), status: 'failed' }, attributes: ['id'] });

@@ -1,6 +1,5 @@
 import crypto from 'node:crypto';
 import type Stripe from 'stripe';
-import type { Transaction } from 'sequelize';
 import type { Deps } from '../deps';
 import { can, type Role } from '../../shared/permissions';
 import { CREDIT_PACKS, CURRENCY, PLANS, planLabel, planPrices, runLimits, seatLimit, type PlanId } from '../../shared/plans';
@@ -14,6 +13,7 @@ import { applyRunCardPayment, refundFailedRuns, releasePaidRun } from './billing
 import { seatsInUse } from './invitations';
 import { appendEntry, balanceOf, hasEntry, lockOrganisationRow } from './ledger';
 import { runsThisMonth } from './pricing';
+import { purchasedSeats } from './billing-seats';
 
 /**
  * Billing: what the organisation has (plan, seats, credits), checkouts at the payment provider
@@ -27,10 +27,6 @@ export interface BillingActor {
   ip?: string | null;
 }
 
-/** Seats bought on top of the plan (SUM of the append-only grants). */
-export async function purchasedSeats(deps: Pick<Deps, 'models'>, organisationId: number, transaction?: Transaction): Promise<number> {
-  return (await deps.models.SeatGrant.sum('seats', { where: { organisationId }, transaction })) || 0;
-}
 
 export async function billingSummary(deps: Deps, organisationId: number): Promise<BillingSummary> {
   await refundFailedRuns(deps, organisationId).catch((err) => deps.logger.warn({ err, organisationId }, 'refund sweep failed'));

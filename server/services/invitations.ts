@@ -6,6 +6,7 @@ import type { Invitation, InvitationPreview } from '../../shared/schemas/auth';
 import { HttpError, badRequest, forbidden, notFound, unauthorized } from '../lib/http-error';
 import { checkCredentials, createUser, findUserByEmail, rememberOrganisation } from './accounts';
 import { recordAudit } from './audit';
+import { purchasedSeats } from './billing-seats';
 import { newSecret, sha256Hex } from './tokens-secret';
 import type { InvitationModel } from '../models/invitation';
 
@@ -77,7 +78,7 @@ export async function createInvitation(deps: Deps, organisationId: number, actor
     if (pending && pending.expiresAt.getTime() >= Date.now()) {
       throw new HttpError(409, `${normalised} has already been invited. Resend that invitation from the pending list instead.`, { code: 'duplicate_invitation', fields: { email: ['Already invited.'] } });
     }
-    const limit = seatLimit(org.plan);
+    const limit = seatLimit(org.plan, await purchasedSeats(deps, organisationId, transaction));
     if ((await seatsInUse(deps, organisationId, transaction)) >= limit) throw seatLimitError(org.plan, limit);
     if (pending) await pending.destroy({ transaction }); // an expired invitation to the same address is replaced
     const inviter = await deps.models.User.findByPk(actor.userId, { transaction });
@@ -123,7 +124,7 @@ export async function resendInvitation(deps: Deps, organisationId: number, actor
     assertMayGrant(actor, inv.role);
     // An expired invitation no longer holds a seat; renewing it takes one again.
     if (inv.expiresAt.getTime() < Date.now()) {
-      const limit = seatLimit(org.plan);
+      const limit = seatLimit(org.plan, await purchasedSeats(deps, organisationId, transaction));
       if ((await seatsInUse(deps, organisationId, transaction)) >= limit) throw seatLimitError(org.plan, limit);
     }
     await inv.update({ tokenHash: sha256Hex(token), expiresAt: new Date(Date.now() + INVITATION_TTL_MS) }, { transaction });

@@ -2,6 +2,7 @@ import type { Deps } from '../deps';
 import { deriveRunStatus, type JobStatus, type RunStatus } from '../../shared/schemas/runs';
 import { loadRunsConfig } from './queue-config';
 import { sendRunFinishedMail } from './run-mail';
+import { refundFailedRun } from './billing-runs';
 
 const TERMINAL: RunStatus[] = ['succeeded', 'partial', 'failed', 'cancelled'];
 
@@ -40,6 +41,14 @@ export async function refreshRunStatus(deps: Pick<Deps, 'db' | 'models' | 'maile
       await sendRunFinishedMail(deps, runId);
     } catch (err) {
       deps.logger.warn({ err, runId }, 'run-finished e-mail could not be sent');
+    }
+  }
+  if (status === 'failed') {
+    // Billing: a paid run that failed gets its price back (once; a no-op for free runs).
+    try {
+      await refundFailedRun(deps, runId);
+    } catch (err) {
+      deps.logger.warn({ err, runId }, 'refund of a failed paid run did not go through; the billing page retries it');
     }
   }
   return status;

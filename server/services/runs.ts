@@ -2,7 +2,7 @@ import { Op, type WhereOptions } from 'sequelize';
 import type { Deps } from '../deps';
 import { HttpError, badRequest, conflict, forbidden, notFound } from '../lib/http-error';
 import { can, type Role } from '../../shared/permissions';
-import { nextPlan, planLabel, runLimits, type PlanRunLimits } from '../../shared/plans';
+import { formatMoney, nextPlan, planLabel, runLimits, type PlanRunLimits, type RunPrice } from '../../shared/plans';
 import { buildCompactNetwork } from '../../shared/engine/network/build';
 import { bindProblem } from '../../shared/engine/problem/bind';
 import type { NetworkDocument } from '../../shared/engine/network/types';
@@ -17,6 +17,8 @@ import { getVersionDocument } from './networks';
 import { assertQueueUp, clearCancel, enqueueJobs, removeEntries, requestCancel, type SolveJobData } from './queue';
 import { loadRunsConfig } from './queue-config';
 import { refreshRunStatus } from './runs-status';
+import { quoteRun } from './pricing';
+import { recordRunCharge } from './billing-runs';
 
 type Registry = typeof import('../../shared/engine/solvers/registry');
 type Orchestrate = typeof import('../../shared/engine/solvers/orchestrate');
@@ -142,13 +144,18 @@ function checkLimits(limits: PlanRunLimits, plan: string, problem: Problem, chec
   }
 }
 
+/** What the price depends on (billing's priceOfRun): size, time, and each solver's family and qubits. */
+function runSizeOf(problem: Problem, checked: CheckedEntry[], seconds: number) {
+  return { depots: problem.network.n, secondsPerSolver: seconds, solvers: checked.map((c) => ({ family: c.definition.family, qubits: c.qubits })) };
+}
+
 /**
  * Create a run: check the version, the problem, every solver entry (settings, refusals, the
  * role's right to non-default settings) and the plan's limits; write the run and its jobs in one
  * transaction; put the jobs on the queue after commit (the reconciler re-adds any that did not
  * make it). `hold` creates it awaiting payment (off the queue until releaseRun).
  */
-export async function createRun(deps: RunServiceDeps, actor: RunActor, body: CreateRunBody, opts: { hold?: boolean } = {}): Promise<{ id: number; status: RunStatus }> {
+export async function createRun(deps: RunServiceDeps, actor: RunActor, body: CreateRunBody, opts: { hold?: boolean } = {}): Promise<{ id: number; status: RunStatus; price: RunPrice | null }> {
   const rc = loadRunsConfig();
   const { problem, networkId } = await loadProblem(deps, actor.organisationId, body.versionId, body.problem);
   const { checked, fields } = checkEntries(problem, body.solvers);
@@ -162,14 +169,18 @@ export async function createRun(deps: RunServiceDeps, actor: RunActor, body: Cre
   const plan = await planOf(deps, actor.organisationId);
   const limits = runLimits(plan);
   const seconds = body.timeLimitSeconds ?? Math.min(rc.RUN_DEFAULT_SECONDS, limits.maxSecondsPerSolver);
-  checkLimits(limits, plan, problem, checked, seconds);
+  // Billing: above the plan's included size a run is priced (up to the paid ceiling) and held until paid.
+  // A paid run may go up to the next plan's limits.
+  const { price } = await quoteRun(deps, actor.organisationId, runSizeOf(problem, checked, seconds));
+  const ceiling = price ? (nextPlan(plan) ?? plan) : plan;
+  checkLimits(runLimits(ceiling), ceiling, problem, checked, seconds);
   const active = await deps.models.Run.count({ where: { organisationId: actor.organisationId, status: ['queued', 'running'], deletedAt: null } });
   if (active >= limits.maxActiveRuns) {
     throw new HttpError(429, `Your organisation already has ${active} runs waiting or running (the ${planLabel(plan)} plan allows ${limits.maxActiveRuns} at once). Wait for some to finish or cancel one.`, { code: 'too_many_runs' });
   }
-  if (!opts.hold) await assertQueueUp(deps.redis);
+  const held = !!opts.hold || price !== null;
+  if (!held) await assertQueueUp(deps.redis);
 
-  const held = !!opts.hold;
   const now = new Date();
   const { run, jobs } = await deps.db.transaction(async (transaction) => {
     const run = await deps.models.Run.create(
@@ -186,6 +197,7 @@ export async function createRun(deps: RunServiceDeps, actor: RunActor, body: Cre
       })),
       { transaction },
     );
+    if (price) await recordRunCharge(deps, { runId, organisationId: actor.organisationId, price }, transaction);
     return { run, jobs };
   });
   const runId = run.get('id') as number;
@@ -197,7 +209,7 @@ export async function createRun(deps: RunServiceDeps, actor: RunActor, body: Cre
       deps.logger.warn({ err, runId }, 'enqueue after commit failed; the reconciler will add the jobs');
     }
   }
-  return { id: runId, status: held ? 'awaiting_payment' : 'queued' };
+  return { id: runId, status: held ? 'awaiting_payment' : 'queued', price };
 }
 
 /** Put a held run's jobs on the queue (billing calls this once payment is through). */
@@ -226,9 +238,11 @@ export async function previewRun(deps: RunServiceDeps, actor: RunActor, body: Pr
   } catch (e) {
     encodingNote = (e as Error).message;
   }
+  const quote = await quoteRun(deps, actor.organisationId, runSizeOf(problem, checked, seconds));
   let limitProblem: string | null = null;
   try {
-    checkLimits(limits, plan, problem, checked, seconds);
+    const ceiling = quote.price ? (nextPlan(plan) ?? plan) : plan;
+    checkLimits(runLimits(ceiling), ceiling, problem, checked, seconds);
   } catch (e) {
     limitProblem = (e as Error).message;
   }
@@ -241,6 +255,9 @@ export async function previewRun(deps: RunServiceDeps, actor: RunActor, body: Pr
     encodingNote,
     plan: { id: plan, label: planLabel(plan), limits },
     limitProblem,
+    /** Billing: the price when this is a paid run (null = free), and whether the credits cover it. */
+    price: quote.price ? { ...quote.price, label: formatMoney(quote.price) } : null,
+    quote,
     fields,
     solvers: checked.map((c) => ({
       solver: c.definition.name,

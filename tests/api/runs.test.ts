@@ -246,16 +246,23 @@ describe('who may do what', () => {
     expect(refused.status).toBe(400);
   });
 
-  test('plan limits answer 402 with what to do', async () => {
+  test('over the included size a run is priced and held (billing); beyond the paid ceiling 402 with what to do', async () => {
     const free = await orgWithTokens(t.deps, 'Free yard', 'free');
     const mid = await saveNetwork(t.app, free.tokens.dispatcher, networkBody('Twenty', 20, randomEdges(20, 0.3, 5)));
-    const qubits = await as(free.tokens.dispatcher).post('/runs', { versionId: mid.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa' }] });
-    expect(qubits.status).toBe(402);
+    // 20 qubits > the free plan's 16 included: a paid run (docs/billing.md), created awaiting payment.
+    const paid = await as(free.tokens.dispatcher).post('/runs', { versionId: mid.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa' }] });
+    expect(paid.status).toBe(201);
+    expect(paid.body).toMatchObject({ status: 'awaiting_payment', price: { currency: 'eur' } });
+    expect(Number.isInteger(paid.body.price.amount) && paid.body.price.amount > 0).toBe(true);
+    const big = await saveNetwork(t.app, free.tokens.dispatcher, networkBody('Twenty-three', 23, randomEdges(23, 0.3, 5)));
+    const qubits = await as(free.tokens.dispatcher).post('/runs', { versionId: big.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa' }] });
+    expect(qubits.status).toBe(402); // 23 qubits: beyond what a free organisation may buy (the Team plan's 22)
     expect(qubits.body).toMatchObject({ code: 'plan_limit', limit: 'qubits' });
-    expect(qubits.body.error).toMatch(/Upgrade to the Team plan/);
+    expect(qubits.body.error).toMatch(/Upgrade to the Fleet plan/);
     const blocks = await as(free.tokens.dispatcher).post('/runs', { versionId: mid.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa-blocks' }] });
     expect(blocks.status).toBe(201); // 14-qubit blocks fit the free plan
-    const time = await as(free.tokens.dispatcher).post('/runs', { versionId: mid.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 600 });
+    expect(blocks.body.price).toBeNull();
+    const time = await as(free.tokens.dispatcher).post('/runs', { versionId: mid.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 900 });
     expect(time.status).toBe(402);
     expect(time.body.limit).toBe('seconds');
   });
