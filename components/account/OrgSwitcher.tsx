@@ -1,5 +1,6 @@
 import { useState } from 'react';
-import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { Modal, Pressable, StyleSheet, Text, View } from 'react-native';
+import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { useRouter } from 'expo-router';
 import type { Me } from '../../shared/schemas/auth';
 import { ROLE_LABELS } from '../../shared/permissions';
@@ -11,14 +12,17 @@ export function OrgSwitcher(props: { me: Me }) {
   const router = useRouter();
   const [open, setOpen] = useState(false);
   const switchOrg = useSwitchOrganisationMutation();
+  const insets = useSafeAreaInsets();
   if (props.me.organisations.length < 2) return null;
   return (
     <View style={styles.wrap}>
       <Pressable accessibilityRole="button" accessibilityLabel="Switch organisation" accessibilityState={{ expanded: open }} onPress={() => setOpen(!open)} style={styles.button} testID="org-switcher">
         <Text style={styles.buttonText}>Switch</Text>
       </Pressable>
-      {open ? (
-        <View style={styles.menu} accessibilityRole="menu" testID="org-switcher-menu">
+      {/* A modal layer, so the list sits above the page (the header is not the top layer). */}
+      <Modal visible={open} transparent animationType="none" onRequestClose={() => setOpen(false)}>
+        <Pressable style={styles.backdrop} accessibilityRole="button" accessibilityLabel="Close the organisation list" onPress={() => setOpen(false)} />
+        <View style={[styles.menu, { top: insets.top + TOUCH + space.md }]} accessibilityRole="menu" testID="org-switcher-menu">
           {props.me.organisations.map((o) => {
             const current = o.id === props.me.current?.id;
             return (
@@ -40,18 +44,19 @@ export function OrgSwitcher(props: { me: Me }) {
               </Pressable>
             );
           })}
-          {switchOrg.error ? <Text style={styles.error}>{switchOrg.error.message}</Text> : null}
         </View>
-      ) : null}
+      </Modal>
+      {switchOrg.error ? <Text style={styles.error}>{switchOrg.error.message}</Text> : null}
     </View>
   );
 }
 
 const styles = StyleSheet.create({
-  wrap: { position: 'relative', zIndex: 10 },
+  wrap: { alignItems: 'flex-end' },
+  backdrop: { position: 'absolute', top: 0, right: 0, bottom: 0, left: 0, backgroundColor: 'rgba(18,52,59,0.18)' },
   button: { minHeight: TOUCH, minWidth: TOUCH, paddingHorizontal: space.md, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, alignItems: 'center', justifyContent: 'center' },
   buttonText: { fontFamily: fonts.semibold, fontSize: 14, color: colors.ink },
-  menu: { position: 'absolute', top: TOUCH + space.xs, right: 0, width: 280, backgroundColor: colors.surface, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, paddingVertical: space.xs, shadowColor: '#000', shadowOpacity: 0.12, shadowRadius: 12, shadowOffset: { width: 0, height: 4 } },
+  menu: { position: 'absolute', right: space.lg, width: 300, maxWidth: '90%', backgroundColor: colors.surface, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, paddingVertical: space.xs, shadowColor: '#000', shadowOpacity: 0.12, shadowRadius: 12, shadowOffset: { width: 0, height: 4 } },
   item: { minHeight: TOUCH, paddingHorizontal: space.md, paddingVertical: space.sm, justifyContent: 'center' },
   itemOn: { backgroundColor: colors.surfaceSunk },
   itemName: { fontFamily: fonts.medium, fontSize: 15, color: colors.text },

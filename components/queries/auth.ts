@@ -27,15 +27,18 @@ export function useMeQuery() {
 
 /**
  * After sign-in, sign-out, switching organisation or joining one, everything cached belongs to
- * another person or organisation: forget it all and take the new Me from the answer.
+ * another person or organisation: take the new Me from the answer and reset every other query
+ * (mounted ones refetch for the new organisation) except those keyed 'public'. Mutations are left alone, so the caller's own
+ * onSuccess (e.g. navigation) still runs.
  */
 export function useSessionChange() {
   const qc = useQueryClient();
   return async (me?: Me | null) => {
     resetCsrf();
-    qc.clear();
+    await qc.cancelQueries();
     if (me !== undefined) qc.setQueryData(authKeys.me(), me);
-    else await qc.invalidateQueries({ queryKey: authKeys.me() });
+    else void qc.invalidateQueries({ queryKey: authKeys.me() });
+    void qc.resetQueries({ predicate: (q) => q.queryKey[0] !== authKeys.root[0] && q.queryKey[0] !== 'public' });
   };
 }
 

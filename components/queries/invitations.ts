@@ -7,7 +7,8 @@ import { STALE } from './staleTimes';
 export const invitationKeys = {
   root: ['invitations'] as const,
   pending: () => [...invitationKeys.root, 'pending'] as const,
-  preview: (token: string) => [...invitationKeys.root, 'preview', token] as const,
+  /** Under 'public': the same for everyone, so a session change does not refetch it (see useSessionChange). */
+  preview: (token: string) => ['public', 'invitation-preview', token] as const,
 };
 
 export function useInvitationsQuery(enabled = true) {

@@ -28,14 +28,14 @@ export function MembersView(props: { members: Member[]; myRole: Role | null; myU
           <Label style={[styles.cActions, styles.right]}>Actions</Label>
         </View>
       ) : null}
-      {props.members.map((m) => (
-        <MemberRow key={m.id} member={m} wide={wide} myRole={props.myRole} isMe={m.userId === props.myUserId} ownerCount={ownerCount} />
+      {props.members.map((m, i) => (
+        <MemberRow key={m.id} first={i === 0} member={m} wide={wide} myRole={props.myRole} isMe={m.userId === props.myUserId} ownerCount={ownerCount} />
       ))}
     </Card>
   );
 }
 
-function MemberRow(props: { member: Member; wide: boolean; myRole: Role | null; isMe: boolean; ownerCount: number }) {
+function MemberRow(props: { first: boolean; member: Member; wide: boolean; myRole: Role | null; isMe: boolean; ownerCount: number }) {
   const m = props.member;
   const allowed = memberActions(props.myRole, m, props.ownerCount);
   const [mode, setMode] = useState<'idle' | 'role' | 'remove'>('idle');
@@ -81,7 +81,7 @@ function MemberRow(props: { member: Member; wide: boolean; myRole: Role | null; 
   );
   if (props.wide) {
     return (
-      <View style={styles.rowWrap} testID={`member-${m.email}`}>
+      <View style={[styles.rowWrap, !props.first && styles.divider]} testID={`member-${m.email}`}>
         <View style={styles.tr}>
           <Body style={styles.cName} numberOfLines={1}>{name}</Body>
           <Body style={styles.cEmail} numberOfLines={1}>{m.email}</Body>
@@ -96,7 +96,7 @@ function MemberRow(props: { member: Member; wide: boolean; myRole: Role | null; 
     );
   }
   return (
-    <View style={styles.rowWrap} testID={`member-${m.email}`}>
+    <View style={[styles.rowWrap, !props.first && styles.divider]} testID={`member-${m.email}`}>
       <View style={styles.cardHead}>
         <View style={styles.cardTitle}>
           <Body style={styles.name} numberOfLines={1}>{name}</Body>
@@ -115,7 +115,8 @@ const styles = StyleSheet.create({
   card: { gap: 0, paddingVertical: space.sm },
   th: { borderBottomWidth: 1, borderBottomColor: colors.line, paddingBottom: space.sm },
   tr: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: 52 },
-  rowWrap: { gap: space.sm, paddingVertical: space.md, borderBottomWidth: 1, borderBottomColor: colors.line },
+  rowWrap: { gap: space.sm, paddingVertical: space.md },
+  divider: { borderTopWidth: 1, borderTopColor: colors.line },
   cName: { flex: 2, minWidth: 0 },
   cEmail: { flex: 3, minWidth: 0 },
   cRole: { flex: 1.2 },

@@ -133,6 +133,20 @@ test('wide: the team is a table; the account screen creates an API token shown o
   await page.getByTestId('token-Yard scanner bridge').waitFor();
   await expect(page.getByTestId('token-secret').count()).resolves.toBe(0);
 
+  // A second organisation: the header offers a switcher, and switching changes the header.
+  const user = await server.deps.models.User.findOne({ where: { email: founder.email } });
+  const second = await server.deps.models.Organisation.create({ name: `Saltmarsh Couriers ${tag}`, plan: 'free' });
+  await server.deps.models.Membership.create({ organisationId: second.id, userId: user!.id, role: 'viewer' });
+  await page.reload();
+  await page.getByTestId('org-switcher').click();
+  await page.getByTestId('org-switcher-menu').waitFor();
+  await screenshot(page, 'accounts-org-switcher-wide');
+  await page.getByRole('menuitem', { name: /Saltmarsh Couriers/ }).click();
+  await page.waitForURL((u) => u.pathname === '/networks');
+  await page.waitForFunction((name) => document.querySelector('[data-testid="shell-org-name"]')?.textContent === name, second.name);
+  await expect(page.getByTestId('nav-billing').count()).resolves.toBe(0); // viewer there
+
+  await page.getByTestId('nav-account').click();
   await page.getByTestId('sign-out').click();
   await page.waitForURL((u) => u.pathname === '/sign-in');
   expect(errors).toEqual([]);
