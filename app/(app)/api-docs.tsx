@@ -1,0 +1,5 @@
+import { ApiDocsScreen } from '../../components/api-docs/ApiDocsScreen';
+
+export default function ApiDocsRoute() {
+  return <ApiDocsScreen />;
+}
