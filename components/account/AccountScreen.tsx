@@ -10,6 +10,7 @@ import { OwnerZone } from './OwnerZone';
 import { PasswordForm } from './PasswordForm';
 import { ProfileForm } from './ProfileForm';
 import { TokensPanel } from './TokensPanel';
+import { ApiDocsLink } from '../api-docs/ApiDocsLink';
 
 /** Name, password, API tokens, sign out; owners also see transfer and close. */
 export function AccountScreen() {
@@ -23,7 +24,7 @@ export function AccountScreen() {
   const current = me.data.current;
   const out = <Button label="Sign out" tone="secondary" busy={signOut.isPending} onPress={() => signOut.mutate(undefined, { onSuccess: () => router.replace('/sign-in') })} testID="sign-out" />;
   return (
-    <Screen title="Account" subtitle={me.data.user.email} actions={out} testID="account-screen">
+    <Screen title="Account" subtitle={me.data.user.email} actions={<><ApiDocsLink />{out}</>} testID="account-screen">
       {signOut.error ? <Notice tone="error">{signOut.error.message}</Notice> : null}
       <View style={[styles.columns, wide && styles.columnsWide]}>
         <View style={styles.column}>
