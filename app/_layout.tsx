@@ -5,6 +5,7 @@ import { useFonts } from 'expo-font';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { colors } from '../components/theme';
+import '../components/csp/zod-jitless'; // before any schema parses: no eval probe under our CSP
 
 /** Root: fonts shipped in assets/fonts, the query client, safe areas. */
 export default function RootLayout() {
