@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { ActivityIndicator, Pressable, StyleSheet, Text, View } from 'react-native';
 import { useRouter } from 'expo-router';
 import type { Me } from '../../shared/schemas/auth';
 import { can } from '../../shared/permissions';
@@ -31,7 +31,9 @@ export function OwnerZone(props: { me: Me }) {
       {can(current.role, 'organisation:transfer') ? (
         <View style={styles.section}>
           <Body>Transfer ownership: the member you choose becomes owner; you stay as admin.</Body>
-          {others.length === 0 ? <Small>Invite someone first; there is nobody else to hand over to.</Small> : null}
+          {members.isPending ? <ActivityIndicator color={colors.ink} accessibilityLabel="Loading members" /> : null}
+          {members.isError ? <Notice tone="error">{members.error.message}</Notice> : null}
+          {members.data && others.length === 0 ? <Small>Invite someone first; there is nobody else to hand over to.</Small> : null}
           <View style={styles.choices} accessibilityRole="radiogroup" accessibilityLabel="New owner">
             {others.map((m) => (
               <Pressable key={m.userId} accessibilityRole="radio" accessibilityLabel={`${m.name}, ${m.email}`} accessibilityState={{ selected: target === m.userId }} onPress={() => setTarget(m.userId)} style={[styles.choice, target === m.userId && styles.choiceOn]}>

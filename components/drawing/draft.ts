@@ -1,5 +1,5 @@
 import type { Depot, Lane, NetworkDocument } from '../../shared/engine/network/types';
-import { layoutNetwork, unproject, type Positions, type Projection } from './layout';
+import { fitProjection, hasAllCoordinates, layoutNetwork, unproject, type Positions, type Projection } from './layout';
 
 /**
  * The network being edited: the document rows plus where each depot sits on the canvas.
@@ -20,7 +20,16 @@ export interface Selection {
 
 export const emptySelection: Selection = { depots: new Set(), lanes: new Set() };
 
-export function draftFromDocument(doc: Pick<NetworkDocument, 'depots' | 'lanes'>): { draft: Draft; projection: Projection | null } {
+/**
+ * A draft for a document. `knownXy` (positions from an earlier drawing of the same version, e.g.
+ * the one just saved) is used when it fits, so saving never rearranges what the user drew.
+ */
+export function draftFromDocument(doc: Pick<NetworkDocument, 'depots' | 'lanes'>, knownXy?: Positions | null): { draft: Draft; projection: Projection | null } {
+  if (knownXy && knownXy.length === 2 * doc.depots.length) {
+    const projection = hasAllCoordinates(doc.depots) ? fitProjection(doc.depots) : null;
+    // With coordinates the projection decides positions; the known ones are only for layouts.
+    if (!projection) return { draft: { depots: doc.depots, lanes: doc.lanes, xy: knownXy }, projection };
+  }
   const { xy, projection } = layoutNetwork(doc.depots, doc.lanes);
   return { draft: { depots: doc.depots, lanes: doc.lanes, xy }, projection };
 }

@@ -51,8 +51,8 @@ interface Node extends SimulationNodeDatum {
 /**
  * Depot positions: the lat/lon projection when every depot has coordinates, otherwise a d3-force
  * layout run to rest synchronously once (the simulation is stopped and ticked, never animated,
- * so a 500-depot network costs one short computation instead of 300 renders). d3-force places
- * nodes on a phyllotaxis spiral initially, so the layout is the same every time.
+ * so a 500-depot network costs one short computation instead of 300 renders). The start is
+ * deterministic, so the layout is the same every time.
  */
 export function layoutNetwork(depots: readonly Depot[], lanes: readonly { from: string; to: string }[]): { xy: Positions; projection: Projection | null } {
   const n = depots.length;
@@ -68,7 +68,12 @@ export function layoutNetwork(depots: readonly Depot[], lanes: readonly { from: 
     return { xy, projection };
   }
   const index = new Map(depots.map((d, i) => [d.id, i]));
-  const nodes: Node[] = depots.map((_, i) => ({ index: i }));
+  // Small networks start on a circle in document order: drawn rings and chains then come out
+  // untangled. Larger ones keep d3's phyllotaxis start, which spreads them more evenly.
+  const radius = (LANE_LENGTH * n) / (2 * Math.PI);
+  const nodes: Node[] = depots.map((_, i) =>
+    n <= 100 ? { index: i, x: radius * Math.cos((2 * Math.PI * i) / n - Math.PI / 2), y: radius * Math.sin((2 * Math.PI * i) / n - Math.PI / 2) } : { index: i },
+  );
   const links = lanes
     .map((l) => ({ source: index.get(l.from)!, target: index.get(l.to)! }))
     .filter((l) => l.source !== undefined && l.target !== undefined && l.source !== l.target);

@@ -3,7 +3,7 @@ import { StyleSheet, View, useWindowDimensions } from 'react-native';
 import { useRouter } from 'expo-router';
 import { can } from '../../shared/permissions';
 import { useMeQuery } from '../queries/auth';
-import { useNetworkDeleteMutation, useNetworkQuery, useNetworkRenameMutation, useNetworkVersionCreateMutation, useNetworkVersionQuery } from '../queries/networks';
+import { useVersionLayout, useNetworkDeleteMutation, useNetworkQuery, useNetworkRenameMutation, useNetworkVersionCreateMutation, useNetworkVersionQuery } from '../queries/networks';
 import { ConfirmModal, PromptModal } from '../drawing/PromptModal';
 import { NetworkNameSchema } from '../../shared/schemas/networks';
 import { space, WIDE_BREAKPOINT } from '../theme';
@@ -30,6 +30,7 @@ export function NetworkScreen(props: { id: number }) {
   const save = useNetworkVersionCreateMutation(props.id);
   const rename = useNetworkRenameMutation(props.id);
   const remove = useNetworkDeleteMutation();
+  const layouts = useVersionLayout();
   const [dirty, setDirty] = useState(false);
   const [asking, setAsking] = useState<null | 'leave' | 'delete' | 'rename' | { open: number }>(null);
 
@@ -49,21 +50,25 @@ export function NetworkScreen(props: { id: number }) {
   const leave = () => (dirty ? setAsking('leave') : router.push('/networks'));
   const open = (versionId: number) => (dirty ? setAsking({ open: versionId }) : setOpenVersionId(versionId === latestId ? null : versionId));
 
+  const actions = (
+    <View style={wide ? styles.actionsWide : styles.actionsPhone}>
+      {version ? <NewRunButton networkId={n.id} versionId={version.id} role={me.data?.current?.role ?? null} /> : null}
+      <Button label="All networks" tone="secondary" onPress={leave} />
+      {canWrite ? <Button label="Rename" tone="secondary" onPress={() => setAsking('rename')} /> : null}
+      {canWrite ? <Button label="Import new version" tone="secondary" onPress={() => router.push(`/networks/import?networkId=${n.id}`)} /> : null}
+      {canWrite ? <Button label="Delete" tone="quiet" onPress={() => setAsking('delete')} /> : null}
+    </View>
+  );
+
   return (
     <Screen
       title={n.name}
       subtitle={version ? `Version ${version.number} of ${n.versionCount} · saved ${formatWhen(version.createdAt)}` : undefined}
-      actions={
-        <View style={wide ? styles.actionsWide : styles.actionsPhone}>
-          {version ? <NewRunButton networkId={n.id} versionId={version.id} role={me.data?.current?.role ?? null} /> : null}
-          <Button label="All networks" tone="secondary" onPress={leave} />
-          {canWrite ? <Button label="Rename" tone="secondary" onPress={() => setAsking('rename')} /> : null}
-          {canWrite ? <Button label="Import new version" tone="secondary" onPress={() => router.push(`/networks/import?networkId=${n.id}`)} /> : null}
-          {canWrite ? <Button label="Delete" tone="quiet" onPress={() => setAsking('delete')} /> : null}
-        </View>
-      }
+      // On phones the header's action row cannot wrap, so the buttons go first in the page.
+      actions={wide ? actions : undefined}
       testID="network-screen"
     >
+      {!wide ? actions : null}
       {!version ? (
         <Body>Loading version…</Body>
       ) : (
@@ -73,7 +78,11 @@ export function NetworkScreen(props: { id: number }) {
           key={viewingOlder ? `v${version.id}` : 'latest'}
           document={version.document}
           readOnly={!canWrite || viewingOlder}
-          onSave={(doc) => save.mutateAsync({ depots: doc.depots, lanes: doc.lanes })}
+          knownXy={layouts.get(version.id)}
+          onSave={async (doc, xy) => {
+            const r = await save.mutateAsync({ depots: doc.depots, lanes: doc.lanes });
+            layouts.set(r.versionId, xy);
+          }}
           saving={save.isPending}
           saveError={save.isError ? save.error.message : null}
           onDirtyChange={setDirty}
@@ -132,7 +141,6 @@ export function NetworkScreen(props: { id: number }) {
 }
 
 const styles = StyleSheet.create({
-  // The header's action row does not wrap its children on phones, so the buttons take a full-width wrapping row there.
   actionsPhone: { width: '100%', flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   actionsWide: { flexDirection: 'row', gap: space.sm },
 });

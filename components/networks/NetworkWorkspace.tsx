@@ -25,8 +25,10 @@ type Tab = 'drawing' | 'depots' | 'lanes' | 'versions';
 export function NetworkWorkspace(props: {
   document: Pick<NetworkDocument, 'depots' | 'lanes'>;
   readOnly: boolean;
-  /** Saves the draft as a new version; resolves when written. */
-  onSave?: (doc: NetworkDocument) => Promise<unknown>;
+  /** Positions from an earlier drawing of this document (kept across a save). */
+  knownXy?: Float64Array | null;
+  /** Saves the draft as a new version; resolves when written. `xy` lets the screen keep the layout. */
+  onSave?: (doc: NetworkDocument, xy: Float64Array) => Promise<unknown>;
   saving?: boolean;
   saveError?: string | null;
   /** Rendered above the views (title row is the screen's). */
@@ -37,7 +39,7 @@ export function NetworkWorkspace(props: {
 }) {
   const { width } = useWindowDimensions();
   const wide = width >= WIDE_BREAKPOINT;
-  const [{ draft: initial, projection }] = useState(() => draftFromDocument(props.document));
+  const [{ draft: initial, projection }] = useState(() => draftFromDocument(props.document, props.knownXy));
   const history = useDraftHistory(initial);
   const [selection, setSelection] = useState<Selection>(emptySelection);
   const [tab, setTab] = useState<Tab>('drawing');
@@ -54,7 +56,7 @@ export function NetworkWorkspace(props: {
   const save = async () => {
     if (!props.onSave) return;
     try {
-      await props.onSave(toDocument(draft));
+      await props.onSave(toDocument(draft), draft.xy);
       history.markSaved();
     } catch {
       // The screen shows why (saveError or a field error); the draft stays unsaved.

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useRouter } from 'expo-router';
 import { NetworkNameSchema } from '../../shared/schemas/networks';
-import { useNetworkCreateMutation } from '../queries/networks';
+import { useNetworkCreateMutation, useVersionLayout } from '../queries/networks';
 import { ConfirmModal } from '../drawing/PromptModal';
 import { Button } from '../ui/Button';
 import { Screen } from '../ui/Screen';
@@ -14,6 +14,7 @@ const EMPTY = { depots: [], lanes: [] };
 export function NewNetworkScreen() {
   const router = useRouter();
   const create = useNetworkCreateMutation();
+  const layouts = useVersionLayout();
   const [name, setName] = useState('');
   const [nameError, setNameError] = useState<string | null>(null);
   const [dirty, setDirty] = useState(false);
@@ -27,13 +28,14 @@ export function NewNetworkScreen() {
         onDirtyChange={setDirty}
         saving={create.isPending}
         saveError={create.isError ? create.error.message : null}
-        onSave={async (doc) => {
+        onSave={async (doc, xy) => {
           const checked = NetworkNameSchema.safeParse(name);
           if (!checked.success) {
             setNameError(checked.error.issues[0].message);
             throw new Error(checked.error.issues[0].message);
           }
           const r = await create.mutateAsync({ name: checked.data, depots: doc.depots, lanes: doc.lanes });
+          layouts.set(r.versionId, xy); // the saved network opens exactly as drawn
           setDirty(false);
           router.replace(`/networks/${r.id}`);
         }}

@@ -15,7 +15,18 @@ export const networkKeys = {
   compare: (id: number, from: number, to: number) => [...networkKeys.detail(id), 'compare', from, to] as const,
   demos: () => [...networkKeys.root, 'demos'] as const,
   limits: () => [...networkKeys.root, 'limits'] as const,
+  /** Drawing positions of a version, kept client-side so a save never rearranges the drawing. */
+  layout: (versionId: number) => [...networkKeys.root, 'layout', versionId] as const,
 };
+
+/** Remembered drawing positions for a version (networks without coordinates are laid out in the app). */
+export function useVersionLayout() {
+  const qc = useQueryClient();
+  return {
+    get: (versionId: number) => qc.getQueryData<Float64Array>(networkKeys.layout(versionId)) ?? null,
+    set: (versionId: number, xy: Float64Array) => qc.setQueryData(networkKeys.layout(versionId), xy),
+  };
+}
 
 export interface NetworkListParams {
   search?: string;

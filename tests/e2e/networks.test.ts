@@ -93,6 +93,9 @@ describe.each([
     await expect(page.getByTestId('summary-total-volume').textContent()).resolves.toBe('53.5');
     await expect(page.getByTestId('summary-degree').textContent()).resolves.toBe('2'); // a 4-cycle: every depot has 2 neighbours
     await screenshot(page, `networks-drawn-${label}`);
+    const marks = () => page.evaluate(() => Array.from(document.querySelectorAll('svg circle[stroke-width]')).map((c) => `${c.getAttribute('cx')},${c.getAttribute('cy')}`).sort());
+    const drawn = await marks();
+    expect(drawn).toHaveLength(4);
 
     await page.getByTestId('save-network').click();
     await page.waitForURL((u) => /^\/networks\/\d+$/.test(u.pathname));
@@ -107,6 +110,9 @@ describe.each([
       { from: 'D3', to: 'D4', weight: 30 },
       { from: 'D4', to: 'D1', weight: 4 },
     ]);
+    // Saving does not rearrange the drawing: the depots sit where they were drawn.
+    await page.locator('svg circle[stroke-width]').first().waitFor();
+    expect(await marks()).toEqual(drawn);
     await screenshot(page, `networks-saved-${label}`);
 
     await page.getByRole('button', { name: 'All networks' }).click();
