@@ -210,7 +210,12 @@ export const milpSolver: SolverDefinition<MilpSettings> = {
   async solve(problem, _s, ctx) {
     const control = createRunControl(ctx);
     const rng = createRng(ctx.seed);
-    const start = quickStart(problem, rng);
+    let start = quickStart(problem, rng);
+    if (problem.kind === 'maxcut' && problem.network.n > 0) {
+      // A short tabu run gives HiGHS a strong incumbent, so its search prunes from the start.
+      const short = createRunControl(ctx, Math.min(1, 0.05 * ctx.timeLimitSeconds));
+      start = (await tabuMaxcut(problem, start, tabuMaxcutDefaults, rng, short)).side;
+    }
     const { runInWorker } = await import('../classical/threads/pool');
     const remaining = Math.max(0.1, ctx.timeLimitSeconds - control.elapsed());
     const ticker = setInterval(() => ctx.onProgress?.({ fraction: control.fraction() }), 250);
