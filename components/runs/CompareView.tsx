@@ -47,7 +47,13 @@ export function CompareView(props: { ids: number[]; role: Role | null }) {
     return `${formatValue(s.value)} · ratio ${formatRatio(s.ratio)} · gap ${formatGap(s.gap)}${s.provenOptimal ? ' · optimal' : ''} · ${formatSeconds(s.seconds)}`;
   };
   const rows: Array<{ head: string; get: (c: CompareColumn) => string }> = [
-    { head: 'Question', get: (c) => questionLabel(c.question) + (c.question.tolerance ? ` ± ${Math.round(c.question.tolerance * 100)} %` : '') },
+    {
+      head: 'Question',
+      get: (c) => {
+        const pinned = Object.keys(c.question.pins ?? {}).length;
+        return questionLabel(c.question) + (c.question.tolerance ? ` ± ${Math.round(c.question.tolerance * 100)} %` : '') + (pinned ? ` · ${pinned} pinned depot${pinned > 1 ? 's' : ''}` : ' · no pins');
+      },
+    },
     { head: 'Network', get: (c) => `${c.network} · version ${versionNumber.get(c.versionId) ?? '…'}` },
     { head: 'Best answer', get: (c) => (c.bestValue === null ? '—' : `${formatValue(c.bestValue)} by ${c.bestSolver}`) },
     { head: 'Best proven bound', get: (c) => formatValue(c.bound) },
