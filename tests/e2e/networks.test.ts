@@ -93,7 +93,7 @@ describe.each([
     await expect(page.getByTestId('summary-total-volume').textContent()).resolves.toBe('53.5');
     await expect(page.getByTestId('summary-degree').textContent()).resolves.toBe('2'); // a 4-cycle: every depot has 2 neighbours
     await screenshot(page, `networks-drawn-${label}`);
-    const marks = () => page.evaluate(() => Array.from(document.querySelectorAll('svg circle[stroke-width]')).map((c) => `${c.getAttribute('cx')},${c.getAttribute('cy')}`).sort());
+    const marks = () => page.evaluate(() => Array.from(document.querySelectorAll('svg[aria-label^="Drawing of"] circle[stroke-width]')).map((c) => `${c.getAttribute('cx')},${c.getAttribute('cy')}`).sort());
     const drawn = await marks();
     expect(drawn).toHaveLength(4);
 
@@ -111,7 +111,7 @@ describe.each([
       { from: 'D4', to: 'D1', weight: 4 },
     ]);
     // Saving does not rearrange the drawing: the depots sit where they were drawn.
-    await page.locator('svg circle[stroke-width]').first().waitFor();
+    await page.locator('svg[aria-label^="Drawing of"] circle[stroke-width]').first().waitFor();
     expect(await marks()).toEqual(drawn);
     await screenshot(page, `networks-saved-${label}`);
 
