@@ -7,7 +7,7 @@ import type { RunDetail } from '../../components/runs/types';
 jest.mock('expo-router', () => ({ useRouter: () => ({ push: jest.fn(), replace: jest.fn() }) }));
 
 const mockGet = jest.fn();
-const mockPost = jest.fn(async () => ({}));
+const mockPost = jest.fn(async (_path: string) => ({}));
 jest.mock('../../components/api/client', () => ({
   api: { get: (path: string) => mockGet(path), post: (path: string) => mockPost(path), delete: jest.fn() },
   ApiError: class extends Error {},
