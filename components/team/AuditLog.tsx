@@ -61,16 +61,16 @@ export function AuditLog() {
                 <Label style={styles.cIp}>From</Label>
               </View>
             ) : null}
-            {q.data.items.map((e) =>
+            {q.data.items.map((e, i) =>
               wide ? (
-                <View key={e.id} style={[styles.tr, styles.row]} testID="audit-row">
+                <View key={e.id} style={[styles.tr, styles.row, i > 0 && styles.divider]} testID="audit-row">
                   <Small style={styles.cWhen}>{formatDateTime(e.createdAt)}</Small>
                   <Body style={styles.cWhat}>{describeAudit(e)}</Body>
                   <Small style={styles.cWho} numberOfLines={1}>{e.actor?.email ?? '—'}</Small>
                   <Small style={styles.cIp} numberOfLines={1}>{e.ip ?? '—'}</Small>
                 </View>
               ) : (
-                <View key={e.id} style={styles.row} testID="audit-row">
+                <View key={e.id} style={[styles.row, i > 0 && styles.divider]} testID="audit-row">
                   <Body style={styles.what}>{describeAudit(e)}</Body>
                   <Small>
                     {formatDateTime(e.createdAt)}
@@ -98,7 +98,8 @@ const styles = StyleSheet.create({
   card: { gap: 0, paddingVertical: space.sm },
   th: { borderBottomWidth: 1, borderBottomColor: colors.line, paddingBottom: space.sm },
   tr: { flexDirection: 'row', alignItems: 'center', gap: space.md },
-  row: { paddingVertical: space.sm, borderBottomWidth: 1, borderBottomColor: colors.line, gap: 2 },
+  row: { paddingVertical: space.sm, gap: 2 },
+  divider: { borderTopWidth: 1, borderTopColor: colors.line },
   cWhen: { flex: 1.3 },
   cWhat: { flex: 4 },
   cWho: { flex: 2 },

@@ -83,6 +83,16 @@ test('phone: sign up, invite a colleague, the colleague accepts from the e-mail 
   await expect(page.getByTestId(`invitation-${colleague.email}`).count()).resolves.toBe(0);
   await screenshot(page, 'accounts-team-joined-phone');
 
+  await page.getByTestId('nav-account').click();
+  await page.getByTestId('tokens-panel').waitFor();
+  await screenshot(page, 'accounts-account-phone');
+  await page.getByTestId('nav-team').click();
+  await page.getByTestId('open-audit').click();
+  await page.getByTestId('audit-row').first().waitFor();
+  await screenshot(page, 'accounts-audit-phone');
+  await page.getByTestId('nav-team').click();
+  await page.getByTestId(`member-${colleague.email}`).waitFor();
+
   // Remove asks first (inline), and Cancel leaves everything as it was.
   await page.getByTestId(`member-remove-${colleague.email}`).click();
   await page.getByTestId('confirm-remove-member').waitFor();
