@@ -16,7 +16,7 @@
  * Rotation convention: R_σ(θ) = exp(−iθσ/2); the mixer exp(−iβ Σ_j X_j) = ⊗_j R_X(2β).
  */
 import type { StateVector } from './state';
-import { pairGeneral, pairRx, quadGeneral, quadRx } from './layer-kernels';
+import { highSweep, lowSweep, phaseRange, tileCount, type DiagonalLevels } from './layer-kernels';
 
 /** 2×2 complex matrix, row-major interleaved: [re00,im00,re01,im01,re10,im10,re11,im11]. */
 export type Gate2 = Float64Array;
@@ -161,16 +161,7 @@ function parityTable(size: number, masks: number[]): Uint8Array {
 
 // ---------------------------------------------------------------- diagonal phase
 
-/**
- * A cost diagonal compressed to its distinct values: diag[x] = levels[index[x]]. Max-cut and
- * partition diagonals with integer weights have few levels, so the phase needs one cos/sin per
- * level instead of per amplitude (the trig otherwise dominates a QAOA layer).
- */
-export interface DiagonalLevels {
-  levels: Float64Array;
-  /** Length 2ⁿ. */
-  index: Uint16Array | Uint32Array;
-}
+export type { DiagonalLevels } from './layer-kernels';
 
 /** Compress diag; null when it has more than maxLevels distinct values (default 65536). */
 export function diagonalLevels(diag: Float64Array, maxLevels = 65536): DiagonalLevels | null {
@@ -192,27 +183,6 @@ export function diagonalLevels(diag: Float64Array, maxLevels = 65536): DiagonalL
 }
 
 type Diagonal = Float64Array | DiagonalLevels;
-
-/** Phase amp_x *= exp(−iγ·diag[x]) on basis states start…end−1. */
-function phaseRange(a: Float64Array, diag: Diagonal, gamma: number, start: number, end: number, table: Float64Array | null): void {
-  if (table && !(diag instanceof Float64Array)) {
-    const idx = diag.index;
-    for (let x = start; x < end; x++) {
-      const k = 2 * idx[x], c = table[k], s = table[k + 1], i = 2 * x;
-      const re = a[i], im = a[i + 1];
-      a[i] = c * re + s * im;
-      a[i + 1] = c * im - s * re;
-    }
-    return;
-  }
-  const d = diag as Float64Array;
-  for (let x = start; x < end; x++) {
-    const t = gamma * d[x], c = Math.cos(t), s = Math.sin(t), i = 2 * x;
-    const re = a[i], im = a[i + 1];
-    a[i] = c * re + s * im;
-    a[i + 1] = c * im - s * re;
-  }
-}
 
 /** Interleaved [cos γE_k, sin γE_k] per level (one cache line serves both lookups). */
 function phaseTables(diag: Diagonal, gamma: number): Float64Array | null {
@@ -255,60 +225,15 @@ function productLayer(
 ): void {
   const a = s.amps, n = s.numQubits, dim = a.length >> 1;
   const low = Math.min(n, blocking.lowBits);
-  const blockLen = 1 << low;
-  const tables = phase ? phaseTables(phase.diag, phase.gamma) : null;
-  // Sweep 1: phase + qubits 0…low−1 inside each contiguous block.
-  for (let start = 0; start < dim; start += blockLen) {
-    const end = start + blockLen;
-    if (phase) phaseRange(a, phase.diag, phase.gamma, start, end, tables);
-    let q = 0;
-    for (; q + 1 < low; q += 2) {
-      if (rx) quadRx(a, start, end, 4 << q, 1 << q, 1 << q, coef);
-      else quadGeneral(a, start, end, 4 << q, 1 << q, 1 << q, coef, q);
-    }
-    if (q < low) {
-      if (rx) pairRx(a, start, end, 2 << q, 1 << q, 1 << q, coef);
-      else pairGeneral(a, start, end, 2 << q, 1 << q, 1 << q, coef, q);
-    }
-  }
-  // Further sweeps: high qubits lo…hi−1. Each tile (2^run contiguous amplitudes from each of
-  // 2^(hi−lo) rows 2^lo apart) is copied into a contiguous scratch block first: rows at a
-  // power-of-two stride all fall into the same cache sets, so working on them in place thrashes
-  // L1/L2, while the scratch copy is conflict-free and the state is still read and written once.
+  const table = phase ? phaseTables(phase.diag, phase.gamma) : null;
+  lowSweep(a, low, rx, coef, phase ? phase.diag : null, phase ? phase.gamma : 0, table, 0, dim >>> low);
   const run = Math.min(blocking.runBits, low);
   const g = Math.max(1, blocking.tileBits - run);
-  const runLen = 1 << run, runDoubles = 2 * runLen;
   // Scratch sized to the largest tile actually used (allocating more would cost a pass at small n).
-  const scratch = low < n ? new Float64Array(2 * runLen * 2 ** Math.min(g, n - low)) : null;
+  const scratch = low < n ? new Float64Array(2 * 2 ** run * 2 ** Math.min(g, n - low)) : null;
   for (let lo = low; lo < n && scratch; lo += g) {
     const hi = Math.min(n, lo + g);
-    const rows = 2 ** (hi - lo), rowStride = 2 ** lo, tileSpan = 2 ** hi;
-    const tileLen = rows * runLen;
-    const midCount = 2 ** (lo - run);
-    for (let outer = 0; outer < dim; outer += tileSpan) {
-      for (let mid = 0; mid < midCount; mid++) {
-        const base = outer + mid * runLen;
-        // TypedArray.set copies each row at memcpy speed (an element loop here is ~4× slower).
-        for (let j = 0, src = 2 * base, dst = 0; j < rows; j++, src += 2 * rowStride, dst += runDoubles) {
-          scratch.set(a.subarray(src, src + runDoubles), dst);
-        }
-        // In the scratch block qubit lo+t is bit run+t.
-        let t = 0;
-        for (; t + 1 < hi - lo; t += 2) {
-          const h = runLen * 2 ** t;
-          if (rx) quadRx(scratch, 0, tileLen, 4 * h, h, h, coef);
-          else quadGeneral(scratch, 0, tileLen, 4 * h, h, h, coef, lo + t);
-        }
-        if (t < hi - lo) {
-          const h = runLen * 2 ** t;
-          if (rx) pairRx(scratch, 0, tileLen, 2 * h, h, h, coef);
-          else pairGeneral(scratch, 0, tileLen, 2 * h, h, h, coef, lo + t);
-        }
-        for (let j = 0, dst = 2 * base, src = 0; j < rows; j++, dst += 2 * rowStride, src += runDoubles) {
-          a.set(scratch.subarray(src, src + runDoubles), dst);
-        }
-      }
-    }
+    highSweep(a, n, lo, hi, run, rx, coef, scratch, 0, tileCount(n, lo, hi, run));
   }
 }
 

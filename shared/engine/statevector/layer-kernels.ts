@@ -5,6 +5,10 @@
  * gates of qubits q and q+1 held in locals — one load and one store per amplitude for two
  * qubits, which halves the memory traffic that dominates these loops in JS.
  * amps: Float64Array // 2·2ⁿ interleaved re,im
+ *
+ * Also the two sweeps of a fused layer over a range of blocks or tiles (so the worker-thread
+ * runner can split them). Everything here is self-contained — no imports, no module state — so
+ * parallel-layers.ts can ship these functions' source text to its worker threads.
  */
 
 // Plain top-level functions (not closures): V8 keeps one optimised copy and its type feedback
@@ -97,4 +101,108 @@ export function quadGeneral(a: Float64Array, bStart: number, bEnd: number, bStep
           a[i3 + 1] = v2r * b1i + v2i * b1r + v3r * f1i + v3i * f1r;
         }
       }
+}
+
+/**
+ * A cost diagonal compressed to its distinct values: diag[x] = levels[index[x]]. Max-cut and
+ * partition diagonals with integer weights have few levels, so the phase needs one cos/sin per
+ * level instead of per amplitude (the trig otherwise dominates a QAOA layer).
+ */
+export interface DiagonalLevels {
+  levels: Float64Array;
+  /** Length 2ⁿ. */
+  index: Uint16Array | Uint32Array;
+}
+
+/** Phase amp_x *= exp(−iγ·diag[x]) on basis states start…end−1. */
+export function phaseRange(a: Float64Array, diag: Float64Array | DiagonalLevels, gamma: number, start: number, end: number, table: Float64Array | null): void {
+  if (table && !(diag instanceof Float64Array)) {
+    const idx = diag.index;
+    for (let x = start; x < end; x++) {
+      const k = 2 * idx[x], c = table[k], s = table[k + 1], i = 2 * x;
+      const re = a[i], im = a[i + 1];
+      a[i] = c * re + s * im;
+      a[i + 1] = c * im - s * re;
+    }
+    return;
+  }
+  const d = diag as Float64Array;
+  for (let x = start; x < end; x++) {
+    const t = gamma * d[x], c = Math.cos(t), s = Math.sin(t), i = 2 * x;
+    const re = a[i], im = a[i + 1];
+    a[i] = c * re + s * im;
+    a[i + 1] = c * im - s * re;
+  }
+}
+
+
+/**
+ * Sweep 1 over blocks blockFrom…blockTo−1 of 2^low amplitudes: the phase (when diag is given;
+ * table = interleaved cos/sin per level for DiagonalLevels), then qubits 0…low−1 in the block.
+ * rx: coef = [cos β, sin β] for the mixer; otherwise coef holds 8 numbers per qubit.
+ */
+export function lowSweep(
+  a: Float64Array, low: number, rx: boolean, coef: Float64Array,
+  diag: Float64Array | DiagonalLevels | null, gamma: number, table: Float64Array | null,
+  blockFrom: number, blockTo: number,
+): void {
+  const blockLen = 2 ** low;
+  for (let b = blockFrom; b < blockTo; b++) {
+    const start = b * blockLen, end = start + blockLen;
+    if (diag) phaseRange(a, diag, gamma, start, end, table);
+    let q = 0;
+    for (; q + 1 < low; q += 2) {
+      if (rx) quadRx(a, start, end, 4 << q, 1 << q, 1 << q, coef);
+      else quadGeneral(a, start, end, 4 << q, 1 << q, 1 << q, coef, q);
+    }
+    if (q < low) {
+      if (rx) pairRx(a, start, end, 2 << q, 1 << q, 1 << q, coef);
+      else pairGeneral(a, start, end, 2 << q, 1 << q, 1 << q, coef, q);
+    }
+  }
+}
+
+/** Tiles in the sweep over high qubits lo…hi−1 (2^run contiguous amplitudes per row). */
+export function tileCount(n: number, lo: number, hi: number, run: number): number {
+  return 2 ** (n - hi) * 2 ** (lo - run);
+}
+
+/**
+ * A sweep over high qubits lo…hi−1, tiles tileFrom…tileTo−1. Each tile (2^run contiguous
+ * amplitudes from each of 2^(hi−lo) rows 2^lo apart) is copied into the contiguous scratch block
+ * first: rows at a power-of-two stride all fall into the same cache sets, so working on them in
+ * place thrashes L1/L2, while the copy is conflict-free and the state is still read and written
+ * once. scratch: ≥ 2·2^(run + hi − lo) numbers.
+ */
+export function highSweep(
+  a: Float64Array, n: number, lo: number, hi: number, run: number, rx: boolean, coef: Float64Array,
+  scratch: Float64Array, tileFrom: number, tileTo: number,
+): void {
+  const runLen = 2 ** run, runDoubles = 2 * runLen;
+  const rows = 2 ** (hi - lo), rowStride = 2 ** lo, tileSpan = 2 ** hi;
+  const tileLen = rows * runLen;
+  const midCount = 2 ** (lo - run);
+  for (let tile = tileFrom; tile < tileTo; tile++) {
+    const outer = Math.floor(tile / midCount), mid = tile - outer * midCount;
+    const base = outer * tileSpan + mid * runLen;
+    // TypedArray.set copies each row at memcpy speed (an element loop here is ~4× slower).
+    for (let j = 0, src = 2 * base, dst = 0; j < rows; j++, src += 2 * rowStride, dst += runDoubles) {
+      scratch.set(a.subarray(src, src + runDoubles), dst);
+    }
+    // In the scratch block qubit lo+t is bit run+t.
+    let t = 0;
+    for (; t + 1 < hi - lo; t += 2) {
+      const h = runLen * 2 ** t;
+      if (rx) quadRx(scratch, 0, tileLen, 4 * h, h, h, coef);
+      else quadGeneral(scratch, 0, tileLen, 4 * h, h, h, coef, lo + t);
+    }
+    if (t < hi - lo) {
+      const h = runLen * 2 ** t;
+      if (rx) pairRx(scratch, 0, tileLen, 2 * h, h, h, coef);
+      else pairGeneral(scratch, 0, tileLen, 2 * h, h, h, coef, lo + t);
+    }
+    for (let j = 0, dst = 2 * base, src = 0; j < rows; j++, dst += 2 * rowStride, src += runDoubles) {
+      a.set(scratch.subarray(src, src + runDoubles), dst);
+    }
+  }
 }
