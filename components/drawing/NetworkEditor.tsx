@@ -65,6 +65,8 @@ export function NetworkEditor(props: {
   const [pending, setPending] = useState<{ from: number; x: number; y: number } | null>(null);
   const [prompt, setPrompt] = useState<Prompt>(null);
   const [message, setMessage] = useState<string | null>(null);
+  // Names stay readable up to a couple of dozen depots; beyond that they are on request.
+  const [labels, setLabels] = useState(draft.depots.length <= 24);
   const fitted = useRef(false);
 
   const ends = useMemo(() => laneEnds(draft), [draft]);
@@ -263,6 +265,7 @@ export function NetworkEditor(props: {
             pendingLane={pending}
             depotColors={props.depotColors}
             emphasisedLanes={props.emphasisedLanes}
+            showLabels={labels}
           />
         ) : null}
         <View
@@ -274,6 +277,7 @@ export function NetworkEditor(props: {
           testID="drawing-canvas"
         />
         <View style={styles.zoom}>
+          <Button label={labels ? 'Hide names' : 'Names'} tone="secondary" onPress={() => setLabels((v) => !v)} accessibilityHint="Show or hide depot names in the drawing" />
           <Button label="Fit" tone="secondary" onPress={fit} accessibilityHint="Show the whole network" />
           <Button label="+" tone="secondary" onPress={() => zoomCentre(1.25)} accessibilityHint="Zoom in" testID="zoom-in" />
           <Button label="−" tone="secondary" onPress={() => zoomCentre(0.8)} accessibilityHint="Zoom out" testID="zoom-out" />

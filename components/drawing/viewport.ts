@@ -15,7 +15,7 @@ export const toWorld = (t: ViewTransform, sx: number, sy: number): [number, numb
 export const toScreen = (t: ViewTransform, wx: number, wy: number): [number, number] => [wx * t.k + t.x, wy * t.k + t.y];
 
 /** The transform that shows every depot inside width×height with `padding` px to spare. */
-export function fitTransform(xy: Positions, width: number, height: number, padding = 36): ViewTransform {
+export function fitTransform(xy: Positions, width: number, height: number, padding = 48): ViewTransform {
   const n = xy.length / 2;
   if (n === 0 || width <= 0 || height <= 0) return { k: 1, x: width / 2, y: height / 2 };
   let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;

@@ -33,7 +33,7 @@ export function DepotsTable(props: { depots: readonly Depot[]; lanes: readonly L
     <View accessibilityRole="list" accessibilityLabel="Depots" testID="depots-table">
       <View style={[styles.row, styles.head]}>
         {cols.map((c, k) => (
-          <Small key={c} style={[styles.cell, k === 0 || (props.wide && k === 1) ? styles.grow : styles.num]}>{c}</Small>
+          <Small key={c} style={[styles.cell, props.wide ? (k === 0 ? styles.idCol : k === 1 ? styles.nameCol : styles.num) : k === 0 ? styles.grow : styles.num]}>{c}</Small>
         ))}
       </View>
       {props.depots.slice(0, shown).map((d, i) => {
@@ -51,8 +51,8 @@ export function DepotsTable(props: { depots: readonly Depot[]; lanes: readonly L
           >
             {props.wide ? (
               <>
-                <Body style={[styles.cell, styles.grow, styles.mono]} numberOfLines={1}>{d.id}</Body>
-                <Body style={[styles.cell, styles.grow]} numberOfLines={1}>{d.name ?? '—'}</Body>
+                <Body style={[styles.cell, styles.idCol, styles.mono]} numberOfLines={1}>{d.id}</Body>
+                <Body style={[styles.cell, styles.nameCol]} numberOfLines={1}>{d.name ?? '—'}</Body>
                 <Body style={[styles.cell, styles.num]}>{d.lat ?? '—'}</Body>
                 <Body style={[styles.cell, styles.num]}>{d.lon ?? '—'}</Body>
               </>
@@ -78,6 +78,8 @@ export const tableStyles = StyleSheet.create({
   selected: { backgroundColor: '#F6DDB2' },
   cell: { paddingVertical: space.xs },
   grow: { flex: 2, minWidth: 0 },
+  idCol: { flex: 1.2, minWidth: 0 },
+  nameCol: { flex: 3, minWidth: 0 },
   num: { flex: 1, textAlign: 'right', fontVariant: ['tabular-nums'] },
   mono: { fontFamily: 'monospace', fontSize: 13 },
 });

@@ -1,4 +1,4 @@
-import { useMutation, useQueries, useQuery, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, useMutation, useQueries, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../api/client';
 import type { VersionDetail } from '../../shared/schemas/networks';
 import type { CreateRunBody, PreviewBody, RunDetail, RunListItem, RunPreview, RunProblem, SolverOption } from '../runs/types';
@@ -90,6 +90,7 @@ export function useSolverDefaultsQuery(versionId: number | null, problem: RunPro
     queryKey: runKeys.defaults(versionId ?? 0, problem),
     enabled: !!versionId,
     staleTime: STALE.static,
+    placeholderData: keepPreviousData,
     queryFn: () => api.post<SolverDefaultsAnswer>('/solvers/defaults', { versionId, problem }),
   });
 }
@@ -101,6 +102,8 @@ export function useRunPreviewQuery(body: PreviewBody | null) {
     enabled: !!body && body.solvers.length > 0,
     staleTime: STALE.detail,
     retry: false,
+    // Keep showing the last summary while the next one loads (typing a precision, tapping pins).
+    placeholderData: keepPreviousData,
     queryFn: () => api.post<RunPreview>('/runs/preview', body),
   });
 }

@@ -34,7 +34,7 @@ const money = (p: NonNullable<RunPreview['price']>) => p.label ?? `${(p.amount /
  * weights and the rule that set them, measurement groups, the shots for the chosen precision,
  * the time estimate, refusals — and the price only when the preview returns one.
  */
-export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOption[]; title?: string }) {
+export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOption[]; title?: string; children?: React.ReactNode }) {
   const { preview } = props;
   const enc = preview.encoding;
   const label = (name: string) => props.solvers?.find((s) => s.name === name)?.label ?? name;
@@ -69,6 +69,7 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
             <Small>No penalty terms: every assignment is a valid answer to this question.</Small>
           )}
           {enc.shotRule ? <Small>{enc.shotRule}</Small> : null}
+          {props.children}
         </>
       ) : (
         <Small>{preview.encodingNote ?? 'This question is too large for a direct quantum encoding; classical solvers and decomposition still apply.'}</Small>

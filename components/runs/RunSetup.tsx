@@ -123,12 +123,15 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
 
   const summary = (
     <View style={styles.stack}>
-      {preview.data ? <EncodingSummary preview={preview.data} solvers={solvers.data} /> : null}
+      {preview.data ? (
+        <EncodingSummary preview={preview.data} solvers={solvers.data}>
+          {preview.data.encoding ? (
+            <TextField label="Precision for the shot estimate (standard error of the energy)" value={s.precision} onChangeText={(t) => set({ precision: t })} keyboardType="numeric" hint={`Blank = 1 % of total lane weight (${preview.data.encoding.precision}).`} testID="precision" />
+          ) : null}
+        </EncodingSummary>
+      ) : null}
       {preview.isError ? <Notice tone="error">{preview.error.message}</Notice> : null}
       {preview.isFetching && !preview.data ? <Small>Building the encoding summary…</Small> : null}
-      {preview.data?.encoding ? (
-        <TextField label="Precision for the shot estimate (standard error of the energy)" value={s.precision} onChangeText={(t) => set({ precision: t })} keyboardType="numeric" hint={`Blank = 1 % of total lane weight (${preview.data.encoding.precision}).`} testID="precision" />
-      ) : null}
       {create.isError ? <Notice tone="error">{create.error.message}</Notice> : null}
       {mayStart ? (
         <Button label={chosen.length ? `Start run with ${chosen.length} solver${chosen.length > 1 ? 's' : ''}` : 'Choose at least one solver'} onPress={launch} busy={create.isPending} disabled={chosen.length === 0} testID="start-run" />

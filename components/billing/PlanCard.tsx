@@ -1,0 +1,31 @@
+import { StyleSheet, View } from 'react-native';
+import { planPrices } from '../../shared/plans';
+import type { BillingSummary } from '../../shared/schemas/billing';
+import { space } from '../theme';
+import { Card } from '../ui/Card';
+import { Body, Heading, Small } from '../ui/Text';
+import { euros } from './format';
+
+/** What the plan includes for free and how a larger solve is priced (the same table the API uses). */
+export function PlanCard(props: { summary: BillingSummary }) {
+  const { plan, runsThisMonth } = props.summary;
+  const p = planPrices(plan.id);
+  return (
+    <Card style={styles.card} testID="billing-plan">
+      <Heading>{`${plan.label} plan`}</Heading>
+      <Body>{`Free: runs up to ${plan.includedDepots} depots, ${plan.includedQubits} qubits and ${plan.includedSeconds} s per solver — ${runsThisMonth} of ${plan.monthlyFreeRuns} included runs used this month.`}</Body>
+      <View style={styles.list}>
+        <Small>{`Large solve: ${euros(p.largeRunBase)} per run`}</Small>
+        <Small>{`+ ${euros(p.per100DepotsOver)} per started 100 depots above ${plan.includedDepots}`}</Small>
+        <Small>{`+ ${euros(p.perQubitDoubling)} × (2^extra − 1) per variational solver above ${plan.includedQubits} qubits`}</Small>
+        <Small>{`+ ${euros(p.perExtraMinute)} per solver per started minute above ${plan.includedSeconds} s`}</Small>
+        <Small>{`Runs beyond the monthly allowance: ${euros(p.smallRun)} each`}</Small>
+      </View>
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  card: { flex: 1, minWidth: 280 },
+  list: { gap: space.xs },
+});
