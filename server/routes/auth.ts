@@ -147,7 +147,8 @@ export function authRoutes(deps: Deps): RouteSpec[] {
       status: 202,
       before: [limits.resetPerIp, limits.resetPerEmail],
       handler: async ({ body, req }) => {
-        await requestPasswordReset(deps, body.email, clientIp(req));
+        // In the background: the answer must not take longer when the address has an account.
+        void requestPasswordReset(deps, body.email, clientIp(req)).catch((err) => deps.logger.error({ err }, 'password reset request failed'));
         return { accepted: true, message: 'If an account uses this address, a reset link is on its way. It works once, for one hour.' };
       },
     },

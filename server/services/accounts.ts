@@ -50,7 +50,7 @@ export async function signUp(deps: AccountDeps, input: SignUp, ip: string | null
 /** The user when e-mail and password match, else null (same work either way). */
 export async function checkCredentials(deps: AccountDeps, email: string, password: string): Promise<UserModel | null> {
   const user = await findUserByEmail(deps, email);
-  if (!user) return verifyAgainstNothing(password).then(() => null);
+  if (!user) return verifyAgainstNothing(password, bcryptCost(deps.config.NODE_ENV)).then(() => null);
   return (await verifyPassword(password, user.passwordHash)) ? user : null;
 }
 

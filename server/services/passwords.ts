@@ -30,10 +30,13 @@ export function verifyPassword(password: string, hash: string): Promise<boolean>
   return bcrypt.compare(password, hash);
 }
 
-/** A hash to compare against when the e-mail is unknown, so both answers take the same time. */
-let dummyHash: string | null = null;
-export async function verifyAgainstNothing(password: string): Promise<false> {
-  dummyHash ??= await bcrypt.hash('no-such-account-placeholder', 10);
-  await bcrypt.compare(password, dummyHash);
+/**
+ * Compare against a placeholder hash of the same cost when the e-mail is unknown, so "no such
+ * account" takes as long as "wrong password". The placeholder is made once per cost (a memo).
+ */
+const placeholderHashes = new Map<number, Promise<string>>();
+export async function verifyAgainstNothing(password: string, cost: number): Promise<false> {
+  if (!placeholderHashes.has(cost)) placeholderHashes.set(cost, bcrypt.hash('no-such-account-placeholder', cost));
+  await bcrypt.compare(password, await placeholderHashes.get(cost)!);
   return false;
 }
