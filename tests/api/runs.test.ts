@@ -166,17 +166,17 @@ describe('cancel and retry', () => {
 
   test('a queued job is cancelled at once and never runs', async () => {
     const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Queued only', 200, randomEdges(200, 0.03, 9)));
-    // Two long jobs fill both slots of the worker; the third waits.
-    const fillers = await as(org.tokens.dispatcher).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }, { solver: 'anneal' }], timeLimitSeconds: 20 });
-    await waitFor('both slots busy', async () => (await as(org.tokens.viewer).get(`/runs/${fillers.body.id}`)).body.jobs.every((j: any) => j.status === 'running'), 30_000);
-    const waiting = await as(org.tokens.dispatcher).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 5 });
-    const cancelled = await as(org.tokens.dispatcher).post(`/runs/${waiting.body.id}/cancel`);
-    expect(cancelled.body.status).toBe('cancelled');
-    expect(cancelled.body.jobs[0]).toMatchObject({ status: 'cancelled', startedAt: null, attempt: 0 });
-    await as(org.tokens.dispatcher).post(`/runs/${fillers.body.id}/cancel`).expect(200);
-    await finished(org.tokens.viewer, fillers.body.id, 10_000);
+    // Three 20 s jobs on a worker with two slots: the third is still queued when the cancel comes.
+    const created = await as(org.tokens.dispatcher).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }, { solver: 'anneal' }, { solver: 'tabu' }], timeLimitSeconds: 20 });
+    expect(created.status).toBe(201);
+    const cancelled = await as(org.tokens.dispatcher).post(`/runs/${created.body.id}/cancel`);
+    expect(cancelled.status).toBe(200);
+    const run = await finished(org.tokens.viewer, created.body.id, 10_000);
+    expect(run.status).toBe('cancelled');
+    expect(run.jobs.every((j: any) => j.status === 'cancelled')).toBe(true);
+    expect(run.jobs[2]).toMatchObject({ startedAt: null, attempt: 0, result: null });
     await new Promise((r) => setTimeout(r, 500));
-    expect((await as(org.tokens.viewer).get(`/runs/${waiting.body.id}`)).body.jobs[0].attempt).toBe(0);
+    expect((await as(org.tokens.viewer).get(`/runs/${created.body.id}`)).body.jobs[2].attempt).toBe(0);
   });
 });
 
