@@ -19,7 +19,7 @@ import { createRng } from '../../shared/engine/random';
 import { crossingWeight } from '../../shared/engine/problem/evaluate';
 import { exactSolver, fmSolver, milpSolver, tabuSolver } from '../../shared/engine/solvers/classical';
 import { tabuMaxcut, tabuMaxcutDefaults } from '../../shared/engine/classical/tabu-maxcut';
-import { createRunControl } from '../../shared/engine/classical/run-control';
+import type { RunControl } from '../../shared/engine/classical/run-control';
 import { randomSides } from '../../shared/engine/classical/balance';
 
 const DATA = '/work/shared/data/gset';
@@ -57,25 +57,50 @@ function bestKnownRows(): Array<{ instance: string; best: number; status: string
   });
 }
 
+/**
+ * A RunControl on this process's CPU time (user + system): "20 s on one core" even when the
+ * shared cores give the benchmark only part of a core.
+ */
+function cpuControl(limitSeconds: number): RunControl {
+  const t0 = process.cpuUsage();
+  let lastYield = Date.now();
+  const elapsed = (): number => {
+    const u = process.cpuUsage(t0);
+    return (u.user + u.system) / 1e6;
+  };
+  const control: RunControl = {
+    elapsed,
+    shouldStop: () => elapsed() >= limitSeconds,
+    fraction: () => Math.min(1, elapsed() / limitSeconds),
+    async tick() {
+      if (Date.now() - lastYield >= 50) {
+        lastYield = Date.now();
+        await new Promise((resolve) => setTimeout(resolve, 0));
+      }
+      return control.shouldStop();
+    },
+  };
+  return control;
+}
+
 async function gsetTable(lines: string[]): Promise<void> {
   const rows = bestKnownRows().filter((r) => !only || only.includes(r.instance));
-  lines.push(`### G-set max-cut, tabu (breakout local search), ${limit} s per instance, one core, seed 1`, '');
-  lines.push('| instance | n | lanes | best known | tabu | gap to best known | time to best (s) | CPU s used | moves |');
+  lines.push(`### G-set max-cut, tabu (breakout local search), ${limit} CPU s per instance, one thread, seed 1`, '');
+  lines.push('| instance | n | lanes | best known | tabu | gap to best known | CPU s to best | wall s | moves |');
   lines.push('|---|---:|---:|---:|---:|---:|---:|---:|---:|');
   const gaps: number[] = [];
   for (const row of rows) {
     const { n, edges } = readInstance(path.join(DATA, `${row.instance}.txt`));
     const problem = problemOf(n, edges);
     const rng = createRng(1);
-    const control = createRunControl({ seed: 1, timeLimitSeconds: limit });
-    const cpu0 = process.cpuUsage();
+    const control = cpuControl(limit);
+    const wall0 = Date.now();
     const run = await tabuMaxcut(problem, randomSides(problem, rng), tabuMaxcutDefaults, rng, control, row.best);
-    const cpu = process.cpuUsage(cpu0);
-    const cpuSeconds = (cpu.user + cpu.system) / 1e6;
+    const wallSeconds = (Date.now() - wall0) / 1000;
     const value = crossingWeight(problem, run.side);
     const gap = (row.best - value) / row.best;
     gaps.push(gap);
-    const line = `| ${row.instance} | ${n} | ${edges.length} | ${row.best} | ${value} | ${(100 * gap).toFixed(3)} % | ${run.bestAt.toFixed(2)} | ${cpuSeconds.toFixed(1)} | ${run.moves} |`;
+    const line = `| ${row.instance} | ${n} | ${edges.length} | ${row.best} | ${value} | ${(100 * gap).toFixed(3)} % | ${run.bestAt.toFixed(2)} | ${wallSeconds.toFixed(1)} | ${run.moves} |`;
     lines.push(line);
     console.log(line);
   }
@@ -202,8 +227,8 @@ async function main(): Promise<void> {
     '',
     'What is measured: the `tabu` engine (breakout-style tabu search, gain buckets for integer lanes, epochs alternating',
     'breakout jumps and a plain tabu walk) against the best-known G-set cuts of Benlic & Hao (2013), one seed, one core;',
-    'time to best is the wall-clock second the final value was first reached (the run stops early at the best known value);',
-    'the limit is wall-clock, so "CPU s used" shows how much of it this process actually got on the shared cores.',
+    'the limit and "CPU s to best" are CPU seconds of this process (one thread), because the 2 cores are shared with other',
+    'work while measuring; the run stops early at the best known value; "wall s" is the elapsed time it took.',
     '`exact` enumeration time (Gray code, O(1) per state in the inner block, two worker threads); `fm` / `tabu` on',
     'partitioning instances with known optima; and a doubling search for the largest sparse max-cut network HiGHS',
     'solves to proven optimality within 60 s.',
