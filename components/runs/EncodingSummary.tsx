@@ -3,6 +3,7 @@ import { space } from '../theme';
 import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
 import { Body, Heading, Label, Small } from '../ui/Text';
+import { formatMoney } from '../../shared/plans';
 import { formatCount, formatSeconds, formatValue } from './format';
 import type { RunPreview, SolverOption } from './types';
 
@@ -27,7 +28,7 @@ export function estimatedSeconds(preview: RunPreview): number | null {
   return most;
 }
 
-const money = (p: NonNullable<RunPreview['price']>) => p.label ?? `${(p.amount / 100).toFixed(2)} ${p.currency.toUpperCase()}`;
+const money = (p: NonNullable<RunPreview['price']>) => p.label ?? formatMoney(p);
 
 /**
  * The cost operator a run will use, before it starts: qubits, Pauli terms, offset, penalty
@@ -75,6 +76,16 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
         <Small>{preview.encodingNote ?? 'This question is too large for a direct quantum encoding; classical solvers and decomposition still apply.'}</Small>
       )}
       {enc === null && estimate !== null ? <Small testID="enc-time">Estimated time: at most {formatSeconds(estimate)} per solver.</Small> : null}
+      {preview.price?.lines?.length ? (
+        <View style={styles.list} testID="enc-price-lines">
+          <Label>This is a paid run: it starts once paid</Label>
+          {preview.price.lines.map((l) => (
+            <Small key={l.label}>
+              {l.label}: {formatMoney({ amount: l.amount, currency: preview.price!.currency })}
+            </Small>
+          ))}
+        </View>
+      ) : null}
       {preview.limitProblem ? <Notice tone="error">{preview.limitProblem}</Notice> : null}
       {notAllowed.length > 0 ? <Notice tone="caution">Changed settings need the analyst role: {notAllowed.map((s) => label(s.solver)).join(', ')}.</Notice> : null}
       {preview.fields && Object.keys(preview.fields).length > 0 ? (

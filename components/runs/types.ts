@@ -64,6 +64,8 @@ export interface Price {
   amount: number;
   currency: string;
   label?: string;
+  /** What the price is made of (billing's priceOfRun), when given. */
+  lines?: { label: string; amount: number }[];
 }
 
 /** POST /api/runs/preview (server/services/runs.ts previewRun). */

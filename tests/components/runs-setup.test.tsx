@@ -96,8 +96,9 @@ describe('<EncodingSummary>', () => {
     expect(screen.queryByTestId('enc-price')).toBeNull();
     expect(estimatedSeconds(preview)).toBe(12);
   });
-  test('shows the price when the preview has one', () => {
-    render(<EncodingSummary preview={{ ...preview, price: { amount: 250, currency: 'eur' } }} />);
-    expect(screen.getByTestId('enc-price').textContent).toBe('2.50 EUR');
+  test('shows the price and its lines when the preview has one (money written by shared/plans.ts)', () => {
+    render(<EncodingSummary preview={{ ...preview, price: { amount: 250, currency: 'eur', lines: [{ label: 'Depots above the plan', amount: 150 }, { label: 'Qubits above the plan', amount: 100 }] } }} />);
+    expect(screen.getByTestId('enc-price').textContent).toBe('€2.50');
+    expect(screen.getByTestId('enc-price-lines').textContent).toContain('Depots above the plan: €1.50');
   });
 });
