@@ -1,10 +1,7 @@
-import { Screen } from '../../components/ui/Screen';
-import { EmptyState } from '../../components/ui/EmptyState';
+import { useLocalSearchParams } from 'expo-router';
+import { BillingScreen } from '../../components/billing/BillingScreen';
 
-export default function BillingScreen() {
-  return (
-    <Screen title="Billing">
-      <EmptyState title="Billing" message="Plan, credits, seats and receipts appear here." />
-    </Screen>
-  );
+export default function BillingRoute() {
+  const { checkout } = useLocalSearchParams<{ checkout?: string }>();
+  return <BillingScreen checkout={typeof checkout === 'string' ? checkout : undefined} />;
 }

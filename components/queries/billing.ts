@@ -26,9 +26,25 @@ export function useBillingPaymentsQuery(enabled = true) {
   return useQuery({ queryKey: billingKeys.payments(), staleTime: STALE.list, enabled, queryFn: () => api.get<PaymentView[]>('/billing/payments') });
 }
 
-/** The price of a held run and how it stands (404 = a free run: no charge). */
-export function useRunChargeQuery(runId: number, enabled = true) {
-  return useQuery({ queryKey: billingKeys.run(runId), staleTime: STALE.live, enabled, retry: false, queryFn: () => api.get<RunChargeView>(`/billing/runs/${runId}`) });
+/**
+ * The price of a held run and how it stands (404 = a free run: no charge). `confirming` polls
+ * while it is still awaiting — after the payment page sent the payer back, the provider's event
+ * may land a moment later — and refreshes the run once it is paid.
+ */
+export function useRunChargeQuery(runId: number, opts: { enabled?: boolean; confirming?: boolean } = {}) {
+  const qc = useQueryClient();
+  return useQuery({
+    queryKey: billingKeys.run(runId),
+    staleTime: STALE.live,
+    enabled: opts.enabled ?? true,
+    retry: false,
+    refetchInterval: (query) => (opts.confirming && query.state.data?.status === 'awaiting' ? 1000 : false),
+    queryFn: async () => {
+      const charge = await api.get<RunChargeView>(`/billing/runs/${runId}`);
+      if (charge.status !== 'awaiting') void qc.invalidateQueries({ queryKey: runKeys.detail(runId) });
+      return charge;
+    },
+  });
 }
 
 /** Open the provider's payment page in this tab (on the web) or the browser (native). */

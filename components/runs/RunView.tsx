@@ -22,6 +22,7 @@ import { Scorecard } from './Scorecard';
 import { buildScorecard } from './scorecard';
 import type { RunDetail, RunJob } from './types';
 import { useLiveTraces } from './useLiveTraces';
+import { RunPaymentPanel } from '../billing/RunPaymentPanel';
 
 export const STATUS_TEXT: Record<string, string> = {
   queued: 'Waiting for a worker',
@@ -173,7 +174,7 @@ export function RunView(props: { id: number; role: Role | null }) {
       subtitle={`${questionLabel(r.problem)} · ${r.networkName ?? `network ${r.networkId}`}${version.data ? ` · version ${version.data.number}` : ''} · ${STATUS_TEXT[r.status] ?? r.status}`}
       actions={can(props.role, 'runs:compare') && !live ? <Button label="Compare with…" tone="secondary" onPress={() => router.push(`/runs?compare=${r.id}`)} testID="compare-from-run" /> : null}
     >
-      {r.status === 'awaiting_payment' ? <Notice tone="caution">This run waits for payment before it is queued.</Notice> : null}
+      <RunPaymentPanel runId={r.id} role={props.role} awaiting={r.status === 'awaiting_payment'} />
       {finishedAny ? <DecisionSupportNote /> : null}
       {finishedAny && card ? (
         <Card>
