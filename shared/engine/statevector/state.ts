@@ -18,6 +18,8 @@ export const DEFAULT_MAX_QUBITS = 26;
 export interface StateOptions {
   /** Refuse states above this many qubits (default DEFAULT_MAX_QUBITS = 26, i.e. 1 GiB). */
   maxQubits?: number;
+  /** Allocate on a SharedArrayBuffer (needed by the worker-thread runner, parallel-layers.ts). */
+  shared?: boolean;
 }
 
 /** Bytes a state of n qubits needs: 2ⁿ complex doubles. */
@@ -66,7 +68,8 @@ export function checkQubitCount(numQubits: number, opts?: StateOptions): void {
 function allocate(numQubits: number, opts?: StateOptions): Float64Array {
   checkQubitCount(numQubits, opts);
   try {
-    return new Float64Array(2 * 2 ** numQubits);
+    const length = 2 * 2 ** numQubits;
+    return opts?.shared ? new Float64Array(new SharedArrayBuffer(8 * length)) : new Float64Array(length);
   } catch {
     // The engine cannot see free memory (no process/os reads); report the failure in the same words.
     throw new QubitLimitError(numQubits, numQubits - 1);
