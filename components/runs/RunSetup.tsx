@@ -2,6 +2,7 @@ import { useEffect, useMemo, useState } from 'react';
 import { StyleSheet, View, useWindowDimensions } from 'react-native';
 import { useRouter } from 'expo-router';
 import { can, type Role } from '../../shared/permissions';
+import { formatMoney } from '../../shared/plans';
 import { OPTIMIZER_NAMES } from '../../shared/engine/variational/optimize';
 import { useRunCreateMutation, useRunPreviewQuery, useRunVersionQuery, useSolverDefaultsQuery, useSolversQuery } from '../queries/runs';
 import { space, WIDE_BREAKPOINT } from '../theme';
@@ -134,7 +135,13 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
       {preview.isFetching && !preview.data ? <Small>Building the encoding summary…</Small> : null}
       {create.isError ? <Notice tone="error">{create.error.message}</Notice> : null}
       {mayStart ? (
-        <Button label={chosen.length ? `Start run with ${chosen.length} solver${chosen.length > 1 ? 's' : ''}` : 'Choose at least one solver'} onPress={launch} busy={create.isPending} disabled={chosen.length === 0} testID="start-run" />
+        <Button
+          label={
+            !chosen.length
+              ? 'Choose at least one solver'
+              : `Start run with ${chosen.length} solver${chosen.length > 1 ? 's' : ''}${preview.data?.price ? ` (paid run: ${preview.data.price.label ?? formatMoney(preview.data.price)}, pay next)` : ''}`
+          }
+          onPress={launch} busy={create.isPending} disabled={chosen.length === 0} testID="start-run" />
       ) : (
         <Notice>Your role can read runs but not start them. Ask a dispatcher or analyst.</Notice>
       )}
