@@ -24,9 +24,10 @@ export function BillingScreen(props: { checkout?: string }) {
   const role = me.data?.current?.role ?? null;
   const allowed = can(role, 'billing:read');
   const canBuy = can(role, 'billing:manage');
-  const summary = useBillingQuery(allowed);
-  const ledger = useBillingLedgerQuery(allowed);
-  const payments = useBillingPaymentsQuery(allowed);
+  const confirming = props.checkout === 'success';
+  const summary = useBillingQuery(allowed, confirming);
+  const ledger = useBillingLedgerQuery(allowed, confirming);
+  const payments = useBillingPaymentsQuery(allowed, confirming);
   const wide = useWindowDimensions().width >= WIDE_BREAKPOINT;
   if (me.data && !allowed) {
     return (

@@ -14,16 +14,19 @@ export const billingKeys = {
   run: (runId: number) => [...billingKeys.root, 'run', runId] as const,
 };
 
-export function useBillingQuery(enabled = true) {
-  return useQuery({ queryKey: billingKeys.summary(), staleTime: STALE.detail, enabled, queryFn: () => api.get<BillingSummary>('/billing') });
+/** Right after the payment page sent the payer back, the provider's event may land a moment later: poll briefly. */
+const confirmingPoll = (confirming: boolean) => (query: { state: { dataUpdateCount: number } }) => (confirming && query.state.dataUpdateCount < 10 ? 1000 : false);
+
+export function useBillingQuery(enabled = true, confirming = false) {
+  return useQuery({ queryKey: billingKeys.summary(), staleTime: STALE.detail, enabled, refetchInterval: confirmingPoll(confirming), queryFn: () => api.get<BillingSummary>('/billing') });
 }
 
-export function useBillingLedgerQuery(enabled = true) {
-  return useQuery({ queryKey: billingKeys.ledger(), staleTime: STALE.list, enabled, queryFn: () => api.get<{ balance: number; entries: LedgerEntryView[] }>('/billing/ledger') });
+export function useBillingLedgerQuery(enabled = true, confirming = false) {
+  return useQuery({ queryKey: billingKeys.ledger(), staleTime: STALE.list, enabled, refetchInterval: confirmingPoll(confirming), queryFn: () => api.get<{ balance: number; entries: LedgerEntryView[] }>('/billing/ledger') });
 }
 
-export function useBillingPaymentsQuery(enabled = true) {
-  return useQuery({ queryKey: billingKeys.payments(), staleTime: STALE.list, enabled, queryFn: () => api.get<PaymentView[]>('/billing/payments') });
+export function useBillingPaymentsQuery(enabled = true, confirming = false) {
+  return useQuery({ queryKey: billingKeys.payments(), staleTime: STALE.list, enabled, refetchInterval: confirmingPoll(confirming), queryFn: () => api.get<PaymentView[]>('/billing/payments') });
 }
 
 /**
