@@ -10,7 +10,7 @@ import { loadConfig, ConfigError } from './config';
 import { createDeps, closeDeps, type Deps } from './deps';
 import { databaseUp } from './db';
 import { loadRunsConfig, type RunsConfig } from './services/queue-config';
-import { CANCEL_CHANNEL, closeSolveQueue, reconcileQueue, type SolveJobData } from './services/queue';
+import { cancelChannel, closeSolveQueue, reconcileQueue, type SolveJobData } from './services/queue';
 import { CANCEL_GRACE_MS, createJobProcessor, markEntryFailed, workerName, type ProcessorEnv } from './workers/process-job';
 import { createThreadSlot } from './workers/thread-slot';
 
@@ -57,7 +57,7 @@ export async function startWorker(): Promise<StartedWorker> {
   subscriber.on('message', (_channel: string, message: string) => {
     env.running.get(Number(message))?.cancel(CANCEL_GRACE_MS);
   });
-  await subscriber.subscribe(CANCEL_CHANNEL);
+  await subscriber.subscribe(cancelChannel(rc.RUN_QUEUE_NAME));
 
   const connection = new Redis(config.REDIS_URL, { maxRetriesPerRequest: null });
   connection.on('error', () => {});

@@ -20,10 +20,14 @@ export interface SolveJobData {
 /** Queue entry id: one per job row and generation (a retry is a new generation). */
 export const queueEntryId = (jobId: number, generation: number): string => `job-${jobId}-g${generation}`;
 
-/** Redis key that asks the worker running job N to stop (expires after a day). */
-export const cancelKey = (jobId: number): string => `spinyard:cancel:${jobId}`;
-/** Pub/sub channel of cancel requests (message = job id), so workers react within milliseconds. */
-export const CANCEL_CHANNEL = 'spinyard:cancel';
+/**
+ * Redis key that asks the worker running job N (generation G) to stop; expires after a day. The
+ * queue name and generation are part of it so a flag can never stop a retried job, or a job of a
+ * reset database that reuses the id.
+ */
+export const cancelKey = (queue: string, jobId: number, generation: number): string => `spinyard:cancel:${queue}:${jobId}:g${generation}`;
+/** Pub/sub channel of a queue's cancel requests (message = job id), so workers react within milliseconds. */
+export const cancelChannel = (queue: string): string => `spinyard:cancel:${queue}`;
 /** Pub/sub channel of one run's live events (progress, status changes). */
 export const runChannel = (runId: number): string => `spinyard:run:${runId}`;
 
@@ -100,16 +104,13 @@ export async function enqueueJobs(deps: Pick<Deps, 'redis'>, jobs: SolveJobData[
 }
 
 /** Ask whoever runs these jobs to stop (flag + pub/sub); harmless for jobs not running. */
-export async function requestCancel(redis: Redis, jobIds: number[]): Promise<void> {
-  if (jobIds.length === 0) return;
-  const multi = redis.multi();
-  for (const id of jobIds) multi.set(cancelKey(id), '1', 'EX', 86_400);
+export async function requestCancel(deps: Pick<Deps, 'redis'>, jobs: { id: number; generation: number }[]): Promise<void> {
+  if (jobs.length === 0) return;
+  const { config } = solveQueue(deps);
+  const multi = deps.redis.multi();
+  for (const j of jobs) multi.set(cancelKey(config.RUN_QUEUE_NAME, j.id, j.generation), '1', 'EX', 86_400);
   await withTimeout(multi.exec(), 3000, 'Redis');
-  for (const id of jobIds) await withTimeout(redis.publish(CANCEL_CHANNEL, String(id)), 3000, 'Redis');
-}
-
-export async function clearCancel(redis: Redis, jobIds: number[]): Promise<void> {
-  if (jobIds.length > 0) await withTimeout(redis.del(...jobIds.map(cancelKey)), 3000, 'Redis');
+  for (const j of jobs) await withTimeout(deps.redis.publish(cancelChannel(config.RUN_QUEUE_NAME), String(j.id)), 3000, 'Redis');
 }
 
 /** Remove waiting queue entries (cancelled or deleted before they started); active ones stay. */

@@ -14,7 +14,7 @@ import {
 import type { RunRow } from '../models/run';
 import type { RunJobRow } from '../models/run-job';
 import { getVersionDocument } from './networks';
-import { assertQueueUp, clearCancel, enqueueJobs, removeEntries, requestCancel, type SolveJobData } from './queue';
+import { assertQueueUp, enqueueJobs, removeEntries, requestCancel, type SolveJobData } from './queue';
 import { loadRunsConfig } from './queue-config';
 import { refreshRunStatus } from './runs-status';
 import { quoteRun } from './pricing';
@@ -366,7 +366,7 @@ export async function cancelRun(deps: RunServiceDeps, organisationId: number, id
   const jobs = (await deps.models.RunJob.findAll({ where: { runId: id, status: ['queued', 'running'] } })).map((j) => j.get({ plain: true }) as RunJobRow);
   if (jobs.length === 0) throw conflict('Nothing to cancel: every job of this run has finished.');
   // Flag first, so a worker that is claiming a queued job right now still sees it.
-  await requestCancel(deps.redis, jobs.map((j) => j.id));
+  await requestCancel(deps, jobs);
   const queued = jobs.filter((j) => j.status === 'queued');
   if (queued.length > 0) {
     await deps.models.RunJob.update(
@@ -393,7 +393,6 @@ export async function retryRun(deps: RunServiceDeps, organisationId: number, id:
     );
     if (changed) entries.push({ jobId: j.id, runId: id, organisationId, generation: j.generation + 1 });
   }
-  await clearCancel(deps.redis, entries.map((e) => e.jobId));
   await refreshRunStatus(deps, id);
   if (!run.held) await enqueueJobs(deps, entries, run.priority);
   return getRun(deps, organisationId, id);
@@ -405,7 +404,7 @@ export async function deleteRun(deps: RunServiceDeps, organisationId: number, id
   const live = (await deps.models.RunJob.findAll({ where: { runId: id, status: ['queued', 'running'] } })).map((j) => j.get({ plain: true }) as RunJobRow);
   if (live.length > 0) {
     await assertQueueUp(deps.redis);
-    await requestCancel(deps.redis, live.map((j) => j.id));
+    await requestCancel(deps, live);
     await deps.models.RunJob.update({ status: 'cancelled', finishedAt: new Date(), error: 'the run was deleted' }, { where: { id: live.map((j) => j.id), status: 'queued' } });
     await removeEntries(deps, live.filter((j) => j.status === 'queued').map((j) => ({ jobId: j.id, generation: j.generation })));
   }

@@ -71,7 +71,7 @@ export function createJobProcessor(env: ProcessorEnv) {
     const run = (await Run.findByPk(row.runId))?.get({ plain: true }) as RunRow | undefined;
 
     // Cancelled (or deleted) before this worker got to it: record that without running.
-    if (!run || run.deletedAt || (await deps.redis.exists(cancelKey(jobId))) === 1) {
+    if (!run || run.deletedAt || (await deps.redis.exists(cancelKey(config.RUN_QUEUE_NAME, jobId, generation))) === 1) {
       const [changed] = await RunJob.update(
         { status: 'cancelled', finishedAt: new Date(), error: run && !run.deletedAt ? 'cancelled before it started' : 'the run was deleted' },
         { where: { id: jobId, generation, status: ['queued', 'running'] } },
@@ -123,7 +123,7 @@ export function createJobProcessor(env: ProcessorEnv) {
       env.running.set(jobId, handle);
       // The pub/sub message normally arrives first; this poll covers a missed message.
       const poll = setInterval(() => {
-        deps.redis.exists(cancelKey(jobId)).then((n) => { if (n === 1) handle.cancel(CANCEL_GRACE_MS); }, () => {});
+        deps.redis.exists(cancelKey(config.RUN_QUEUE_NAME, jobId, generation)).then((n) => { if (n === 1) handle.cancel(CANCEL_GRACE_MS); }, () => {});
       }, 500);
       const outcome = await handle.outcome.finally(() => {
         clearInterval(poll);
