@@ -18,6 +18,7 @@ import { createPlusState, stateBytes, type StateVector } from '../../shared/engi
 import { applyDiagonalPhase, applyQaoaLayer, applyRx, diagonalLevels } from '../../shared/engine/statevector/gates';
 import { isingDiagonal } from '../../shared/engine/statevector/diagonal';
 import type { IsingOperator } from '../../shared/engine/operators/types';
+import { createParallelLayers } from '../../shared/engine/statevector/parallel-layers';
 import { createRng } from '../../shared/engine/random';
 
 const quick = process.argv.includes('--quick');
@@ -85,6 +86,33 @@ for (const n of layerSizes) {
     fused.toFixed(1), (fused / pass).toFixed(2), (fusedPlain / pass).toFixed(2), (naive / pass).toFixed(2), String(levels.levels.length),
   ]);
   log(`layer n=${n}: pass ${pass.toFixed(1)} ms, fused ${(fused / pass).toFixed(2)} passes, fused+trig ${(fusedPlain / pass).toFixed(2)}, naive ${(naive / pass).toFixed(2)}`);
+}
+
+// ---------------------------------------------------------------- 1b. two threads (wall time)
+const wall = (reps: number, f: () => void): number => {
+  f();
+  let t = Infinity;
+  for (let r = 0; r < reps; r++) {
+    const s0 = performance.now();
+    f();
+    t = Math.min(t, performance.now() - s0);
+  }
+  return t;
+};
+const parallelTable: string[][] = [];
+{
+  const runner = createParallelLayers({ threads: 2 });
+  for (const n of quick ? [14, 16] : [20, 22, 24]) {
+    const diag = isingDiagonal(ringCost(n, n));
+    const levels = diagonalLevels(diag)!;
+    const s = createPlusState(n, { shared: true });
+    const reps = n >= 24 ? 3 : 5;
+    const one = wall(reps, () => applyQaoaLayer(s, levels, 0.3, 0.2));
+    const two = wall(reps, () => runner.applyQaoaLayer(s, levels, 0.3, 0.2));
+    parallelTable.push([String(n), one.toFixed(1), two.toFixed(1), (one / two).toFixed(2)]);
+    log(`2 threads n=${n}: ${one.toFixed(1)} ms → ${two.toFixed(1)} ms (${(one / two).toFixed(2)}×)`);
+  }
+  void runner.close();
 }
 
 // ---------------------------------------------------------------- 2. against quantum-circuit
@@ -190,6 +218,13 @@ const section = [
     'A layer does n qubit rotations per amplitude; at ~0.5 ns per qubit·amplitude in cache (register kernels, scalar JS) the arithmetic alone is about 0.5·n ns per amplitude, several streaming passes — the fused layer is compute-bound, not memory-bound.',
   '',
   table(['n', 'state MiB', 'pass CPU ms', 'fused CPU ms', 'fused passes', 'fused + trig passes', 'naive passes', 'cost levels'], layerTable),
+  '',
+  '### Two threads (parallel-layers.ts, wall time, best of a few)',
+  '',
+  'Wall time of the same fused layer on one thread and split over the calling thread plus one worker. ' +
+    'Only meaningful when the machine is otherwise idle; the other engineers\' work shared both cores during this run.',
+  '',
+  table(['n', '1 thread ms', '2 threads ms', 'speed-up'], parallelTable),
   '',
   `### Against the \`quantum-circuit\` package (${depth}-layer QAOA circuit, same run)`,
   '',
