@@ -8,7 +8,7 @@ import { createRng } from '../../../shared/engine/random';
 import { copyState, createZeroState, normSquared, type StateVector } from '../../../shared/engine/statevector/state';
 import {
   applyDiagonalPhase, applyProductLayer, applyQaoaLayer, applyRotationLayer, applyRx, applyRy, applyRz,
-  applySingleQubit, applyTransverseMixer, diagonalLevels, type LayerBlocking,
+  applySingleQubit, applyTransverseMixer, diagonalLevels, applyCz, applyCzChain, type LayerBlocking,
 } from '../../../shared/engine/statevector/gates';
 
 function randomState(n: number, seed: number): StateVector {
@@ -83,6 +83,17 @@ describe('fused layers equal gate-by-gate products', () => {
     applyDiagonalPhase(plain, diag, 0.7);
     for (let q = 0; q < n; q++) applyRx(plain, q, -0.8);
     expect(maxDiff(fused.amps, plain.amps)).toBeLessThan(1e-12);
+  });
+
+  test('CZ chain in one pass equals the CZ gates one by one (pairs below, above and across the 12-bit split)', () => {
+    const n = 15;
+    const start = randomState(n, 9);
+    const pairs = Int32Array.of(0, 1, 3, 11, 12, 14, 2, 13, 11, 12, 5, 14, 13, 12, 0, 1);
+    const chain = copyState(start);
+    applyCzChain(chain, pairs);
+    const plain = copyState(start);
+    for (let k = 0; k < pairs.length; k += 2) applyCz(plain, pairs[k], pairs[k + 1]);
+    expect(maxDiff(chain.amps, plain.amps)).toBe(0);
   });
 
   test('diagonalLevels gives back every entry and refuses when there are too many levels', () => {
