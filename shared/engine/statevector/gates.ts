@@ -237,14 +237,14 @@ function productLayer(
   }
 }
 
-/** exp(−iβ Σ_j X_j), fused and cache-blocked (2 passes up to 24 qubits). */
+/** exp(−iβ Σ_j X_j), fused and cache-blocked (1 + ⌈(n − 12)/6⌉ sweeps with the default blocking). */
 export function applyTransverseMixer(s: StateVector, beta: number, blocking: LayerBlocking = DEFAULT_BLOCKING): void {
   productLayer(s, true, Float64Array.of(Math.cos(beta), Math.sin(beta)), null, blocking);
 }
 
 /**
  * One QAOA layer e^{−iβΣX} e^{−iγ·diag} with the phase fused into the mixer's first sweep:
- * the whole layer costs the same 2 passes as the mixer alone.
+ * the whole layer costs the same sweeps over memory as the mixer alone.
  */
 export function applyQaoaLayer(
   s: StateVector,
