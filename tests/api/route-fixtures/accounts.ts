@@ -1,13 +1,11 @@
-import { createUser } from '../../../server/services/accounts';
 import { createToken } from '../../../server/services/tokens';
 import { sha256Hex } from '../../../server/services/tokens-secret';
-import { uniqueTag, TEST_PASSWORD } from '../setup/test-app';
-import type { FixtureContext, RouteFixtures } from './types';
+import { uniqueTag } from '../setup/test-app';
+import type { FixtureContext, OpenRoutes, RouteFixtures } from './types';
 
-/** A fresh viewer in organisation A (to be re-roled or removed). */
+/** A fresh viewer in organisation A (to be re-roled or removed); never signs in, so no bcrypt. */
 async function freshMember(ctx: FixtureContext) {
-  const tag = uniqueTag();
-  const user = await ctx.deps.db.transaction((transaction) => createUser(ctx.deps, { email: `walker.${tag}.${ctx.marker}@walk.example`, name: `Walker ${ctx.marker}`, password: TEST_PASSWORD }, transaction));
+  const user = await ctx.deps.models.User.create({ email: `walker.${uniqueTag()}.${ctx.marker}@walk.example`, name: `Walker ${ctx.marker}`, passwordHash: '!' });
   return ctx.deps.models.Membership.create({ organisationId: ctx.orgA.organisationId, userId: user.id, role: 'viewer' });
 }
 
@@ -45,4 +43,19 @@ export const fixtures: RouteFixtures = {
     const created = await createToken(ctx.deps, ctx.orgA.organisationId, holder, `walk ${ctx.marker}`, null);
     return { params: { id: created.id } };
   },
+};
+
+export const openRoutes: OpenRoutes = {
+  'GET /auth/csrf': 'hands out the CSRF token of the caller\'s own session',
+  'POST /auth/sign-up': 'creates a new account and organisation',
+  'POST /auth/sign-in': 'rate-limited; one generic answer on failure',
+  'POST /auth/sign-out': 'ends the caller\'s own session',
+  'GET /auth/me': 'signed in: the caller\'s own user and memberships',
+  'PATCH /auth/me': 'signed in: the caller\'s own name',
+  'POST /auth/switch': 'signed in: checks membership of the target organisation',
+  'POST /auth/password': 'signed in: needs the current password',
+  'POST /auth/reset/request': 'rate-limited; always 202',
+  'POST /auth/reset/confirm': 'needs the e-mailed one-time token',
+  'GET /invitations/lookup': 'needs the e-mailed invitation token',
+  'POST /invitations/accept': 'needs the e-mailed invitation token',
 };

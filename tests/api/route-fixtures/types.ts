@@ -33,3 +33,10 @@ export interface RouteCall {
 
 export type RouteFixture = (ctx: FixtureContext, caller: Caller) => Promise<RouteCall> | RouteCall;
 export type RouteFixtures = Record<string, RouteFixture>;
+
+/**
+ * Routes that are NOT member-scoped (access public or user), reviewed on purpose: a fixture file
+ * may export `openRoutes: OpenRoutes` ("METHOD /path" → why it is open). The walker fails on any
+ * open route nobody listed, so a route cannot become public by accident.
+ */
+export type OpenRoutes = Record<string, string>;
