@@ -1,0 +1,156 @@
+/**
+ * `npm run bench`: runs every benchmark as its own process — simulator (sim.ts), classical
+ * (classical.ts), solve service (service.ts), load (load.ts) — one after another (they would
+ * disturb each other's timings on 2 cores), reads the markdown each prints, and prints ONE table
+ * of ratios (metric, measured, target, ratio = measured / target, met?). Each benchmark rewrites
+ * its own section of docs/benchmarks.md; this script writes the `## Summary` section at the top
+ * (machine, date, what ran) and leaves the other sections alone.
+ *
+ *   npx tsx tests/bench/all.ts [--quick] [--only sim,classical,service,load] [--no-write]
+ * --quick passes each benchmark its short options (and they then leave their sections alone).
+ */
+import { spawn } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+
+const ROOT = path.resolve(__dirname, '..', '..');
+const DOC = path.join(ROOT, 'docs', 'benchmarks.md');
+const args = process.argv.slice(2);
+const quick = args.includes('--quick');
+const write = !args.includes('--no-write');
+const onlyAt = args.indexOf('--only');
+const only = onlyAt >= 0 ? args[onlyAt + 1].split(',') : null;
+
+interface Bench { name: string; file: string; args: string[]; quickArgs: string[] }
+const BENCHES: Bench[] = [
+  { name: 'sim', file: 'tests/bench/sim.ts', args: [], quickArgs: ['--quick'] },
+  { name: 'classical', file: 'tests/bench/classical.ts', args: [], quickArgs: ['--limit', '2', '--skip-exact', '--skip-milp', '--no-write'] },
+  { name: 'service', file: 'tests/bench/service.ts', args: [], quickArgs: ['--runs', '8', '--paced', '5', '--no-write'] },
+  { name: 'load', file: 'tests/bench/load.ts', args: [], quickArgs: ['--quick'] },
+];
+
+export interface RatioRow { bench: string; metric: string; measured: number; target: number; better: 'lower' | 'higher'; unit: string }
+
+/** Markdown tables after a heading containing `heading`: header cells and rows of cells. */
+export function tableAfter(text: string, heading: string): { head: string[]; rows: string[][] } | null {
+  const lines = text.split(/\r?\n/);
+  const at = lines.findIndex((l) => l.startsWith('#') && l.includes(heading));
+  if (at < 0) return null;
+  const start = lines.findIndex((l, i) => i > at && l.trim().startsWith('|'));
+  if (start < 0) return null;
+  const cells = (l: string) => l.trim().replace(/^\||\|$/g, '').split('|').map((c) => c.trim());
+  const head = cells(lines[start]);
+  const rows: string[][] = [];
+  for (let i = start + 2; i < lines.length && lines[i].trim().startsWith('|'); i++) rows.push(cells(lines[i]));
+  return { head, rows };
+}
+
+const num = (s: string | undefined) => Number(String(s ?? '').replace(/[*`%,\s]/g, ''));
+
+/** The ratios each benchmark's output supports (targets are the ones its own report states). */
+export function ratiosOf(bench: string, out: string): RatioRow[] {
+  const rows: RatioRow[] = [];
+  if (bench === 'sim') {
+    const layer = tableAfter(out, 'One QAOA layer');
+    if (layer) {
+      const n = layer.head.indexOf('n');
+      const fused = layer.head.indexOf('fused passes');
+      const last = layer.rows[layer.rows.length - 1];
+      if (last && fused >= 0) rows.push({ bench, metric: `QAOA layer cost in streaming passes (n = ${last[n]})`, measured: num(last[fused]), target: 3, better: 'lower', unit: 'passes' });
+    }
+    const ref = tableAfter(out, 'quantum-circuit');
+    if (ref) {
+      const n = ref.head.indexOf('n');
+      const sp = ref.head.indexOf('speed-up');
+      const last = ref.rows[ref.rows.length - 1];
+      if (last && sp >= 0) rows.push({ bench, metric: `speed-up over quantum-circuit (n = ${last[n]})`, measured: num(last[sp]), target: 50, better: 'higher', unit: '×' });
+    }
+  }
+  if (bench === 'classical') {
+    const m = /Mean gap to best known: ([\d.]+) %/.exec(out);
+    if (m) rows.push({ bench, metric: 'G-set tabu mean gap to best known', measured: Number(m[1]), target: 0.1, better: 'lower', unit: '%' });
+  }
+  if (bench === 'service') {
+    const m = /throughput ratio: \*\*([\d.]+)\*\*/.exec(out);
+    if (m) rows.push({ bench, metric: '2-worker / 1-worker throughput', measured: Number(m[1]), target: 1.5, better: 'higher', unit: '×' });
+  }
+  if (bench === 'load') {
+    const m = /^LOAD-METRICS (.*)$/m.exec(out);
+    if (m) {
+      const j = JSON.parse(m[1]) as { worstP95Ms: number; worstP99Ms: number; drainSeconds: number; drainRuns: number };
+      rows.push({ bench, metric: 'worst p95 latency, list/get routes, 50 connections', measured: j.worstP95Ms, target: 250, better: 'lower', unit: 'ms' });
+      rows.push({ bench, metric: 'worst p99 latency, list/get routes, 50 connections', measured: j.worstP99Ms, target: 500, better: 'lower', unit: 'ms' });
+      rows.push({ bench, metric: `drain ${j.drainRuns} small runs with 2 workers`, measured: j.drainSeconds, target: 120, better: 'lower', unit: 's' });
+    }
+  }
+  return rows;
+}
+
+function run(b: Bench): Promise<{ code: number; out: string; seconds: number }> {
+  const t0 = Date.now();
+  return new Promise((resolve) => {
+    const child = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [b.file, ...(quick ? b.quickArgs : b.args)], { cwd: ROOT, env: process.env, stdio: ['ignore', 'pipe', 'inherit'] });
+    let out = '';
+    child.stdout.on('data', (d) => {
+      out += String(d);
+      process.stdout.write(d);
+    });
+    child.on('close', (code) => resolve({ code: code ?? 1, out, seconds: (Date.now() - t0) / 1000 }));
+  });
+}
+
+const fmt = (x: number) => (Number.isFinite(x) ? (Math.abs(x) >= 100 ? x.toFixed(0) : Math.abs(x) >= 1 ? x.toFixed(2) : x.toPrecision(2)) : '—');
+
+async function main() {
+  const ratios: RatioRow[] = [];
+  const ran: string[] = [];
+  for (const b of BENCHES.filter((x) => !only || only.includes(x.name))) {
+    console.log(`\n=== ${b.name}: npx tsx ${b.file} ${(quick ? b.quickArgs : b.args).join(' ')}`);
+    const r = await run(b);
+    const found = ratiosOf(b.name, r.out);
+    ran.push(`${b.name} (${r.code === 0 ? 'ok' : `exit ${r.code}`}, ${Math.round(r.seconds)} s${quick ? ', quick options' : ''}${found.length === 0 ? ', no ratios found in its output' : ''})`);
+    ratios.push(...found);
+  }
+  const table = [
+    '| benchmark | metric | measured | target | ratio (measured / target) | met? |',
+    '|---|---|---|---|---|---|',
+    ...ratios.map((r) => {
+      const ratio = r.measured / r.target;
+      const met = r.better === 'lower' ? ratio <= 1 : ratio >= 1;
+      return `| ${r.bench} | ${r.metric} | ${fmt(r.measured)} ${r.unit} | ${r.better === 'lower' ? '≤' : '≥'} ${r.target} ${r.unit} | ${fmt(ratio)} | ${met ? 'yes' : '**no**'} |`;
+    }),
+  ].join('\n');
+  const cpu = os.cpus()[0]?.model ?? 'unknown CPU';
+  const when = new Date().toISOString().slice(0, 16).replace('T', ' ');
+  const summary = [
+    '## Summary',
+    '',
+    `\`npm run bench\` on ${when} UTC — ${cpu}, ${os.cpus().length} cores (shared with other work while measuring), ${(os.totalmem() / 2 ** 30).toFixed(1)} GiB RAM, Node ${process.version}, ${os.type()} ${os.release()}.`,
+    '',
+    `Ran: ${ran.join('; ')}. Each ratio is measured / target from the same run; the sections below hold the details.`,
+    '',
+    table,
+    '',
+  ].join('\n');
+  console.log(`\n${summary}`);
+  if (write) {
+    const doc = fs.existsSync(DOC) ? fs.readFileSync(DOC, 'utf8') : '# Benchmarks\n';
+    const re = /## Summary\n[\s\S]*?(?=\n## |$)/;
+    let next: string;
+    if (re.test(doc)) next = doc.replace(re, summary);
+    else {
+      const title = /^# .*\n/.exec(doc);
+      next = title ? `${title[0]}\n${summary}\n${doc.slice(title[0].length).replace(/^\n+/, '')}` : `# Benchmarks\n\n${summary}\n${doc}`;
+    }
+    fs.writeFileSync(DOC, next);
+    console.log(`updated ${path.relative(process.cwd(), DOC)}`);
+  }
+}
+
+if (require.main === module) {
+  main().catch((err) => {
+    console.error(err);
+    process.exit(1);
+  });
+}
