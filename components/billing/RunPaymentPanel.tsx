@@ -50,7 +50,7 @@ export function RunPaymentPanel(props: { runId: number; role: Role | null; await
         </View>
       ) : null}
       {payment === 'cancelled' && !c.failureMessage ? <Notice tone="caution">The payment was not completed; nothing was charged.</Notice> : null}
-      {c.failureMessage ? <Notice tone="error" testID="run-payment-failed">{`${c.failureMessage} Try another card, or pay from the credits.`}</Notice> : null}
+      {c.failureMessage ? <Notice tone="error" testID="run-payment-failed">{`${c.failureMessage} Try another card${c.affordable ? ', or pay from the credits' : ''}.`}</Notice> : null}
       <Small testID="run-credits">
         {c.affordable
           ? `The organisation's credits (${euros(c.balance.amount)}) cover it${can(props.role, 'billing:manage') ? '.' : ' — an admin or the owner can confirm paying from them.'}`

@@ -1,8 +1,8 @@
 import { useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { BillingSummary } from '../../shared/schemas/billing';
 import { useBillingCheckoutMutation } from '../queries/billing';
-import { colors, fonts, space } from '../theme';
+import { colors, fonts, radius, space, TOUCH } from '../theme';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { Body, Heading, Small } from '../ui/Text';
@@ -21,10 +21,13 @@ export function SeatsCard(props: { summary: BillingSummary; canBuy: boolean }) {
       <Small>{`${seats.included} with the ${props.summary.plan.label} plan${seats.purchased ? ` + ${seats.purchased} purchased` : ''}. Members and pending invitations take a seat.`}</Small>
       {full ? <Small style={styles.caution}>All seats are taken: new invitations are refused until you add seats.</Small> : null}
       {props.canBuy ? (
+        <>
         <View style={styles.row}>
-          <Button label="One seat fewer" tone="quiet" onPress={() => setQuantity((q) => Math.max(1, q - 1))} disabled={quantity <= 1} testID="seats-minus" />
+          <Step symbol="−" label="One seat fewer" onPress={() => setQuantity((q) => Math.max(1, q - 1))} disabled={quantity <= 1} testID="seats-minus" />
           <Body accessibilityLabel={`${quantity} seats to buy`} style={styles.qty} testID="seats-quantity">{quantity}</Body>
-          <Button label="One seat more" tone="quiet" onPress={() => setQuantity((q) => Math.min(50, q + 1))} disabled={quantity >= 50} testID="seats-plus" />
+          <Step symbol="+" label="One seat more" onPress={() => setQuantity((q) => Math.min(50, q + 1))} disabled={quantity >= 50} testID="seats-plus" />
+        </View>
+        <View style={styles.row}>
           <Button
             label={`Buy ${quantity} seat${quantity === 1 ? '' : 's'} · ${euros(quantity * seats.price.amount)}`}
             busy={checkout.isPending}
@@ -33,13 +36,34 @@ export function SeatsCard(props: { summary: BillingSummary; canBuy: boolean }) {
             testID="buy-seats"
           />
         </View>
+        </>
       ) : null}
       {checkout.error ? <Body style={styles.error}>{checkout.error.message}</Body> : null}
     </Card>
   );
 }
 
+/** A square ± button (44 px target) whose spoken label says what it does. */
+function Step(props: { symbol: string; label: string; onPress: () => void; disabled: boolean; testID: string }) {
+  return (
+    <Pressable
+      accessibilityRole="button"
+      accessibilityLabel={props.label}
+      accessibilityState={{ disabled: props.disabled }}
+      disabled={props.disabled}
+      onPress={props.onPress}
+      testID={props.testID}
+      style={[styles.step, props.disabled && styles.stepOff]}
+    >
+      <Text style={styles.stepText}>{props.symbol}</Text>
+    </Pressable>
+  );
+}
+
 const styles = StyleSheet.create({
+  step: { width: TOUCH, height: TOUCH, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.surface },
+  stepOff: { opacity: 0.4 },
+  stepText: { fontFamily: fonts.semibold, fontSize: 22, color: colors.ink },
   card: { flex: 1, minWidth: 280 },
   big: { fontFamily: fonts.bold, fontSize: 24, lineHeight: 32, color: colors.ink },
   row: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm, marginTop: space.sm },

@@ -84,6 +84,7 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
               {l.label}: {formatMoney({ amount: l.amount, currency: preview.price!.currency })}
             </Small>
           ))}
+          {preview.quote?.note ? <Small testID="enc-price-note">{preview.quote.note}</Small> : null}
         </View>
       ) : null}
       {preview.limitProblem ? <Notice tone="error">{preview.limitProblem}</Notice> : null}

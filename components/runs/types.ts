@@ -84,6 +84,8 @@ export interface RunPreview {
   estimatedSeconds?: number | null;
   /** Present only for paid runs (billing). */
   price?: Price | null;
+  /** Billing's quote: whether the organisation's credits cover the price, in words (server/services/pricing.ts). */
+  quote?: { affordable: boolean; note: string; balance: { amount: number; currency: string } } | null;
 }
 
 /** A solver as the app lists it (the registry's listing). */
