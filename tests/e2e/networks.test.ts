@@ -91,6 +91,24 @@ describe.each([
     }
     await expect(page.getByRole('button', { name: 'Lanes (4)' }).isVisible()).resolves.toBe(true);
     await expect(page.getByTestId('summary-total-volume').textContent()).resolves.toBe('53.5');
+
+    // Tap a lane to change its volume (D1–D2: 12 → 13).
+    const [p0, p1] = [await spot(0), await spot(1)];
+    await page.mouse.click((p0.x + p1.x) / 2, (p0.y + p1.y) / 2);
+    const volume = page.getByLabel('Volume', { exact: true });
+    await expect(volume.inputValue()).resolves.toBe('12');
+    await volume.fill('13');
+    await page.getByRole('button', { name: 'Save volume' }).click();
+    await volume.waitFor({ state: 'detached' });
+    await expect(page.getByTestId('summary-total-volume').textContent()).resolves.toBe('54.5');
+    // Select a depot and delete it (its two lanes go with it), then undo.
+    const p2 = await spot(2);
+    await page.mouse.click(p2.x, p2.y);
+    await page.getByRole('button', { name: 'Delete (1)' }).click();
+    await expect(page.getByRole('button', { name: 'Depots (3)' }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('button', { name: 'Lanes (2)' }).isVisible()).resolves.toBe(true);
+    await page.getByRole('button', { name: 'Undo' }).click();
+    await expect(page.getByRole('button', { name: 'Lanes (4)' }).isVisible()).resolves.toBe(true);
     await expect(page.getByTestId('summary-degree').textContent()).resolves.toBe('2'); // a 4-cycle: every depot has 2 neighbours
     await screenshot(page, `networks-drawn-${label}`);
     const marks = () => page.evaluate(() => Array.from(document.querySelectorAll('svg[aria-label^="Drawing of"] circle[stroke-width]')).map((c) => `${c.getAttribute('cx')},${c.getAttribute('cy')}`).sort());
@@ -105,7 +123,7 @@ describe.each([
     const doc = JSON.parse(saved!.get('document') as string);
     expect(doc.depots.map((d: { name: string }) => d.name)).toEqual(names);
     expect(doc.lanes).toEqual([
-      { from: 'D1', to: 'D2', weight: 12 },
+      { from: 'D1', to: 'D2', weight: 13 },
       { from: 'D2', to: 'D3', weight: 7.5 },
       { from: 'D3', to: 'D4', weight: 30 },
       { from: 'D4', to: 'D1', weight: 4 },
@@ -119,7 +137,7 @@ describe.each([
     await page.waitForURL((u) => u.pathname === '/networks');
     const entry = page.getByRole('link', { name: `Open Drawn ${label}` });
     await entry.waitFor();
-    await expect(entry.textContent()).resolves.toMatch(label === 'wide' ? /Drawn wide\s*4\s*4\s*53\.5\s*1/ : /4 depots · 4 lanes · volume 53\.5/);
+    await expect(entry.textContent()).resolves.toMatch(label === 'wide' ? /Drawn wide\s*4\s*4\s*54\.5\s*1/ : /4 depots · 4 lanes · volume 54\.5/);
     await screenshot(page, `networks-list-${label}`);
     expect(errors).toEqual([]);
     await context.close();
@@ -167,6 +185,64 @@ describe.each([
     await page.getByTestId('tab-depots').click();
     await expect(page.getByTestId('depots-table').textContent()).resolves.toMatch(/HUB.*EAST.*WEST/s);
     await screenshot(page, `networks-imported-tables-${label}`);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  test('open a demo from the empty state, edit a volume in the lanes table, save version 2, compare it with version 1', async () => {
+    const fresh = await createOrgWithRoles(server.deps, `Demo ${label}`);
+    const context = await browser.newContext({ viewport });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    await signIn(page, fresh);
+    await page.getByRole('button', { name: 'Open demo: Quillmere Valley — full' }).click();
+    await page.getByTestId('network-screen').waitFor();
+    await expect(page.getByTestId('summary-depots').textContent()).resolves.toBe('40');
+    await page.locator('svg[aria-label="Drawing of 40 depots and ' + (await page.getByTestId('summary-lanes').textContent()) + ' lanes"]').waitFor();
+    await screenshot(page, `networks-demo-${label}`);
+
+    // Mouse wheel zooms at the pointer (web only); Fit brings the whole network back.
+    const scale = async () => Number(/scale\(([\d.e-]+)\)/.exec((await page.locator('svg[aria-label^="Drawing of"] g[transform]').first().getAttribute('transform')) ?? '')?.[1]);
+    const fitted = await scale();
+    const canvas = page.getByTestId('drawing-canvas');
+    await canvas.scrollIntoViewIfNeeded();
+    const box = (await canvas.boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.wheel(0, -400);
+    await page.waitForFunction((k) => /scale\(([\d.e-]+)\)/.exec(document.querySelector('svg[aria-label^="Drawing of"] g[transform]')?.getAttribute('transform') ?? '')?.[1] !== String(k), fitted);
+    expect(await scale()).toBeGreaterThan(fitted * 1.5);
+    await page.getByRole('button', { name: 'Fit' }).click();
+    await page.waitForFunction((k) => /scale\(([\d.e-]+)\)/.exec(document.querySelector('svg[aria-label^="Drawing of"] g[transform]')?.getAttribute('transform') ?? '')?.[1] === String(k), fitted);
+    expect(await scale()).toBe(fitted);
+
+    await page.getByTestId('tab-lanes').click();
+    const first = page.getByTestId('lane-volume-0');
+    const before = await first.inputValue();
+    await first.fill('-2');
+    await first.press('Enter');
+    await expect(page.getByTestId('lane-volume-error-0').textContent()).resolves.toMatch(/volume must be ≥ 0/);
+    await first.fill('123');
+    await first.press('Enter');
+    await page.getByTestId('save-state').filter({ hasText: 'Unsaved changes' }).waitFor();
+    await page.getByTestId('save-network').click();
+    await page.getByTestId('save-state').filter({ hasText: 'All changes saved' }).waitFor();
+    await page.getByText(/Version 2 of 2/).waitFor();
+
+    await page.getByTestId('tab-versions').click();
+    await page.getByTestId('compare-1').click();
+    await page.getByTestId('compare-2').click();
+    const comparison = page.getByTestId('version-comparison');
+    await comparison.waitFor();
+    await expect(comparison.textContent()).resolves.toMatch(new RegExp(`Volume changes \\(1\\).*: ${before} → 123`));
+    await comparison.scrollIntoViewIfNeeded();
+    await screenshot(page, `networks-compare-${label}`);
+
+    // Opening version 1 shows it read-only, with its old volume.
+    await page.getByTestId('version-1').getByRole('button', { name: 'Open' }).click();
+    await page.getByTestId('older-version-notice').waitFor();
+    await page.getByTestId('tab-lanes').click();
+    await expect(page.getByTestId('lane-volume-0').count()).resolves.toBe(0);
+    await expect(page.getByTestId('lane-row-0').textContent()).resolves.toContain(before);
     expect(errors).toEqual([]);
     await context.close();
   });
