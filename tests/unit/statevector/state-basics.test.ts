@@ -7,6 +7,7 @@
 import { createRng } from '../../../shared/engine/random';
 import {
   DEFAULT_MAX_QUBITS, QubitLimitError, createPlusState, createZeroState, probabilities, stateBytes,
+  innerProduct, normSquared, stateFromAmplitudes,
 } from '../../../shared/engine/statevector/state';
 import { applyRy, applyH } from '../../../shared/engine/statevector/gates';
 import { expectationOfDiagonal, isingDiagonal } from '../../../shared/engine/statevector/diagonal';
@@ -36,6 +37,22 @@ describe('memory check', () => {
     expect(() => isingDiagonal({ numQubits: 11, offset: 0, linear: new Float64Array(11), quadI: new Int32Array(0), quadJ: new Int32Array(0), quadCoeff: new Float64Array(0) }, { maxQubits: 10 })).toThrow(QubitLimitError);
     expect(createZeroState(10, { maxQubits: 10 }).amps.length).toBe(2048);
     expect(() => createZeroState(2.5)).toThrow(RangeError);
+  });
+});
+
+describe('state helpers', () => {
+  test('⟨ψ|ψ⟩ = 1 after unitary gates, ⟨0|+⟩ = 2^(−n/2), conjugate symmetry of ⟨a|b⟩', () => {
+    const plus = createPlusState(5);
+    const zero = createZeroState(5);
+    expect(innerProduct(zero, plus)[0]).toBeCloseTo(2 ** -2.5, 15);
+    const s = stateFromAmplitudes(1, [0.6, 0, 0, 0.8]);
+    applyRy(s, 0, 0.9);
+    expect(normSquared(s)).toBeCloseTo(1, 14);
+    const t = stateFromAmplitudes(1, [0, 1, 0, 0]);
+    const ab = innerProduct(s, t), ba = innerProduct(t, s);
+    expect(ab[0]).toBeCloseTo(ba[0], 15);
+    expect(ab[1]).toBeCloseTo(-ba[1], 15);
+    expect(() => stateFromAmplitudes(2, [1, 0])).toThrow(/expected 8 numbers/);
   });
 });
 
