@@ -21,7 +21,9 @@ export function buildOpenApi(routes: RouteSpec[], serverUrl: string) {
   for (const r of routes) {
     const path = toOpenApiPath(`/api${r.path}`);
     const parameters: unknown[] = [];
-    for (const m of r.path.matchAll(/:([A-Za-z_]+)/g)) parameters.push({ name: m[1], in: 'path', required: true, schema: { type: 'string' } });
+    // Path params carry their zod schema's type (ids are integers), not just "string".
+    const p = r.params ? (schemaOf(r.params) as { properties?: Record<string, unknown> }) : {};
+    for (const m of r.path.matchAll(/:([A-Za-z_]+)/g)) parameters.push({ name: m[1], in: 'path', required: true, schema: p.properties?.[m[1]] ?? { type: 'string' } });
     if (r.query) {
       const q = schemaOf(r.query) as { properties?: Record<string, unknown>; required?: string[] };
       for (const [name, schema] of Object.entries(q.properties ?? {})) parameters.push({ name, in: 'query', required: q.required?.includes(name) ?? false, schema });
