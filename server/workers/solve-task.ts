@@ -17,6 +17,8 @@ export interface SolveTask {
 
 /** Messages a solve thread posts back. */
 export type SolveThreadMessage =
+  /** The thread took the task (the engine is loaded): the hard time limit counts from here. */
+  | { type: 'started' }
   | { type: 'progress'; progress: SolveProgress }
   | { type: 'done'; result: RunResult; cancelled: boolean }
   | { type: 'error'; message: string; userError: boolean };

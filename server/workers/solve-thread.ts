@@ -16,6 +16,7 @@ const USER_ERRORS = new Set(['SettingsError', 'SolverRefusedError', 'ProblemErro
 const post = (msg: SolveThreadMessage) => parentPort!.postMessage(msg);
 
 async function handle(task: SolveTask): Promise<void> {
+  post({ type: 'started' });
   const flag = new Int32Array(task.cancelFlag);
   const cancel = { get cancelled() { return Atomics.load(flag, 0) === 1; } };
   let last = 0;

@@ -26,6 +26,7 @@ export interface ThreadSlot {
 }
 
 const ENTRY = path.join(__dirname, 'solve-thread.cjs');
+const STARTUP_MS = 120_000;
 
 export function createThreadSlot(): ThreadSlot {
   let worker: Worker | null = null;
@@ -60,7 +61,10 @@ export function createThreadSlot(): ThreadSlot {
         settle(o);
       };
       const onMessage = (msg: SolveThreadMessage) => {
-        if (msg.type === 'progress') opts.onProgress(msg.progress);
+        if (msg.type === 'started') {
+          clearTimeout(hard);
+          hard = overdue(opts.hardLimitMs, `stopped after ${Math.round(opts.hardLimitMs / 1000)} s: the solver went past its time limit and grace period`);
+        } else if (msg.type === 'progress') opts.onProgress(msg.progress);
         else if (msg.type === 'done') finish({ kind: 'done', result: msg.result, cancelled: msg.cancelled });
         else finish({ kind: 'error', message: msg.message, userError: msg.userError });
       };
@@ -72,10 +76,13 @@ export function createThreadSlot(): ThreadSlot {
         if (worker === w) worker = null;
         finish({ kind: 'killed', reason: 'crash', message: `the solver thread stopped unexpectedly (exit code ${code})` });
       };
-      const hard = setTimeout(() => {
+      // The hard limit counts from the thread's "started" (a fresh thread first loads the engine,
+      // which on a busy machine takes seconds); loading itself gets STARTUP_MS.
+      const overdue = (ms: number, message: string) => setTimeout(() => {
         kill(w);
-        finish({ kind: 'killed', reason: 'timeout', message: `stopped after ${Math.round(opts.hardLimitMs / 1000)} s: the solver went past its time limit and grace period` });
-      }, opts.hardLimitMs);
+        finish({ kind: 'killed', reason: 'timeout', message });
+      }, ms);
+      let hard = overdue(STARTUP_MS, `the solver thread did not start within ${STARTUP_MS / 1000} s`);
       w.on('message', onMessage);
       w.on('error', onError);
       w.on('exit', onExit);

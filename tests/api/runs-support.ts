@@ -22,7 +22,7 @@ export function applyRunsEnv(opts: { smtpPort: number; queue: string; extra?: Re
     RUN_MAX_STALLED: '5',
     RUN_MAIL_AFTER_SECONDS: '0',
     RUN_PROGRESS_WRITE_MS: '200',
-    RUN_GRACE_SECONDS: '5',
+    RUN_GRACE_SECONDS: '20', // generous: the test machine is shared and often saturated
     SMTP_PORT: String(opts.smtpPort),
     LOG_LEVEL: 'silent',
     ...(opts.extra ?? {}),
