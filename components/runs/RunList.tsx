@@ -1,14 +1,14 @@
 import { useState } from 'react';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { Pressable, StyleSheet, View, useWindowDimensions } from 'react-native';
 import { useRouter } from 'expo-router';
 import { can, type Role } from '../../shared/permissions';
 import { useRunsQuery } from '../queries/runs';
-import { colors, fonts, radius, space, TOUCH } from '../theme';
+import { colors, fonts, radius, space, TOUCH, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { EmptyState } from '../ui/EmptyState';
 import { Notice } from '../ui/Notice';
 import { Screen } from '../ui/Screen';
-import { Body, Small } from '../ui/Text';
+import { Body, Label, Small } from '../ui/Text';
 import { CheckRow } from './controls';
 import { questionLabel } from './format';
 import { STATUS_TEXT } from './RunView';
@@ -19,6 +19,8 @@ const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { day: 'nume
 /** The organisation's runs, newest first; analysts tick two or more to compare them. */
 export function RunList(props: { role: Role | null; compareWith?: number }) {
   const router = useRouter();
+  const { width } = useWindowDimensions();
+  const wide = width >= WIDE_BREAKPOINT;
   const runs = useRunsQuery();
   const mayCompare = can(props.role, 'runs:compare');
   const [ticked, setTicked] = useState<number[]>(props.compareWith ? [props.compareWith] : []);
@@ -36,6 +38,24 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
       </Screen>
     );
   }
+  // Wide screens: one table row per run, the same cells as the phone card.
+  const tableRow = (r: RunListItem) => (
+    <View key={r.id} style={styles.tr} testID={`run-item-${r.id}`}>
+      <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} onPress={() => router.push(`/runs/${r.id}`)} style={styles.trOpen}>
+        <Body style={[styles.cRun, styles.title]}>Run {r.id}</Body>
+        <Body style={styles.cQuestion}>{questionLabel(r.problem)}</Body>
+        <Body style={styles.cNetwork}>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots</Body>
+        <Small style={styles.cSolvers}>{r.solvers.join(', ')}</Small>
+        <Small style={styles.cStatus}>{STATUS_TEXT[r.status] ?? r.status}</Small>
+        <Small style={styles.cWhen}>{when(r.createdAt)}</Small>
+      </Pressable>
+      {mayCompare ? (
+        <View style={styles.cTick}>
+          <CheckRow title="Compare" accessibilityLabel={`Compare run ${r.id}`} checked={ticked.includes(r.id)} onPress={() => toggle(r.id)} testID={`tick-${r.id}`} />
+        </View>
+      ) : null}
+    </View>
+  );
   const row = (r: RunListItem) => (
     <View key={r.id} style={styles.item} testID={`run-item-${r.id}`}>
       <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} onPress={() => router.push(`/runs/${r.id}`)} style={styles.open}>
@@ -48,7 +68,21 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
   );
   return (
     <Screen title="Runs" subtitle={mayCompare ? 'Tick two or more runs to compare them in one table.' : undefined} actions={compare}>
-      <View style={styles.list}>{runs.data.map(row)}</View>
+      {wide ? (
+        <View style={styles.table} accessibilityRole="list">
+          <View style={[styles.tr, styles.thead]}>
+            <View style={styles.trOpen}>
+              {(['Run', 'Question', 'Network', 'Solvers', 'Status', 'Started'] as const).map((h, i) => (
+                <Label key={h} style={[styles.cRun, styles.cQuestion, styles.cNetwork, styles.cSolvers, styles.cStatus, styles.cWhen][i]}>{h}</Label>
+              ))}
+            </View>
+            {mayCompare ? <Label style={styles.cTick}>Compare</Label> : null}
+          </View>
+          {runs.data.map(tableRow)}
+        </View>
+      ) : (
+        <View style={styles.list}>{runs.data.map(row)}</View>
+      )}
       {compare}
       {!mayCompare ? <Small>Comparing runs is for analysts.</Small> : null}
     </Screen>
@@ -60,4 +94,15 @@ const styles = StyleSheet.create({
   item: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, padding: space.md, flexDirection: 'row', alignItems: 'center', gap: space.md },
   open: { minHeight: TOUCH, justifyContent: 'center', flex: 1, gap: 2 },
   title: { fontFamily: fonts.semibold },
+  table: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, paddingHorizontal: space.md },
+  thead: { minHeight: 36 },
+  tr: { flexDirection: 'row', alignItems: 'center', borderBottomWidth: 1, borderColor: colors.line, gap: space.md },
+  trOpen: { flex: 1, flexDirection: 'row', alignItems: 'center', minHeight: TOUCH, gap: space.md },
+  cRun: { width: 70 },
+  cQuestion: { width: 210 },
+  cNetwork: { flex: 1 },
+  cSolvers: { width: 170 },
+  cStatus: { width: 150 },
+  cWhen: { width: 110 },
+  cTick: { width: 120 },
 });
