@@ -58,9 +58,15 @@ export function BillingScreen(props: { checkout?: string }) {
       {props.checkout === 'success' ? <Notice tone="success" testID="checkout-success">Payment received. Credits and seats appear here as soon as the payment service confirms it (usually at once).</Notice> : null}
       {props.checkout === 'cancelled' ? <Notice tone="caution" testID="checkout-cancelled">The payment was not completed; nothing was charged. You can try again.</Notice> : null}
       <View style={[styles.cards, wide && styles.row]}>
-        <CreditsCard summary={s} canBuy={canBuy} />
-        <SeatsCard summary={s} canBuy={canBuy} />
-        <PlanCard summary={s} />
+        <View style={wide ? styles.grow : undefined}>
+          <CreditsCard summary={s} canBuy={canBuy} />
+        </View>
+        <View style={wide ? styles.grow : undefined}>
+          <SeatsCard summary={s} canBuy={canBuy} />
+        </View>
+        <View style={wide ? styles.grow : undefined}>
+          <PlanCard summary={s} />
+        </View>
       </View>
       {s.awaitingRuns.length > 0 ? (
         <Card testID="awaiting-runs">

@@ -38,7 +38,7 @@ export function CreditsCard(props: { summary: BillingSummary; canBuy: boolean })
 }
 
 const styles = StyleSheet.create({
-  card: { flex: 1, minWidth: 280 },
+  card: { minWidth: 280 },
   big: { fontFamily: fonts.bold, fontSize: 32, lineHeight: 40, color: colors.ink },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, marginTop: space.sm },
   error: { color: colors.danger },

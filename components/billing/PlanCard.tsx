@@ -26,6 +26,6 @@ export function PlanCard(props: { summary: BillingSummary }) {
 }
 
 const styles = StyleSheet.create({
-  card: { flex: 1, minWidth: 280 },
+  card: { minWidth: 280 },
   list: { gap: space.xs },
 });

@@ -64,7 +64,7 @@ const styles = StyleSheet.create({
   step: { width: TOUCH, height: TOUCH, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.surface },
   stepOff: { opacity: 0.4 },
   stepText: { fontFamily: fonts.semibold, fontSize: 22, color: colors.ink },
-  card: { flex: 1, minWidth: 280 },
+  card: { minWidth: 280 },
   big: { fontFamily: fonts.bold, fontSize: 24, lineHeight: 32, color: colors.ink },
   row: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm, marginTop: space.sm },
   qty: { minWidth: 28, textAlign: 'center', fontFamily: fonts.semibold },

@@ -159,7 +159,7 @@ async function onCheckoutCompleted(deps: Deps, event: Stripe.Event, session: Str
     let release = false;
     if (payment.purpose === 'credits') {
       if (!(await hasEntry(deps, `checkout:${session.id}`, transaction))) {
-        await appendEntry(deps, { organisationId: payment.organisationId, kind: 'credit_purchase', amount, sourceKey: `checkout:${session.id}`, eventId: event.id, paymentId: payment.id, createdBy: payment.createdBy, note: 'Credits bought by card' }, transaction);
+        await appendEntry(deps, { organisationId: payment.organisationId, kind: 'credit_purchase', amount, sourceKey: `checkout:${session.id}`, eventId: event.id, paymentId: payment.id, createdBy: payment.createdBy, note: `Receipt ${receiptNumber(payment.id)}` }, transaction);
       }
     } else if (payment.purpose === 'seats') {
       if ((await deps.models.SeatGrant.count({ where: { sourceKey: `checkout:${session.id}` }, transaction })) === 0) {
