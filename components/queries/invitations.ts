@@ -33,7 +33,8 @@ function useInvalidateTeam() {
 
 export function useInvitationCreateMutation() {
   const invalidate = useInvalidateTeam();
-  return useMutation({ mutationFn: (body: Invite) => api.post<Invitation>('/invitations', body), onSuccess: invalidate });
+  // onSettled: a 503 mail_failed still saved the invitation, so the pending list must refresh.
+  return useMutation({ mutationFn: (body: Invite) => api.post<Invitation>('/invitations', body), onSettled: invalidate });
 }
 
 export function useInvitationResendMutation() {

@@ -36,6 +36,7 @@ export function createAuthLimits() {
     signUpPerIp: limiter({ name: 'sign-up', limit: 50, windowMs: FIFTEEN_MINUTES, key: 'ip', failuresOnly: false }),
     resetPerIp: limiter({ name: 'reset', limit: 20, windowMs: FIFTEEN_MINUTES, key: 'ip', failuresOnly: false }),
     resetPerEmail: limiter({ name: 'reset', limit: 5, windowMs: FIFTEEN_MINUTES, key: 'email', failuresOnly: false }),
+    acceptPerIp: limiter({ name: 'accept', limit: 20, windowMs: FIFTEEN_MINUTES, key: 'ip', failuresOnly: true }),
     resetConfirmPerIp: limiter({ name: 'reset-confirm', limit: 20, windowMs: FIFTEEN_MINUTES, key: 'ip', failuresOnly: true }),
   };
 }

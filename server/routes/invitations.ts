@@ -6,8 +6,10 @@ import { acceptInvitation, cancelInvitation, createInvitation, listInvitations, 
 import { loadMe } from '../services/accounts';
 import { clientIp, hasSession, saveSession, startSignedInSession } from '../middleware/session';
 import { actorOf } from './members';
+import { createAuthLimits } from '../middleware/rate-limits';
 
 export function invitationsRoutes(deps: Deps): RouteSpec[] {
+  const limits = createAuthLimits();
   return [
     {
       method: 'get',
@@ -66,6 +68,7 @@ export function invitationsRoutes(deps: Deps): RouteSpec[] {
       summary: 'Accept an invitation: signed in → join; otherwise give your password (existing account) or name + new password',
       access: { kind: 'public' },
       body: AcceptInvitationSchema,
+      before: [limits.acceptPerIp], // an existing account's password is checked here too
       handler: async ({ body, auth, req }) => {
         const signedInUserId = auth?.via === 'session' ? auth.userId : null;
         const { userId, organisationId } = await acceptInvitation(deps, { ...body, signedInUserId, ip: clientIp(req) });

@@ -55,12 +55,16 @@ function toInvitation(row: InvitationModel, inviterNames: Map<number, string>): 
   };
 }
 
+/** The invitation is stored first; if the mail then fails, say so plainly (Resend sends it later). */
 async function sendInvitationMail(deps: Deps, to: string, token: string, orgName: string, inviterName: string, role: Role) {
   const link = `${deps.config.publicUrl}/invite?token=${encodeURIComponent(token)}`;
   await deps.mailer.send({
     to,
     subject: `${inviterName} invited you to ${orgName} on Spinyard`,
     text: `Hello,\n\n${inviterName} invited you to join ${orgName} on Spinyard as ${ROLE_LABELS[role]}.\nOpen this link to create your account or join with the one you have:\n\n${link}\n\nThe invitation is valid for 7 days and works once. If you did not expect it, ignore this e-mail.\n`,
+  }).catch((err) => {
+    deps.logger.error({ err, to }, 'invitation mail failed');
+    throw new HttpError(503, `The invitation to ${to} is saved, but the e-mail could not be sent right now. Use "Resend" in the pending list in a few minutes.`, { code: 'mail_failed' });
   });
 }
 

@@ -104,6 +104,25 @@ describe('invitations', () => {
     await (await sessionAgent(t.app)).get(`/invitations/lookup?token=${encodeURIComponent(newToken)}`).expect(200);
   });
 
+  test('when the mail cannot be sent, the invitation is kept and the answer says to resend', async () => {
+    const { a, tag } = await freeOrgOwner();
+    const email = `nomail.${tag}@fjord-test.example`;
+    const send = t.deps.mailer.send;
+    t.deps.mailer.send = async () => {
+      throw new Error('SMTP down');
+    };
+    try {
+      const res = await a.post('/invitations', { email, role: 'viewer' }).expect(503);
+      expect(res.body).toMatchObject({ code: 'mail_failed', error: expect.stringMatching(/Resend/) });
+    } finally {
+      t.deps.mailer.send = send;
+    }
+    const pending = (await a.get('/invitations').expect(200)).body;
+    expect(pending.map((i: { email: string }) => i.email)).toContain(email);
+    await a.post(`/invitations/${pending.find((i: { email: string }) => i.email === email).id}/resend`).expect(200);
+    await mail.waitFor((x) => x.to.includes(email));
+  });
+
   test('an expired invitation link leads to a clear 410', async () => {
     const { a, tag, organisationId } = await freeOrgOwner();
     const email = `late.${tag}@fjord-test.example`;
