@@ -122,3 +122,40 @@ test('signed-out callers get 401 on every member and signed-in route', async () 
   }
   expect(problems).toEqual([]);
 });
+
+/**
+ * Ids, not only names: after the walk above organisation A holds networks, runs, members,
+ * invitations, tokens and audit events. Each list route called by organisation B must return
+ * none of A's row ids (every `id` anywhere in the answer is checked against the table the route
+ * lists); called by A's owner it must return some, so the check can fail. (Added by hardening.)
+ */
+test("organisation B's list answers contain none of organisation A's row ids", async () => {
+  const tables: Record<string, { model: keyof TestApp['deps']['models']; where?: Record<string, unknown> }> = {
+    'GET /networks': { model: 'Network' },
+    'GET /runs': { model: 'Run' },
+    'GET /members': { model: 'Membership' },
+    'GET /invitations': { model: 'Invitation' },
+    'GET /tokens': { model: 'ApiToken' },
+    'GET /audit': { model: 'AuditEvent' },
+  };
+  const idsIn = (v: unknown, out = new Set<number>()): Set<number> => {
+    if (Array.isArray(v)) v.forEach((x) => idsIn(x, out));
+    else if (v && typeof v === 'object') for (const [k, x] of Object.entries(v)) { if (k === 'id' && typeof x === 'number') out.add(x); else idsIn(x, out); }
+    return out;
+  };
+  const problems: string[] = [];
+  for (const [key, { model }] of Object.entries(tables)) {
+    const route = memberRoutes.find((r) => keyOf(r) === key);
+    if (!route) { problems.push(`${key} is no longer in the route table`); continue; }
+    // eslint-disable-next-line @typescript-eslint/no-explicit-any
+    const rows = await (t.deps.models[model] as any).findAll({ where: { organisationId: ctx.orgA.organisationId }, attributes: ['id'] });
+    const aIds = new Set<number>(rows.map((r: { get: (k: string) => number }) => r.get('id')));
+    const query = key === 'GET /audit' ? '?page=1&pageSize=100' : '';
+    const mine = idsIn((await agents.get('owner')!.get(`${route.path}${query}`)).body);
+    const theirs = idsIn((await agents.get('outsider')!.get(`${route.path}${query}`)).body);
+    if (![...mine].some((id) => aIds.has(id))) problems.push(`${key}: A's owner sees none of A's ${String(model)} ids (the check could not fail)`);
+    const leaked = [...theirs].filter((id) => aIds.has(id));
+    if (leaked.length) problems.push(`${key}: organisation B sees A's ${String(model)} ids ${leaked.join(', ')}`);
+  }
+  expect(problems).toEqual([]);
+});
