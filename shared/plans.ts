@@ -102,11 +102,9 @@ export const PRICES: Record<PlanId, PlanPrices> = {
 /** Credit packs an admin can buy (cents). */
 export const CREDIT_PACKS = [1000, 2500, 10000] as const;
 
-/** The largest run a plan may buy (a paid run may go up to the next plan's limits; the top plan's own). */
-export function paidRunCeiling(plan: string | null | undefined): PlanRunLimits {
-  const up = nextPlan(plan);
-  const own = runLimits(plan);
-  return up ? { ...RUN_LIMITS[up], priority: own.priority } : own;
+/** The plan whose run limits bound a paid run: the next plan up (the top plan's own). */
+export function paidRunPlan(plan: string | null | undefined): PlanId {
+  return nextPlan(plan) ?? ((PLANS[plan as PlanId] ? plan : DEFAULT_PLAN) as PlanId);
 }
 
 export function planPrices(plan: string | null | undefined): PlanPrices {

@@ -2,7 +2,7 @@ import { Op, type WhereOptions } from 'sequelize';
 import type { Deps } from '../deps';
 import { HttpError, badRequest, conflict, forbidden, notFound } from '../lib/http-error';
 import { can, type Role } from '../../shared/permissions';
-import { formatMoney, nextPlan, planLabel, runLimits, type PlanRunLimits, type RunPrice } from '../../shared/plans';
+import { formatMoney, nextPlan, paidRunPlan, planLabel, runLimits, type PlanRunLimits, type RunPrice } from '../../shared/plans';
 import { buildCompactNetwork } from '../../shared/engine/network/build';
 import { bindProblem } from '../../shared/engine/problem/bind';
 import type { NetworkDocument } from '../../shared/engine/network/types';
@@ -172,7 +172,7 @@ export async function createRun(deps: RunServiceDeps, actor: RunActor, body: Cre
   // Billing: above the plan's included size a run is priced (up to the paid ceiling) and held until paid.
   // A paid run may go up to the next plan's limits.
   const { price } = await quoteRun(deps, actor.organisationId, runSizeOf(problem, checked, seconds));
-  const ceiling = price ? (nextPlan(plan) ?? plan) : plan;
+  const ceiling = price ? paidRunPlan(plan) : plan;
   checkLimits(runLimits(ceiling), ceiling, problem, checked, seconds);
   const active = await deps.models.Run.count({ where: { organisationId: actor.organisationId, status: ['queued', 'running'], deletedAt: null } });
   if (active >= limits.maxActiveRuns) {
@@ -241,7 +241,7 @@ export async function previewRun(deps: RunServiceDeps, actor: RunActor, body: Pr
   const quote = await quoteRun(deps, actor.organisationId, runSizeOf(problem, checked, seconds));
   let limitProblem: string | null = null;
   try {
-    const ceiling = quote.price ? (nextPlan(plan) ?? plan) : plan;
+    const ceiling = quote.price ? paidRunPlan(plan) : plan;
     checkLimits(runLimits(ceiling), ceiling, problem, checked, seconds);
   } catch (e) {
     limitProblem = (e as Error).message;
