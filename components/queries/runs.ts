@@ -82,6 +82,8 @@ export interface SolverDefaultsAnswer {
   depots: number;
   lanes: number;
   qubits: number | null;
+  /** Qubits the circuit solvers need with their default strategy (k-way: the first bisection). */
+  circuitQubits?: number | null;
 }
 
 /** The size-based default solver set (shared/runs/default-solvers.ts, evaluated by the API). */

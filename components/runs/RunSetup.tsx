@@ -90,7 +90,7 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
       <Heading>Solvers</Heading>
       <Small>
         {defaults.data
-          ? `Chosen for ${defaults.data.depots} depots${defaults.data.qubits !== null ? ` and ${defaults.data.qubits} qubits` : ''}: exact when small enough, the strongest classical heuristic, and quantum solvers when the qubits fit.`
+          ? `Chosen for ${defaults.data.depots} depots${(defaults.data.circuitQubits ?? defaults.data.qubits) !== null ? ` and ${defaults.data.circuitQubits ?? defaults.data.qubits} qubits` : ''}: exact when small enough, the strongest classical heuristic, and quantum solvers when the qubits fit.`
           : 'Choosing defaults for this size…'}
       </Small>
       {offered

@@ -53,13 +53,23 @@ test('the listing is the engine registry: names, labels, families, questions, gu
 test('small max-cut (12 depots, 12 qubits): exact, tabu, QAOA and VQE', async () => {
   const versionId = await versionOf('Small ring', 12);
   const res = await viewer.post('/solvers/defaults', { versionId, problem: { kind: 'maxcut' } }).expect(200);
-  expect(res.body).toEqual({ defaults: ['exact', 'tabu', 'qaoa', 'vqe'], depots: 12, lanes: 24, qubits: 12 });
+  expect(res.body).toEqual({ defaults: ['exact', 'tabu', 'qaoa', 'vqe'], depots: 12, lanes: 24, qubits: 12, circuitQubits: 12 });
 });
 
 test('balanced split with a pinned depot: exact, then FM as the heuristic', async () => {
   const versionId = await versionOf('Pinned ring', 12);
   const res = await viewer.post('/solvers/defaults', { versionId, problem: { kind: 'bisection', tolerance: 0, pins: { R0: 0 } } }).expect(200);
   expect(res.body.defaults.slice(0, 2)).toEqual(['exact', 'fm']);
+});
+
+test('three regions on 12 depots: exact (3^12 assignments), FM, and the circuits sized by their first bisection', async () => {
+  const versionId = await versionOf('Region ring', 12);
+  const res = await viewer.post('/solvers/defaults', { versionId, problem: { kind: 'kway', k: 3, tolerance: 0.1 } }).expect(200);
+  // The one-hot operator needs at least n·k = 36 qubits (plus balance slack); the recursive
+  // split's first bisection far fewer.
+  expect(res.body.qubits).toBeGreaterThanOrEqual(36);
+  expect(res.body.circuitQubits).toBeLessThanOrEqual(20);
+  expect(res.body.defaults).toEqual(['exact', 'fm', 'qaoa', 'vqe']);
 });
 
 test('large max-cut (60 depots): no exact enumeration (2^60), decomposition instead of direct circuits', async () => {
