@@ -32,7 +32,7 @@ export function PartitionView(props: { document: Pick<NetworkDocument, 'depots' 
           {pickedDepot.name ?? pickedDepot.id} ({pickedDepot.id}): {regionName(props.problem.kind, props.assignment[picked])}
         </Small>
       ) : (
-        <Small>Tap a depot to see its side. Emphasised lanes cross between {props.problem.kind === 'kway' ? 'regions' : 'sides'}.</Small>
+        <Small>Tap a depot to see its {props.problem.kind === 'kway' ? 'region' : 'side'}. Emphasised lanes cross between {props.problem.kind === 'kway' ? 'regions' : 'sides'}.</Small>
       )}
       <View style={styles.legend} accessibilityLabel="Totals per region">
         {summary.regions.map((r) => (
