@@ -1,5 +1,6 @@
 import type { Deps } from '../deps';
-import type { AuthContext, RouteSpec } from '../lib/routes';
+import { z } from 'zod';
+import { NoBodySchema, type AuthContext, type RouteSpec } from '../lib/routes';
 import { unauthorized } from '../lib/http-error';
 import { BillingRunParamsSchema, CheckoutBodySchema, LedgerQuerySchema, QuoteBodySchema } from '../../shared/schemas/billing';
 import { billingSummary, createCheckout, handleWebhook, listPayments, type BillingActor } from '../services/billing';
@@ -40,6 +41,8 @@ export function billingRoutes(deps: Deps): RouteSpec[] {
     },
     {
       method: 'post', path: '/billing/webhook', summary: 'Payment provider events (signature checked with the SDK; raw body)', access: { kind: 'public' },
+      // The raw bytes the signature covers (express.raw in server/app.ts); anything else is refused with 400.
+      body: z.instanceof(Buffer, { message: 'send the provider event as the raw request body' }),
       handler: ({ req }) => handleWebhook(deps, req.body, req.get('stripe-signature')),
     },
     {
@@ -51,7 +54,7 @@ export function billingRoutes(deps: Deps): RouteSpec[] {
       handler: ({ auth, params }) => runChargeView(deps, actorOf(auth).organisationId, params.id),
     },
     {
-      method: 'post', path: '/runs/:id/pay', summary: 'Pay a held run from the credits and queue it (admins and owners)', access: manage, params: BillingRunParamsSchema,
+      method: 'post', path: '/runs/:id/pay', summary: 'Pay a held run from the credits and queue it (admins and owners)', access: manage, params: BillingRunParamsSchema, body: NoBodySchema,
       handler: ({ auth, params, req }) => payRunWithCredits(deps, { ...actorOf(auth, req.ip), userId: actorOf(auth).userId }, params.id),
     },
   ];
