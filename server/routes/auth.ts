@@ -13,7 +13,7 @@ import {
 } from '../../shared/schemas/auth';
 import { changePassword, checkCredentials, findUserByEmail, landingOrganisation, loadMe, rememberOrganisation, roleIn, signUp, updateProfile } from '../services/accounts';
 import { auditForUser } from '../services/accounts-audit';
-import { confirmPasswordReset, requestPasswordReset } from '../services/accounts-reset';
+import { confirmPasswordReset, endSessionsOf, requestPasswordReset } from '../services/accounts-reset';
 import { createAuthLimits } from '../middleware/rate-limits';
 import { clientIp, csrfTokenOf, endSession, hasSession, saveSession, startSignedInSession } from '../middleware/session';
 
@@ -135,6 +135,9 @@ export function authRoutes(deps: Deps): RouteSpec[] {
       handler: async ({ auth, body, req }) => {
         await changePassword(deps, auth!.userId, body.currentPassword, body.newPassword);
         await auditForUser(deps, auth!.userId, { actorUserId: auth!.userId, action: 'auth.password_changed', targetType: 'user', targetId: auth!.userId, ip: clientIp(req) });
+        // Other browsers signed in as this user are signed out; this one goes on under a new session id.
+        await endSessionsOf(deps, auth!.userId);
+        if (auth!.via === 'session' && hasSession(req)) await startSignedInSession(req, auth!.userId, req.session.organisationId ?? null);
         return undefined;
       },
     },
