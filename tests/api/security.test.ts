@@ -180,6 +180,20 @@ describe('session cookie and CSRF', () => {
     expect((await request(t.app).get('/api/auth/me').set('authorization', `Bearer ${token}`)).status).toBe(401);
   });
 
+  test('a password change signs the other sessions out and moves this one to a new session id', async () => {
+    const here = await signedIn(t.app, org.users.analyst.email);
+    const elsewhere = await signedIn(t.app, org.users.analyst.email);
+    const before = (await here.get('/auth/me')).status;
+    expect(before).toBe(200);
+    const changed = await here.post('/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'lantern-quay-harbour-77' });
+    expect(changed.status).toBe(204);
+    expect(cookieOf(changed)).toBeDefined(); // a new session id
+    expect((await elsewhere.get('/auth/me')).status).toBe(401);
+    expect((await here.get('/auth/me')).status).toBe(200);
+    await here.refreshCsrf();
+    await here.post('/auth/password', { currentPassword: 'lantern-quay-harbour-77', newPassword: TEST_PASSWORD }).expect(204);
+  });
+
   test('passwords are stored as bcrypt hashes', async () => {
     const user = await t.deps.models.User.findByPk(org.users.viewer.id);
     const stored = JSON.stringify(user!.toJSON());
