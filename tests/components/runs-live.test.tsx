@@ -4,7 +4,7 @@ import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { RunView } from '../../components/runs/RunView';
 import type { RunDetail } from '../../components/runs/types';
 
-jest.mock('expo-router', () => ({ useRouter: () => ({ push: jest.fn(), replace: jest.fn() }) }));
+jest.mock('expo-router', () => ({ useRouter: () => ({ push: jest.fn(), replace: jest.fn() }), useLocalSearchParams: () => ({}) }));
 
 const mockGet = jest.fn();
 const mockPost = jest.fn(async (_path: string) => ({}));
