@@ -22,7 +22,7 @@ function AuthenticateCard() {
       <Body>2. Send it on every request as the header Authorization: Bearer followed by the token. Token requests need no CSRF token and no cookie.</Body>
       <Body>3. A token acts as you, in the organisation it was created for, with your current role: if your role changes or you leave, the token follows. Revoke it on the Account screen when it is no longer needed.</Body>
       <View style={styles.code} accessibilityLabel="Example request with a token">
-        <Text style={typo.mono} selectable>{`curl -H "Authorization: Bearer spy_…" \\\n  ${base}/api/networks`}</Text>
+        <Text style={typo.mono} selectable>{`curl \\\n  -H "Authorization: Bearer spy_…" \\\n  ${base}/api/networks`}</Text>
       </View>
       <Small>Errors come back as JSON: {'{"error": "…", "fields": {…}}'} with 400 for invalid input (fields name each problem), 401 without a valid token, 403 when your role does not allow the action, 404 for rows of other organisations, 429 when a limit is reached.</Small>
     </Card>
@@ -37,7 +37,9 @@ function OperationRow({ op }: { op: ApiOperation }) {
         <Text style={[typo.mono, styles.path]} selectable>{op.path}</Text>
       </View>
       <Body>{op.summary}</Body>
-      <Small>{op.signedIn ? `Who may call it: ${op.access.replace(/`/g, '')}` : 'Who may call it: anyone (no sign-in needed).'}</Small>
+      <Small>
+        {!op.signedIn ? 'Who may call it: anyone (no sign-in needed).' : op.roles ? `Who may call it: ${op.roles.join(', ')} (${op.access.replace(/`/g, '').replace(/\.$/, '')}).` : `Who may call it: ${op.access.replace(/`/g, '')}`}
+      </Small>
       {op.fields.length > 0 ? (
         <View style={styles.fields}>
           {op.fields.map((f) => (
@@ -80,7 +82,7 @@ export function ApiDocsScreen() {
       {q.data && shown.length === 0 ? <Notice>No route matches “{filter}”.</Notice> : null}
       {shown.map((g) => (
         <Card key={g.tag} testID={`api-group-${g.tag}`}>
-          <Heading>{g.tag}</Heading>
+          <Heading>{g.tag.charAt(0).toUpperCase() + g.tag.slice(1)}</Heading>
           <Label>{g.operations.length === 1 ? '1 route' : `${g.operations.length} routes`}</Label>
           {g.operations.map((op) => (
             <OperationRow key={`${op.method} ${op.path}`} op={op} />

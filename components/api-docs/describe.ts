@@ -49,12 +49,22 @@ export interface ApiOperation {
   summary: string;
   access: string; // the document's access sentence
   signedIn: boolean;
+  roles: string[] | null; // roles that may call it (member routes), from shared/permissions
   fields: ApiField[];
 }
 
 export interface ApiGroup {
   tag: string;
   operations: ApiOperation[];
+}
+
+import { ROLES, can, type Permission } from '../../shared/permissions';
+
+/** "Members whose role has `runs:start`." → the roles of the one permission table that have it. */
+export function rolesFor(access: string): string[] | null {
+  const m = /`([a-z-]+:[a-z-]+)`/.exec(access);
+  if (!m) return null;
+  return ROLES.filter((r) => can(r, m[1] as Permission));
 }
 
 const METHOD_ORDER = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'];
@@ -100,7 +110,7 @@ export function describeApi(doc: OpenApiDocument): ApiGroup[] {
       fields.push(...bodyFields(op.requestBody?.content?.['application/json']?.schema));
       const tag = op.tags?.[0] ?? 'other';
       const list = groups.get(tag) ?? [];
-      list.push({ method: method.toUpperCase(), path, summary: op.summary ?? '', access: op.description ?? '', signedIn: (op.security ?? []).length > 0, fields });
+      list.push({ method: method.toUpperCase(), path, summary: op.summary ?? '', access: op.description ?? '', signedIn: (op.security ?? []).length > 0, roles: rolesFor(op.description ?? ''), fields });
       groups.set(tag, list);
     }
   }
