@@ -170,7 +170,7 @@ test('phone: a large run shows its price, a declined card keeps it unpaid, payin
   await context.close();
 });
 
-test('wide: buying credits on the billing page adds them to the balance and the history table', async () => {
+test('wide: buying credits adds them to the balance and the history table; buying seats raises the seat limit', async () => {
   const context = await browser.newContext({ viewport: WIDE });
   const page = await context.newPage();
   const errors = watchPageErrors(page);
@@ -187,6 +187,16 @@ test('wide: buying credits on the billing page adds them to the balance and the 
   await page.getByTestId('billing-balance').getByText('€25.00', { exact: true }).waitFor({ timeout: 15_000 });
   await page.getByTestId('ledger-table').getByText('Credits bought', { exact: true }).waitFor();
   await screenshot(page, 'billing-page-wide');
+
+  // Seats: 5 members on a 3-seat plan; buying 2 raises the limit to 5.
+  await expect(page.getByTestId('billing-seats-count').textContent()).resolves.toBe('5 of 3 in use');
+  await page.getByRole('button', { name: 'One seat more' }).click();
+  await page.getByRole('button', { name: 'Buy 2 seats · €18.00' }).click();
+  await page.waitForURL((u) => u.pathname.startsWith('/pay/'));
+  await page.getByRole('button', { name: 'Pay €18.00' }).click();
+  await page.waitForURL((u) => u.pathname === '/billing' && u.searchParams.get('checkout') === 'success');
+  await page.getByTestId('billing-seats-count').getByText('5 of 5 in use', { exact: true }).waitFor({ timeout: 15_000 });
+  await screenshot(page, 'billing-seats-wide');
   expect(errors).toEqual([]);
   await context.close();
 });
