@@ -201,18 +201,25 @@ describe.each([
     await page.locator('svg[aria-label="Drawing of 40 depots and ' + (await page.getByTestId('summary-lanes').textContent()) + ' lanes"]').waitFor();
     await screenshot(page, `networks-demo-${label}`);
 
-    // Mouse wheel zooms at the pointer (web only); Fit brings the whole network back.
+    // Zoom: the mouse wheel at the pointer on the wide screen, the + button on the phone; Fit brings the whole network back.
     const scale = async () => Number(/scale\(([\d.e-]+)\)/.exec((await page.locator('svg[aria-label^="Drawing of"] g[transform]').first().getAttribute('transform')) ?? '')?.[1]);
+    const scaleIsNot = (k: number) => page.waitForFunction((k0) => /scale\(([\d.e-]+)\)/.exec(document.querySelector('svg[aria-label^="Drawing of"] g[transform]')?.getAttribute('transform') ?? '')?.[1] !== String(k0), k);
     const fitted = await scale();
     const canvas = page.getByTestId('drawing-canvas');
-    await canvas.scrollIntoViewIfNeeded();
-    const box = (await canvas.boundingBox())!;
-    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-    await page.mouse.wheel(0, -400);
-    await page.waitForFunction((k) => /scale\(([\d.e-]+)\)/.exec(document.querySelector('svg[aria-label^="Drawing of"] g[transform]')?.getAttribute('transform') ?? '')?.[1] !== String(k), fitted);
-    expect(await scale()).toBeGreaterThan(fitted * 1.5);
+    if (label === 'wide') {
+      const box = (await canvas.boundingBox())!;
+      await page.mouse.move(box.x + box.width / 2, box.y + box.height / 3);
+      await page.mouse.wheel(0, -400);
+      await scaleIsNot(fitted);
+      expect(await scale()).toBeGreaterThan(fitted * 1.5);
+    } else {
+      await page.getByTestId('zoom-in').click();
+      await scaleIsNot(fitted);
+      expect(await scale()).toBeCloseTo(fitted * 1.25, 9);
+    }
+    const zoomed = await scale();
     await page.getByRole('button', { name: 'Fit' }).click();
-    await page.waitForFunction((k) => /scale\(([\d.e-]+)\)/.exec(document.querySelector('svg[aria-label^="Drawing of"] g[transform]')?.getAttribute('transform') ?? '')?.[1] === String(k), fitted);
+    await scaleIsNot(zoomed);
     expect(await scale()).toBe(fitted);
 
     await page.getByTestId('tab-lanes').click();
