@@ -14,6 +14,8 @@
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
+import * as v8 from 'node:v8';
+import * as vm from 'node:vm';
 import { createPlusState, stateBytes, type StateVector } from '../../shared/engine/statevector/state';
 import { applyDiagonalPhase, applyQaoaLayer, applyRx, diagonalLevels } from '../../shared/engine/statevector/gates';
 import { isingDiagonal } from '../../shared/engine/statevector/diagonal';
@@ -22,6 +24,9 @@ import { createParallelLayers } from '../../shared/engine/statevector/parallel-l
 import { createRng } from '../../shared/engine/random';
 
 const quick = process.argv.includes('--quick');
+// A full collection before each memory reading, so earlier sections' arrays are not counted.
+v8.setFlagsFromString('--expose-gc');
+const collect = vm.runInNewContext('gc') as () => void;
 /** CPU milliseconds of this process (user + system): other work on the shared cores then stretches
  * wall time but hardly these readings; the code measured is single-threaded. */
 const cpuNow = (): number => {
@@ -63,6 +68,28 @@ function streamingPass(s: StateVector): void {
 
 const rows: string[][] = [];
 const log = (...x: unknown[]) => console.log(...x);
+
+// ---------------------------------------------------------------- 0. peak memory (first, while the process holds nothing else)
+const memTable: string[][] = [];
+for (const n of quick ? [14] : [24, 26]) {
+  collect();
+  const base = process.memoryUsage();
+  const op = ringCost(n, 7);
+  const diag = isingDiagonal(op);
+  const s = createPlusState(n);
+  const t0 = cpuNow();
+  applyQaoaLayer(s, diag, 0.3, 0.2);
+  const layerMs = cpuNow() - t0;
+  const after = process.memoryUsage();
+  const state = stateBytes(n), diagBytes = diag.byteLength;
+  memTable.push([
+    String(n), (state / 2 ** 20).toFixed(0), (diagBytes / 2 ** 20).toFixed(0),
+    (after.arrayBuffers / 2 ** 20).toFixed(0), (after.rss / 2 ** 20).toFixed(0), ((after.rss - base.rss) / 2 ** 20).toFixed(0), layerMs.toFixed(0),
+  ]);
+  log(`memory n=${n}: state ${(state / 2 ** 20).toFixed(0)} MiB, ArrayBuffers ${(after.arrayBuffers / 2 ** 20).toFixed(0)} MiB, RSS ${(after.rss / 2 ** 20).toFixed(0)} MiB, one layer ${layerMs.toFixed(0)} ms`);
+  // Let the arrays go before the next size.
+  (s as { amps: Float64Array | null }).amps = null;
+}
 
 // ---------------------------------------------------------------- 1. layer cost in passes
 const layerSizes = quick ? [12, 16] : [16, 20, 22, 24];
@@ -174,28 +201,6 @@ for (const n of quick ? [8, 10] : [12, 14]) {
   }
   refTable.push([String(n), String(depth), tRef.toFixed(0), tOurs.toFixed(2), (tRef / tOurs).toFixed(0), diff.toExponential(1)]);
   log(`vs quantum-circuit n=${n}: ref ${tRef.toFixed(0)} ms, ours ${tOurs.toFixed(2)} ms, ${(tRef / tOurs).toFixed(0)}×, max |Δamp| ${diff.toExponential(1)}`);
-}
-
-// ---------------------------------------------------------------- 3. peak memory
-const memTable: string[][] = [];
-for (const n of quick ? [14] : [24, 26]) {
-  if (global.gc) global.gc();
-  const base = process.memoryUsage();
-  const op = ringCost(n, 7);
-  const diag = isingDiagonal(op);
-  const s = createPlusState(n);
-  const t0 = cpuNow();
-  applyQaoaLayer(s, diag, 0.3, 0.2);
-  const layerMs = cpuNow() - t0;
-  const after = process.memoryUsage();
-  const state = stateBytes(n), diagBytes = diag.byteLength;
-  memTable.push([
-    String(n), (state / 2 ** 20).toFixed(0), (diagBytes / 2 ** 20).toFixed(0),
-    (after.arrayBuffers / 2 ** 20).toFixed(0), (after.rss / 2 ** 20).toFixed(0), ((after.rss - base.rss) / 2 ** 20).toFixed(0), layerMs.toFixed(0),
-  ]);
-  log(`memory n=${n}: state ${(state / 2 ** 20).toFixed(0)} MiB, ArrayBuffers ${(after.arrayBuffers / 2 ** 20).toFixed(0)} MiB, RSS ${(after.rss / 2 ** 20).toFixed(0)} MiB, one layer ${layerMs.toFixed(0)} ms`);
-  // Let the arrays go before the next size.
-  (s as { amps: Float64Array | null }).amps = null;
 }
 
 // ---------------------------------------------------------------- report

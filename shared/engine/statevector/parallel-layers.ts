@@ -170,6 +170,8 @@ export function createParallelLayers(opts: { threads?: number } = {}): ParallelL
     applyQaoaLayer: (s, diag, gamma, beta, blocking = DEFAULT_BLOCKING) => layer(s, diag, gamma, beta, blocking),
     applyTransverseMixer: (s, beta, blocking = DEFAULT_BLOCKING) => layer(s, null, 0, beta, blocking),
     close: async () => {
+      // Drop our references to the last state and diagonal right away (not when the workers exit).
+      sentAmps = sentIndex = sentDiagF = null;
       for (const wk of workers) wk.port.postMessage({ kind: 'stop' });
       if (workers.length > 0) {
         Atomics.add(ctl, 0, 1);
