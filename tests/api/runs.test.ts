@@ -242,7 +242,7 @@ describe('who may do what', () => {
     const unknown = await as(org.tokens.analyst).post('/runs', { ...body(), solvers: [{ solver: 'no-such-solver' }] });
     expect(unknown.status).toBe(400);
     expect(unknown.body.fields['solvers.0.solver'][0]).toMatch(/unknown solver/);
-    const refused = await as(org.tokens.analyst).post('/runs', { ...body(), problem: { kind: 'bisection' }, solvers: [{ solver: 'qaoa-blocks' }] });
+    const refused = await as(org.tokens.analyst).post('/runs', { ...body(), problem: { kind: 'kway', k: 3 }, solvers: [{ solver: 'qaoa-blocks' }] });
     expect(refused.status).toBe(400);
   });
 

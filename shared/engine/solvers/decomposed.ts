@@ -8,7 +8,7 @@ import { freeDepots } from '../classical/result';
 import { crossingWeight } from '../problem/evaluate';
 import type { Problem } from '../problem/types';
 import { createRng } from '../random';
-import { decomposeMaxcut } from '../variational/decompose';
+import { decomposeBisection, decomposeMaxcut } from '../variational/decompose';
 import type { SolverDefinition, TracePoint } from './types';
 
 const schema = {
@@ -28,11 +28,11 @@ export const qaoaBlocksSolver: SolverDefinition<QaoaBlocksSettings> & { simulate
   name: 'qaoa-blocks',
   label: 'QAOA by blocks (decomposition for large networks)',
   family: 'variational',
-  kinds: ['maxcut'],
-  guarantee: 'Heuristic, no optimality guarantee: QAOA on blocks of at most blockSize depots, block orientations from a second small max-cut, then 1-flip refinement; compare it with the classical best and the bound.',
+  kinds: ['maxcut', 'bisection'],
+  guarantee: 'Heuristic, no optimality guarantee: QAOA on blocks of at most blockSize depots, block orientations from a second small problem over the blocks, then local refinement; compare it with the classical best and the bound.',
   parseSettings: (input) => parseNumberSettings(input, schema),
   refuses(problem) {
-    if (problem.kind !== 'maxcut') return 'qaoa-blocks answers max-cut only so far; for balanced bisection or k-way regions use qaoa on small networks, or fm / tabu';
+    if (problem.kind === 'kway') return 'qaoa-blocks answers max-cut and balanced bisection; for k regions use qaoa (recursive bisection) on small networks, or fm / milp';
     return null;
   },
   /** Qubits simulated at once: one block, never the whole network. */
@@ -43,7 +43,8 @@ export const qaoaBlocksSolver: SolverDefinition<QaoaBlocksSettings> & { simulate
     const rng = createRng(ctx.seed);
     const trace: TracePoint[] = [];
     let lastReport = -Infinity;
-    const outcome = decomposeMaxcut(problem, s, rng, {
+    const decompose = problem.kind === 'bisection' ? decomposeBisection : decomposeMaxcut;
+    const outcome = decompose(problem, s, rng, {
       shouldStop: () => elapsed() >= ctx.timeLimitSeconds || ctx.cancel?.cancelled === true,
       onStep: (fraction, bestValue) => ctx.onProgress?.({ fraction: Math.max(fraction, Math.min(1, elapsed() / ctx.timeLimitSeconds)), bestValue }),
       onIteration: (p) => {
@@ -56,9 +57,12 @@ export const qaoaBlocksSolver: SolverDefinition<QaoaBlocksSettings> & { simulate
     });
     const assignment = Array.from(outcome.assignment);
     const largest = outcome.blocks.reduce((q, b) => Math.max(q, b.qubits), 0);
+    const how = { exact: 'exact enumeration', qaoa: 'QAOA', local: 'greedy flips', single: 'none needed' }[outcome.merge.method];
     const notes = [
-      `${outcome.merge.blocks} block(s) of at most ${s.blockSize} depots (largest circuit ${largest} qubits); block orientations by ${outcome.merge.method === 'exact' ? 'exact enumeration' : outcome.merge.method === 'qaoa' ? 'QAOA' : 'none needed'} (gain ${outcome.merge.gain})`,
-      `merged cut ${outcome.mergedValue}; block re-solves with fixed surroundings gained ${outcome.roundsGain}; 1-flip refinement made ${outcome.refineFlips} flip(s)`,
+      `${outcome.merge.blocks} block(s) of at most ${s.blockSize} depots (largest circuit ${largest} qubits); block orientations by ${how}${problem.kind === 'bisection' ? ' under the balance rule' : ''} (gain ${outcome.merge.gain})`,
+      problem.kind === 'maxcut'
+        ? `merged cut ${outcome.mergedValue}; block re-solves with fixed surroundings gained ${outcome.roundsGain}; 1-flip refinement made ${outcome.refineFlips} flip(s)`
+        : `merged crossing weight ${outcome.mergedValue}; flip-and-swap refinement inside the balance window made ${outcome.refineFlips} move(s)`,
       'heuristic: no optimality guarantee',
     ];
     if (outcome.stopped) notes.push('stopped early (time limit or cancel): later blocks kept their starting sides');

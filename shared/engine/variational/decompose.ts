@@ -17,8 +17,11 @@ import type { CompactNetwork } from '../network/types';
 import { encodeMaxCut } from '../encodings/maxcut';
 import { kwayPartition } from '../classical/kway';
 import type { PartGraph } from '../classical/fm-bisection';
-import { createFlipState } from '../classical/flip-state';
-import { polishMaxcut } from '../classical/local-search';
+import { createFlipState, flipDepot } from '../classical/flip-state';
+import { polishBisection, polishMaxcut } from '../classical/local-search';
+import { balanceWindow, randomBalancedSides } from '../classical/balance';
+import { encodeBisection } from '../encodings/bisection';
+import { isBalanced } from '../problem/evaluate';
 import { freeDepots } from '../classical/result';
 import { crossingWeight } from '../problem/evaluate';
 import type { Problem } from '../problem/types';
@@ -56,7 +59,7 @@ export interface DecomposeOutcome {
   blocks: BlockReport[];
   /** Block id per depot (the split). */
   blockOf: Int32Array;
-  merge: { method: 'single' | 'exact' | 'qaoa'; blocks: number; gain: number };
+  merge: { method: 'single' | 'exact' | 'qaoa' | 'local'; blocks: number; gain: number };
   /** Cut after merging, before the 1-flip refinement; and flips the refinement made. */
   mergedValue: number;
   /** Cut gained by the improvement rounds (block re-solves with fixed surroundings). */
@@ -108,7 +111,7 @@ export function splitIntoBlocks(network: CompactNetwork, blockSize: number, rng:
 }
 
 /** The sub-problem of one block: its depots, the lanes among them, and the problem's pins. */
-function blockProblem(problem: Problem, members: number[]): Problem {
+function blockProblem(problem: Problem, members: number[], kind: 'maxcut' | 'bisection' = 'maxcut'): Problem {
   const local = new Map(members.map((v, i) => [v, i]));
   const { adjStart, adjIndex, adjWeight } = problem.network;
   const edges: [number, number, number][] = [];
@@ -118,9 +121,9 @@ function blockProblem(problem: Problem, members: number[]): Problem {
       if (j !== undefined && j > i) edges.push([i, j, adjWeight[p]]);
     }
   });
-  const network = compactFromEdges(members.length, edges);
+  const network = { ...compactFromEdges(members.length, edges), depotWeight: Float64Array.from(members, (v) => problem.network.depotWeight[v]) };
   const pins = Int32Array.from(members, (v) => problem.pins[v]);
-  return { kind: 'maxcut', k: 2, network, pins, tolerance: 0 };
+  return { kind, k: 2, network, pins, tolerance: kind === 'bisection' ? problem.tolerance : 0 };
 }
 
 /**
@@ -332,4 +335,193 @@ export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: R
     trace,
     stopped,
   };
+}
+
+/**
+ * Block orientations for balanced bisection: minimise the crossing weight between blocks,
+ * Σ_{a<b} (W_ab − w′_ab t_a t_b)/2, subject to the global balance window on side-1 weight
+ * W₁ = (W + Σ t_b D_b)/2 (D_b = side-1 minus side-0 weight of block b). Exact over all
+ * orientations of ≤ exactLimit free blocks (Gray code), else greedy flips. Returns t as 0/1
+ * (1 = flip) per block and the method.
+ */
+export function orientForBisection(
+  couplings: [number, number, number][], imbalance: Float64Array, total: number, window: { lo: number; hi: number }, fixed: Uint8Array, exactLimit: number,
+): { flip: Uint8Array; method: 'exact' | 'local' } {
+  const B = imbalance.length;
+  const adj: [number, number][][] = Array.from({ length: B }, () => []);
+  for (const [a, b, w] of couplings) { adj[a].push([b, w]); adj[b].push([a, w]); }
+  const t = new Int8Array(B).fill(1);
+  let D = 0;
+  for (let b = 0; b < B; b++) D += imbalance[b];
+  // cost = −Σ w′ t_a t_b / 2 (the W_ab part is constant)
+  let cost = 0;
+  for (const [a, b, w] of couplings) cost -= (w * t[a] * t[b]) / 2;
+  const violation = (d: number) => { const w1 = (total + d) / 2; return w1 > window.hi ? w1 - window.hi : w1 < window.lo ? window.lo - w1 : 0; };
+  const flipCost = (b: number) => { let c = 0; for (const [j, w] of adj[b]) c += w * t[b] * t[j]; return c; }; // change of cost when b flips
+  const free: number[] = [];
+  for (let b = 0; b < B; b++) if (!fixed[b]) free.push(b);
+  if (free.length <= exactLimit) {
+    let best = { v: violation(D), cost, t: t.slice() };
+    for (let step = 1; step < 2 ** free.length; step++) {
+      const b = free[31 - Math.clz32(step & -step)];
+      cost += flipCost(b);
+      D -= 2 * t[b] * imbalance[b];
+      t[b] = -t[b] as 1 | -1;
+      const v = violation(D);
+      if (v < best.v - 1e-9 || (Math.abs(v - best.v) <= 1e-9 && cost < best.cost - 1e-12)) best = { v, cost, t: t.slice() };
+    }
+    return { flip: Uint8Array.from(best.t, (x) => (x < 0 ? 1 : 0)), method: 'exact' };
+  }
+  for (let improved = true; improved; ) {
+    improved = false;
+    for (const b of free) {
+      const nd = D - 2 * t[b] * imbalance[b];
+      const dv = violation(nd) - violation(D), dc = flipCost(b);
+      if (dv < -1e-9 || (Math.abs(dv) <= 1e-9 && dc < -1e-12)) {
+        cost += dc;
+        D = nd;
+        t[b] = -t[b] as 1 | -1;
+        improved = true;
+      }
+    }
+  }
+  return { flip: Uint8Array.from(t, (x) => (x < 0 ? 1 : 0)), method: 'local' };
+}
+
+/** Move the cheapest free depots off the heavy side until side-1 weight is inside the window. */
+function repairBalance(problem: Problem, st: ReturnType<typeof createFlipState>, free: Int32Array): void {
+  const { lo, hi } = balanceWindow(problem);
+  for (let guard = 0; guard < problem.network.n && (st.weight1 > hi + 1e-9 || st.weight1 < lo - 1e-9); guard++) {
+    const from = st.weight1 > hi ? 1 : 0;
+    let pick = -1;
+    for (const v of free) if (st.side[v] === from && (pick < 0 || st.delta[v] < st.delta[pick])) pick = v;
+    if (pick < 0) return;
+    flipDepot(problem.network, st, pick);
+  }
+}
+
+/**
+ * Balanced bisection by blocks: each block bisected by QAOA (its own balance rule, penalty
+ * encoding of encodings/bisection.ts), blocks oriented by orientForBisection under the global
+ * window, then the classical local search (flips and swaps inside the window).
+ */
+export function decomposeBisection(problem: Problem, opts: DecomposeOptions, rng: Rng, control: DecomposeControl): DecomposeOutcome {
+  const { network } = problem;
+  const n = network.n;
+  const blockOf = splitIntoBlocks(network, opts.blockSize, rng);
+  const blockCount = n === 0 ? 0 : Math.max(...blockOf) + 1;
+  const members: number[][] = Array.from({ length: blockCount }, () => []);
+  for (let i = 0; i < n; i++) members[blockOf[i]].push(i);
+  const assignment = Int32Array.from(problem.pins, (p) => (p >= 0 ? p : 0));
+  const blocks: BlockReport[] = [];
+  const trace: VariationalTracePoint[] = [];
+  let evaluations = 0, shots = 0, iterationBase = 0, stopped = false;
+
+  members.forEach((list, b) => {
+    const sub = blockProblem(problem, list, 'bisection');
+    let sides: ArrayLike<number> = randomBalancedSides(sub, rng);
+    let qubits = 0, evals = 0;
+    if (list.length >= 2 && !sub.pins.every((p) => p >= 0) && !control.shouldStop()) {
+      const encoding = encodeBisection(sub);
+      qubits = encoding.numQubits;
+      if (qubits <= opts.blockSize + 6) {
+        const out = runQaoa({
+          encoding, layers: opts.layers, optimizer: opts.shots > 0 ? 'spsa' : 'nelder-mead', shots: opts.shots, readoutShots: opts.readoutShots,
+          restarts: opts.restarts, maxIterations: opts.maxIterations, rng, shouldStop: () => control.shouldStop(),
+          onIteration: (p) => {
+            const point = { ...p, iteration: iterationBase + p.iteration };
+            trace.push(point);
+            control.onIteration?.(point);
+          },
+        });
+        iterationBase = trace.length > 0 ? trace[trace.length - 1].iteration : iterationBase;
+        evals = out.evaluations;
+        evaluations += out.evaluations;
+        shots += out.shotsUsed;
+        if (out.stopped) stopped = true;
+        if (out.best && out.best.feasible) sides = out.best.assignment;
+      }
+    } else if (control.shouldStop()) stopped = true;
+    blocks.push({ depots: list.length, qubits, value: crossingWeight(sub, sides), evaluations: evals });
+    list.forEach((v, i) => (assignment[v] = sides[i]));
+    control.onStep?.((b + 1) / (blockCount + 1), undefined);
+  });
+
+  const beforeMerge = crossingWeight(problem, assignment);
+  let mergeMethod: DecomposeOutcome['merge']['method'] = 'single';
+  if (blockCount > 1) {
+    const couplings = blockCouplings(network, blockOf, blockCount, assignment);
+    const imbalance = new Float64Array(blockCount);
+    const fixed = new Uint8Array(blockCount);
+    let total = 0;
+    for (let i = 0; i < n; i++) {
+      imbalance[blockOf[i]] += assignment[i] === 1 ? network.depotWeight[i] : -network.depotWeight[i];
+      total += network.depotWeight[i];
+      if (problem.pins[i] >= 0) fixed[blockOf[i]] = 1;
+    }
+    if (fixed.every((f) => f === 0)) fixed[0] = 1; // the global flip changes nothing
+    const { flip, method } = orientForBisection(couplings, imbalance, total, balanceWindow(problem), fixed, opts.mergeExactLimit);
+    mergeMethod = method;
+    for (let i = 0; i < n; i++) if (flip[blockOf[i]] === 1) assignment[i] ^= 1;
+    // The split found few lanes between blocks, so a block kept whole on one side is often
+    // cheaper than the block's own bisection: try that per pair of free blocks (one whole on
+    // each side keeps the balance), kept when the crossing weight drops inside the window.
+    wholeBlockMoves(problem, members, fixed, assignment);
+  }
+  const mergedValue = crossingWeight(problem, assignment);
+  control.onStep?.(blockCount / (blockCount + 1), mergedValue);
+
+  const free = freeDepots(problem.pins);
+  const st = createFlipState(network, assignment);
+  if (!isBalanced(problem, st.side)) repairBalance(problem, st, free);
+  const refineFlips = polishBisection(problem, st, free);
+  return {
+    assignment: Int32Array.from(st.side),
+    blocks,
+    blockOf,
+    merge: { method: mergeMethod, blocks: blockCount, gain: beforeMerge - mergedValue },
+    mergedValue,
+    roundsGain: 0,
+    refineFlips,
+    evaluations,
+    shots,
+    trace,
+    stopped,
+  };
+}
+
+/**
+ * Pair moves over blocks: put block a wholly on side 0 and block b wholly on side 1 (each either
+ * bisected or whole before) when that lowers the crossing weight and keeps the balance window;
+ * repeated until no pair helps. O(B² · lanes of a and b) per sweep.
+ */
+function wholeBlockMoves(problem: Problem, members: number[][], fixed: Uint8Array, assignment: Int32Array): number {
+  const { lo, hi } = balanceWindow(problem);
+  const dw = problem.network.depotWeight;
+  let value = crossingWeight(problem, assignment);
+  let w1 = 0;
+  for (let i = 0; i < assignment.length; i++) if (assignment[i] === 1) w1 += dw[i];
+  let moves = 0;
+  const trial = assignment.slice();
+  for (let improved = true, sweeps = 0; improved && sweeps < 20; sweeps++) {
+    improved = false;
+    for (let a = 0; a < members.length; a++) {
+      if (fixed[a]) continue;
+      for (let b = 0; b < members.length; b++) {
+        if (b === a || fixed[b]) continue;
+        let nw1 = w1;
+        for (const v of members[a]) if (trial[v] === 1) { trial[v] = 0; nw1 -= dw[v]; }
+        for (const v of members[b]) if (trial[v] === 0) { trial[v] = 1; nw1 += dw[v]; }
+        const nv = nw1 >= lo - 1e-9 && nw1 <= hi + 1e-9 ? crossingWeight(problem, trial) : Infinity;
+        if (nv < value - 1e-12) {
+          assignment.set(trial);
+          value = nv;
+          w1 = nw1;
+          moves++;
+          improved = true;
+        } else trial.set(assignment);
+      }
+    }
+  }
+  return moves;
 }

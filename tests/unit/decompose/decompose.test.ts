@@ -6,10 +6,11 @@
  */
 import { compactFromEdges } from '../../../shared/engine/network/build';
 import { bindProblem } from '../../../shared/engine/problem/bind';
-import { crossingWeight } from '../../../shared/engine/problem/evaluate';
+import { crossingWeight, isBalanced, respectsPins } from '../../../shared/engine/problem/evaluate';
+import { balanceWindow } from '../../../shared/engine/classical/balance';
 import type { Problem } from '../../../shared/engine/problem/types';
 import { createRng } from '../../../shared/engine/random';
-import { blockCouplings, decomposeMaxcut, exactSmallMaxcut, splitIntoBlocks } from '../../../shared/engine/variational/decompose';
+import { blockCouplings, decomposeMaxcut, exactSmallMaxcut, orientForBisection, splitIntoBlocks } from '../../../shared/engine/variational/decompose';
 import { qaoaBlocksSolver } from '../../../shared/engine/solvers/decomposed';
 import { solveProblem } from '../../../shared/engine/solvers/orchestrate';
 import { getSolver } from '../../../shared/engine/solvers/registry';
@@ -89,12 +90,13 @@ describe('block split', () => {
 });
 
 describe('qaoa-blocks solver', () => {
-  test('is registered as a variational heuristic for max-cut and refuses bisection', () => {
+  test('is registered as a variational heuristic for max-cut and bisection and refuses k-way', () => {
     const d = getSolver('qaoa-blocks');
     expect(d.family).toBe('variational');
     expect(d.guarantee).toMatch(/heuristic/i);
-    const bisection = bindProblem(compactFromEdges(4, cycle(4)), { kind: 'bisection' });
-    expect(d.refuses(bisection, d.parseSettings({}))).toMatch(/max-cut only/);
+    const kway = bindProblem(compactFromEdges(6, cycle(6)), { kind: 'kway', k: 3 });
+    expect(d.refuses(kway, d.parseSettings({}))).toMatch(/max-cut and balanced bisection/);
+    expect(d.refuses(bindProblem(compactFromEdges(4, cycle(4)), { kind: 'bisection' }), d.parseSettings({}))).toBeNull();
     expect(() => d.parseSettings({ blockSize: 30 })).toThrow(/blockSize/);
     expect(qaoaBlocksSolver.simulatedQubits(maxcut(60, randomGraph(60, 0.1, 7)), d.parseSettings({}))).toBe(14);
   });
@@ -134,4 +136,42 @@ describe('qaoa-blocks solver', () => {
     expect(r.assignment).toHaveLength(60);
     expect(r.notes.join(' ')).toMatch(/stopped early/);
   });
+});
+
+describe('qaoa-blocks for balanced bisection', () => {
+  test('block orientations: exact search equals brute force over all orientations (crossing and balance)', () => {
+    // 6 blocks of 4 depots on a random graph, each block with a fixed internal (unbalanced) split.
+    const n = 24;
+    const problem = bindProblem(compactFromEdges(n, randomGraph(n, 0.35, 13)), { kind: 'bisection', tolerance: 0.1 });
+    const blockOf = Int32Array.from({ length: n }, (_, i) => Math.floor(i / 4));
+    const rng = createRng(9);
+    const sides = Int32Array.from({ length: n }, () => rng.int(2));
+    const imbalance = new Float64Array(6);
+    for (let i = 0; i < n; i++) imbalance[blockOf[i]] += sides[i] === 1 ? 1 : -1;
+    const fixed = Uint8Array.from([1, 0, 0, 0, 0, 0]);
+    const { flip } = orientForBisection(blockCouplings(problem.network, blockOf, 6, sides), imbalance, n, balanceWindow(problem), fixed, 16);
+    const apply = (mask: number) => Int32Array.from(sides, (s, i) => ((mask >> blockOf[i]) & 1 ? s ^ 1 : s));
+    let best = Infinity;
+    for (let mask = 0; mask < 64; mask += 2) { // block 0 fixed
+      const a = apply(mask);
+      if (isBalanced(problem, a)) best = Math.min(best, crossingWeight(problem, a));
+    }
+    const mine = apply(flip.reduce((m, f, b) => m | (f << b), 0));
+    expect(Number.isFinite(best)).toBe(true); // some orientation is balanced for this seed
+    expect(isBalanced(problem, mine)).toBe(true);
+    expect(crossingWeight(problem, mine)).toBe(best);
+    expect(flip[0]).toBe(0);
+  });
+
+  test('60-depot seeded random graph: balanced, pins kept, never below the proven bound', async () => {
+    const problem = bindProblem(compactFromEdges(60, randomGraph(60, 0.1, 7)), { kind: 'bisection', pins: { '1': 0, '60': 1 } });
+    const r = await solveProblem(problem, 'qaoa-blocks', {}, { seed: 1, timeLimitSeconds: 20 });
+    expect(r.infeasible).toBe(false);
+    expect(isBalanced(problem, r.assignment)).toBe(true);
+    expect(respectsPins(problem, r.assignment)).toBe(true);
+    expect(r.value).toBe(crossingWeight(problem, r.assignment));
+    expect(r.bound).not.toBeNull();
+    expect(r.value).toBeGreaterThanOrEqual(r.bound!);
+    expect(r.notes.join(' ')).toMatch(/under the balance rule/);
+  }, 60_000);
 });
