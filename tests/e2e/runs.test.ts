@@ -82,7 +82,7 @@ describe.each([
   ['wide', WIDE],
 ])('%s', (label, viewport) => {
   test('demo network → run with exact, tabu and QAOA → 100 % → scorecard, partition, CSV', async () => {
-    const context = await browser.newContext({ viewport, acceptDownloads: true });
+    const context = await browser.newContext({ viewport, acceptDownloads: true, permissions: ['clipboard-read', 'clipboard-write'] });
     const page = await context.newPage();
     const errors = watchPageErrors(page);
     await signIn(page);
@@ -165,6 +165,11 @@ describe.each([
     const exactValue = Number(((await page.getByTestId('value-exact').textContent()) ?? '').replace(/,/g, ''));
     expect(cut).toBeCloseTo(exactValue, 6);
     runIds.push(runId);
+
+    // Share: the copied link is this run's page (members open the same read-only view).
+    await page.getByTestId('copy-link').click();
+    await page.getByTestId('copied').waitFor();
+    await expect(page.evaluate(() => navigator.clipboard.readText())).resolves.toBe(`${server.url}/runs/${runId}`);
 
     // The printable report: same best value, every depot listed.
     await page.getByTestId('open-report').click();
