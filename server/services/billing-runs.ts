@@ -95,6 +95,9 @@ export async function applyRunCardPayment(
   await appendEntry(deps, { organisationId: p.organisationId, kind: 'run_payment', amount: p.amount, sourceKey: `checkout:${p.sessionId}`, eventId: p.eventId, paymentId: p.paymentId, runId: p.runId, createdBy: p.userId, note: `Card payment for run #${p.runId}` }, transaction);
   const charge = await deps.models.RunCharge.findOne({ where: { runId: p.runId, organisationId: p.organisationId }, transaction });
   if (!charge || charge.status !== 'awaiting' || (await hasEntry(deps, spendKey(p.runId), transaction))) return false;
+  // Paid less than the price (should not happen), or the run was deleted meanwhile: the money stays as credits.
+  if (p.amount < charge.amount) return false;
+  if (!(await deps.models.Run.count({ where: { id: p.runId, deletedAt: null }, transaction }))) return false;
   await appendEntry(deps, { organisationId: p.organisationId, kind: 'run_spend', amount: -charge.amount, sourceKey: spendKey(p.runId), eventId: p.eventId, paymentId: p.paymentId, runId: p.runId, createdBy: p.userId, note: `Run #${p.runId} paid by card` }, transaction);
   await charge.update({ status: 'paid', paidWith: 'card', paymentId: p.paymentId, paidAt: new Date(), failureMessage: null }, { transaction });
   return true;

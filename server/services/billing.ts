@@ -138,8 +138,12 @@ export function verifyWebhook(deps: Pick<Deps, 'config'>, rawBody: unknown, sign
 
 async function onCheckoutCompleted(deps: Deps, event: Stripe.Event, session: Stripe.Checkout.Session): Promise<string> {
   if (session.payment_status !== 'paid') return 'not paid yet';
-  const found = await deps.models.Payment.findOne({ where: { providerSessionId: session.id } });
+  // By session id; else by our id in the metadata (if the row never got its session id saved).
+  const byMeta = Number(session.metadata?.paymentId);
+  const found = (await deps.models.Payment.findOne({ where: { providerSessionId: session.id } }))
+    ?? (Number.isInteger(byMeta) && byMeta > 0 ? await deps.models.Payment.findOne({ where: { id: byMeta, organisationId: Number(session.metadata?.organisationId), status: 'open' } }) : null);
   if (!found) return 'unknown checkout';
+  if (found.providerSessionId !== session.id) await found.update({ providerSessionId: session.id });
   let last4: string | null = null;
   const intentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
   if (intentId) {
