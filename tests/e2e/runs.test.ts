@@ -60,9 +60,9 @@ afterAll(async () => {
 let password = '';
 const runIds: number[] = [];
 
-async function signIn(page: Page) {
+async function signIn(page: Page, email = ANALYST) {
   await page.goto(`${server.url}/sign-in`);
-  await page.getByTestId('sign-in-email').fill(ANALYST);
+  await page.getByTestId('sign-in-email').fill(email);
   await page.getByTestId('sign-in-password').fill(password);
   await page.getByTestId('sign-in-submit').click();
   await page.waitForURL((u) => u.pathname === '/networks');
@@ -191,6 +191,17 @@ describe.each([
     }
     expect(errors).toEqual([]);
     await context.close();
+
+    // Any member opens the shared link to the same read-only view: a viewer sees the scorecard,
+    // no cancel, no comparison (analysts only).
+    const member = await browser.newContext({ viewport });
+    const viewerPage = await member.newPage();
+    await signIn(viewerPage, 'viewer@quillmere.example');
+    await viewerPage.goto(`${server.url}/runs/${runId}`);
+    await viewerPage.getByTestId('proven-exact').waitFor();
+    expect(await viewerPage.getByTestId('cancel-run').count()).toBe(0);
+    expect(await viewerPage.getByTestId('compare-from-run').count()).toBe(0);
+    await member.close();
 
     // The shared link is for members only: a signed-out visitor lands on the sign-in page.
     const stranger = await browser.newContext({ viewport });
