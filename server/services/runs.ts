@@ -79,6 +79,21 @@ interface CheckedEntry {
   qubits: number | null;
 }
 
+/**
+ * Qubits of the direct encoding. Building the operator is cheap for small networks; beyond
+ * DIRECT_QUBITS_EXACT free depots every encoding needs at least one qubit per free depot, which is
+ * over every plan's limit anyway, so the API thread never builds a large operator just to refuse it.
+ */
+const DIRECT_QUBITS_EXACT = 40;
+function directQubits(problem: Problem): number {
+  let free = 0;
+  for (let i = 0; i < problem.pins.length; i++) if (problem.pins[i] < 0) free++;
+  return free > DIRECT_QUBITS_EXACT ? free : orchestrate().qubitsFor(problem) ?? free;
+}
+
+/** Above this many estimated Pauli terms the preview does not build the operator in the API process. */
+const PREVIEW_MAX_TERMS = 300_000;
+
 /** Field errors of the solver entries: unknown names, kinds, settings out of range. */
 function checkEntries(problem: Problem, entries: CreateRunBody['solvers']): { checked: CheckedEntry[]; fields: Record<string, string[]> } {
   const { getSolver } = registry();
@@ -110,7 +125,7 @@ function checkEntries(problem: Problem, entries: CreateRunBody['solvers']): { ch
     let qubits: number | null = null;
     const aware = definition as AnySolverDefinition & QubitAware;
     if (aware.simulatedQubits) qubits = aware.simulatedQubits(problem, parsed);
-    else if (definition.family === 'variational') qubits = orchestrate().qubitsFor(problem);
+    else if (definition.family === 'variational') qubits = directQubits(problem);
     checked.push({ definition, settings: entry.settings ?? {}, isDefault, refusal, qubits });
   });
   return { checked, fields };
@@ -186,7 +201,7 @@ export async function createRun(deps: RunServiceDeps, actor: RunActor, body: Cre
     const run = await deps.models.Run.create(
       {
         organisationId: actor.organisationId, networkId, versionId: body.versionId, createdBy: actor.userId, problem: JSON.stringify(body.problem),
-        status: held ? 'awaiting_payment' : 'queued', held, priority: limits.priority, seed: body.seed ?? 1, timeLimitSeconds: seconds, depotCount: problem.network.n,
+        status: held ? 'awaiting_payment' : 'queued', held, priority: price ? Math.min(limits.priority, runLimits(ceiling).priority) : limits.priority, seed: body.seed ?? 1, timeLimitSeconds: seconds, depotCount: problem.network.n,
       },
       { transaction },
     );
@@ -234,6 +249,8 @@ export async function previewRun(deps: RunServiceDeps, actor: RunActor, body: Pr
   let encoding: ReturnType<Orchestrate['describeEncoding']> | null = null;
   let encodingNote: string | null = null;
   try {
+    const terms = orchestrate().estimatedPauliTerms(problem);
+    if (terms > PREVIEW_MAX_TERMS) throw new Error(`the direct ${problem.kind} operator would have about ${Math.round(terms).toLocaleString('en')} Pauli terms; too large to summarise here (the variational solvers would refuse it; qaoa-blocks splits it into blocks)`);
     encoding = orchestrate().describeEncoding(problem, body.precision !== undefined ? { precision: body.precision } : {});
   } catch (e) {
     encodingNote = (e as Error).message;

@@ -15,6 +15,7 @@ import Stripe from 'stripe';
 import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail/mail-catcher';
 import { startPaymentFake, type PaymentFake } from '../../server/fakes/payments/payment-fake';
 import { TEST_CARDS } from '../../server/fakes/payments/state';
+import { RUN_LIMITS } from '../../shared/plans';
 import { applyRunsEnv, createTestApp, networkBody, orgWithTokens, randomEdges, saveNetwork, waitFor, type TestApp } from './runs-support';
 
 const APP_PORT = 3141; // billing suites own 3140–3149
@@ -137,6 +138,10 @@ describe('paid runs', () => {
     expect(created.body).toMatchObject({ status: 'awaiting_payment', price: { amount: PAID_RUN_CENTS, currency: 'eur' } });
     const run = await as(org.tokens.viewer).get(`/runs/${created.body.id}`);
     expect(run.body.status).toBe('awaiting_payment');
+    // Paid runs queue with the priority of the plan whose limits they use (lower runs first).
+    const row = await t.deps.models.Run.findByPk(created.body.id);
+    expect(row!.get('priority')).toBe(RUN_LIMITS.team.priority);
+    expect(RUN_LIMITS.team.priority).toBeLessThan(RUN_LIMITS.free.priority);
     const charge = await as(org.tokens.dispatcher).get(`/billing/runs/${created.body.id}`);
     expect(charge.body).toMatchObject({ status: 'awaiting', paidWith: null, price: { amount: PAID_RUN_CENTS } });
     // A run inside the included size stays free and is not held.
