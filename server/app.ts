@@ -9,6 +9,7 @@ const SequelizeStoreFactory = require('connect-session-sequelize');
 import type { Deps } from './deps';
 import { apiRoutes } from './routes';
 import { errorBody, mountRoutes, type RouteSpec } from './lib/routes';
+import { throttleTouch } from './middleware/session-touch';
 
 export const SESSION_COOKIE = 'spinyard.sid';
 export const SESSION_MAX_AGE_MS = 14 * 24 * 3600 * 1000;
@@ -56,6 +57,7 @@ export function createApp(deps: Deps, extras: AppExtras = {}) {
 
   const SequelizeStore = SequelizeStoreFactory(session.Store);
   const store = new SequelizeStore({ db: deps.db, table: 'Session', checkExpirationInterval: 15 * 60 * 1000, expiration: SESSION_MAX_AGE_MS });
+  throttleTouch(store); // one expiry UPDATE per session per minute, not per request
   const api = express.Router();
   api.use('/billing/webhook', express.raw({ type: '*/*', limit: '1mb' }));
   api.use(express.json({ limit: '25mb' }));
