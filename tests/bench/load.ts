@@ -76,7 +76,9 @@ async function main() {
   // Seed: an organisation on the largest plan, its owner with a token, 12 networks (2 versions
   // each), 40 finished runs with results.
   const org = await deps.models.Organisation.create({ name: `Load ${tag}`, plan: 'fleet' });
-  const user = await deps.models.User.create({ email: `load.${tag}@load.example`, name: 'Load owner', passwordHash: 'x'.repeat(60) });
+  const { createUser } = await import('../../server/services/accounts');
+  const password = 'load-bench-harbour-42';
+  const user = await deps.db.transaction((transaction) => createUser(deps, { email: `load.${tag}@load.example`, name: 'Load owner', password }, transaction));
   await deps.models.Membership.create({ organisationId: org.id, userId: user.id, role: 'owner' });
   const actor = { organisationId: org.id, userId: user.id };
   const { token } = await createToken(deps, org.id, user.id, 'load benchmark', null);
@@ -110,18 +112,26 @@ async function main() {
     ['GET /runs/:id', `/api/runs/${runIds[0]}`],
     ['GET /auth/me', '/api/auth/me'],
   ];
+  // A browser session too: the same list through the cookie (the session store is touched per request).
+  const csrf = await fetch(`${base}/api/auth/csrf`);
+  const first = (csrf.headers.get('set-cookie') ?? '').split(';')[0];
+  const signIn = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { cookie: first, 'x-csrf-token': ((await csrf.json()) as { csrfToken: string }).csrfToken, 'content-type': 'application/json' }, body: JSON.stringify({ email: user.email, password }) });
+  if (signIn.status !== 200) throw new Error(`sign-in for the cookie route failed: ${signIn.status}`);
+  const cookie = (signIn.headers.get('set-cookie') ?? '').split(';')[0];
   const rows: RouteRow[] = [];
-  for (const [route, url] of routes) {
+  for (const [route, url] of [...routes, ['GET /networks (cookie session)', '/api/networks'] as [string, string]]) {
+    const headers: Record<string, string> = route.includes('cookie') ? { cookie } : { authorization: `Bearer ${token}` };
     // SQL statements for one answer (N+1 queries show here whatever the machine's load).
     await new Promise((r) => setTimeout(r, 1500)); // answers still in flight from the previous route finish first
+    await fetch(base + url, { headers }); // warm: first touches and caches are not the steady state
     let statements = 0;
-    const options = deps.db.options as { logging?: unknown };
+    const options = (deps.db as unknown as { options: { logging?: unknown } }).options;
     options.logging = (sql: string) => { statements++; if (process.env.LOAD_SQL) console.log(`  sql: ${sql.slice(0, 160)}`); };
-    const check = await fetch(base + url, { headers: { authorization: `Bearer ${token}` } });
+    const check = await fetch(base + url, { headers });
     options.logging = false;
     if (check.status !== 200) throw new Error(`${route} answered ${check.status} before the load: ${await check.text()}`);
     const times: number[] = [];
-    const instance = autocannon({ url: base + url, connections: CONNECTIONS, duration: SECONDS, headers: { authorization: `Bearer ${token}` } });
+    const instance = autocannon({ url: base + url, connections: CONNECTIONS, duration: SECONDS, headers });
     instance.on('response', (...a: unknown[]) => times.push(a[3] as number));
     const r = await instance;
     rows.push({ route, statements, requests: r.requests.total, perSecond: r.requests.average, p50: quantile(times, 0.5), p95: quantile(times, 0.95), p99: quantile(times, 0.99), non2xx: r.non2xx, errors: r.errors, bytes: r.requests.total ? r.throughput.total / r.requests.total : 0 });
