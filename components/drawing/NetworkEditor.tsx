@@ -234,20 +234,9 @@ export function NetworkEditor(props: {
       {!props.readOnly ? (
         <View style={styles.toolbar} accessibilityRole="toolbar" accessibilityLabel="Drawing tools">
           <View style={styles.segment}>
-            <Button label="Draw lanes" tone={mode === 'lanes' ? 'primary' : 'secondary'} onPress={() => setMode('lanes')} accessibilityHint="Drag from one depot to another to add a lane" testID="mode-lanes" />
-            <Button label="Move depots" tone={mode === 'move' ? 'primary' : 'secondary'} onPress={() => setMode('move')} accessibilityHint="Drag a depot to move it" testID="mode-move" />
+            <Button label="Draw lanes" tone={mode === 'lanes' ? 'primary' : 'secondary'} onPress={() => setMode('lanes')} accessibilityHint="Drag from one depot to another to add a lane" testID="mode-lanes" style={styles.compact} />
+            <Button label="Move depots" tone={mode === 'move' ? 'primary' : 'secondary'} onPress={() => setMode('move')} accessibilityHint="Drag a depot to move it" testID="mode-move" style={styles.compact} />
           </View>
-          <Button label="Undo" tone="secondary" onPress={props.undo} disabled={!props.canUndo} />
-          <Button label="Redo" tone="secondary" onPress={props.redo} disabled={!props.canRedo} />
-          <Button
-            label={selectedCount > 0 ? `Delete (${selectedCount})` : 'Delete'}
-            tone="secondary"
-            disabled={selectedCount === 0}
-            onPress={() => {
-              props.onCommit(removeSelected(draft, props.selection));
-              props.onSelectionChange(emptySelection);
-            }}
-          />
         </View>
       ) : null}
       <View style={[styles.canvas, { height: props.height ?? 420 }]} onLayout={onLayout}>
@@ -282,6 +271,26 @@ export function NetworkEditor(props: {
           <Button label="+" tone="secondary" onPress={() => zoomCentre(1.25)} accessibilityHint="Zoom in" testID="zoom-in" />
           <Button label="−" tone="secondary" onPress={() => zoomCentre(0.8)} accessibilityHint="Zoom out" testID="zoom-out" />
         </View>
+        {!props.readOnly ? (
+          <View style={styles.history}>
+            <Button label="Undo" tone="secondary" onPress={props.undo} disabled={!props.canUndo} style={styles.compact} />
+            <Button label="Redo" tone="secondary" onPress={props.redo} disabled={!props.canRedo} style={styles.compact} />
+          </View>
+        ) : null}
+        {selectedCount > 0 && !props.readOnly ? (
+          // Over the canvas, where the selection is, and only while there is one (saves a toolbar row on phones).
+          <View style={styles.selectionTools}>
+            <Button
+              label={`Delete (${selectedCount})`}
+              tone="danger"
+              onPress={() => {
+                props.onCommit(removeSelected(draft, props.selection));
+                props.onSelectionChange(emptySelection);
+              }}
+              accessibilityHint="Remove the selected depots (with their lanes) and lanes"
+            />
+          </View>
+        ) : null}
         {draft.depots.length === 0 && !props.readOnly ? (
           <View style={styles.hint} pointerEvents="none">
             <Small style={styles.hintText}>Tap anywhere to place the first depot.</Small>
@@ -347,7 +356,10 @@ const styles = StyleSheet.create({
   toolbar: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'center' },
   segment: { flexDirection: 'row', gap: 2, padding: 2, borderRadius: radius.md, backgroundColor: colors.surfaceSunk },
   canvas: { borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, overflow: 'hidden', backgroundColor: colors.surface },
+  compact: { paddingHorizontal: space.md },
+  history: { position: 'absolute', left: space.sm, top: space.sm, flexDirection: 'row', gap: space.xs },
+  selectionTools: { position: 'absolute', right: space.sm, top: space.sm },
   zoom: { position: 'absolute', right: space.sm, bottom: space.sm, flexDirection: 'row', gap: space.xs },
-  hint: { position: 'absolute', left: 0, right: 0, top: space.lg, alignItems: 'center' },
+  hint: { position: 'absolute', left: 0, right: 0, top: 64, alignItems: 'center' },
   hintText: { backgroundColor: colors.paper, paddingHorizontal: space.md, paddingVertical: space.xs, borderRadius: radius.pill },
 });

@@ -32,6 +32,7 @@ export function NetworkScreen(props: { id: number }) {
   const remove = useNetworkDeleteMutation();
   const layouts = useVersionLayout();
   const [dirty, setDirty] = useState(false);
+  const [more, setMore] = useState(false);
   const [asking, setAsking] = useState<null | 'leave' | 'delete' | 'rename' | { open: number }>(null);
 
   if (network.isPending) return <Screen title="Network"><Body>Loading the network…</Body></Screen>;
@@ -54,9 +55,14 @@ export function NetworkScreen(props: { id: number }) {
     <View style={wide ? styles.actionsWide : styles.actionsPhone}>
       {version ? <NewRunButton networkId={n.id} versionId={version.id} role={me.data?.current?.role ?? null} /> : null}
       <Button label="All networks" tone="secondary" onPress={leave} />
-      {canWrite ? <Button label="Rename" tone="secondary" onPress={() => setAsking('rename')} /> : null}
-      {canWrite ? <Button label="Import new version" tone="secondary" onPress={() => router.push(`/networks/import?networkId=${n.id}`)} /> : null}
-      {canWrite ? <Button label="Delete" tone="quiet" onPress={() => setAsking('delete')} /> : null}
+      {canWrite && !wide ? <Button label={more ? 'Less' : 'More'} tone="quiet" onPress={() => setMore((m) => !m)} accessibilityHint="Rename, import a new version or delete" /> : null}
+      {canWrite && (wide || more) ? (
+        <>
+          <Button label="Rename" tone="secondary" onPress={() => setAsking('rename')} />
+          <Button label="Import new version" tone="secondary" onPress={() => router.push(`/networks/import?networkId=${n.id}`)} />
+          <Button label="Delete" tone="quiet" onPress={() => setAsking('delete')} />
+        </>
+      ) : null}
     </View>
   );
 

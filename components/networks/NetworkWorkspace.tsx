@@ -97,7 +97,7 @@ export function NetworkWorkspace(props: {
   return (
     <View style={styles.wrap}>
       {props.notice}
-      <SummaryBar summary={summary} />
+      <SummaryBar summary={summary} compact={!wide} />
       {!props.readOnly && props.onSave ? (
         <View style={styles.saveRow}>
           <Small style={dirty ? styles.dirty : undefined} testID="save-state">{dirty ? 'Unsaved changes' : 'All changes saved'}</Small>

@@ -5,7 +5,7 @@ import { Label, Small } from '../ui/Text';
 import { formatVolume } from './format';
 
 /** Depots, lanes, total volume, components and degree range of the version on screen. */
-export function SummaryBar(props: { summary: NetworkSummary; testID?: string }) {
+export function SummaryBar(props: { summary: NetworkSummary; testID?: string; /** One line of text (phones: keeps the drawing near the top). */ compact?: boolean }) {
   const s = props.summary;
   const items: [string, string][] = [
     ['Depots', formatVolume(s.depots)],
@@ -14,6 +14,19 @@ export function SummaryBar(props: { summary: NetworkSummary; testID?: string }) 
     ['Components', formatVolume(s.components)],
     ['Degree', s.depots === 0 ? '—' : s.minDegree === s.maxDegree ? String(s.minDegree) : `${s.minDegree}–${s.maxDegree}`],
   ];
+  if (props.compact) {
+    const split = s.components > 1;
+    return (
+      <Small testID={props.testID ?? 'network-summary'} style={styles.line} accessibilityLabel={items.map(([k, v]) => `${k} ${v}`).join(', ') + (split ? `; ${s.components} separate parts` : '')}>
+        {items.map(([k, v], i) => (
+          <Small key={k} style={styles.line}>
+            {i > 0 ? ' · ' : ''}
+            {k} <Label style={[styles.inline, k === 'Components' && split && styles.warn]} testID={`summary-${k.toLowerCase().replace(/\s/g, '-')}`}>{v}</Label>
+          </Small>
+        ))}
+      </Small>
+    );
+  }
   return (
     <View style={styles.row} testID={props.testID ?? 'network-summary'} accessibilityLabel={items.map(([k, v]) => `${k} ${v}`).join(', ')}>
       {items.map(([k, v]) => {
@@ -36,4 +49,6 @@ const styles = StyleSheet.create({
   item: { minWidth: 92, flexGrow: 1, paddingVertical: space.sm, paddingHorizontal: space.md, borderRadius: radius.md, backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line },
   value: { fontSize: 17, lineHeight: 24, color: colors.text },
   warn: { color: colors.signalDeep },
+  line: { color: colors.textMuted },
+  inline: { color: colors.text, fontSize: 14 },
 });
