@@ -6,8 +6,9 @@
  * its own section of docs/benchmarks.md; this script writes the `## Summary` section at the top
  * (machine, date, what ran) and leaves the other sections alone.
  *
- *   npx tsx tests/bench/all.ts [--quick] [--only sim,classical,service,load] [--no-write]
- * --quick passes each benchmark its short options (and they then leave their sections alone).
+ *   npx tsx tests/bench/all.ts [--quick] [--full load,…] [--only sim,classical,service,load] [--no-write]
+ * --quick passes each benchmark its short options (and they then leave their sections alone);
+ * --full names benchmarks that run with their full options even under --quick.
  */
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
@@ -21,11 +22,14 @@ const quick = args.includes('--quick');
 const write = !args.includes('--no-write');
 const onlyAt = args.indexOf('--only');
 const only = onlyAt >= 0 ? args[onlyAt + 1].split(',') : null;
+const fullAt = args.indexOf('--full');
+const full = fullAt >= 0 ? args[fullAt + 1].split(',') : [];
+const shortFor = (b: { name: string }) => quick && !full.includes(b.name);
 
 interface Bench { name: string; file: string; args: string[]; quickArgs: string[] }
 const BENCHES: Bench[] = [
   { name: 'sim', file: 'tests/bench/sim.ts', args: [], quickArgs: ['--quick'] },
-  { name: 'classical', file: 'tests/bench/classical.ts', args: [], quickArgs: ['--limit', '2', '--skip-exact', '--skip-milp', '--no-write'] },
+  { name: 'classical', file: 'tests/bench/classical.ts', args: [], quickArgs: ['--limit', '2', '--skip-exact', '--skip-milp', '--skip-partition', '--no-write'] },
   { name: 'service', file: 'tests/bench/service.ts', args: [], quickArgs: ['--runs', '8', '--paced', '5', '--no-write'] },
   { name: 'load', file: 'tests/bench/load.ts', args: [], quickArgs: ['--quick'] },
 ];
@@ -90,7 +94,7 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
 function run(b: Bench): Promise<{ code: number; out: string; seconds: number }> {
   const t0 = Date.now();
   return new Promise((resolve) => {
-    const child = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [b.file, ...(quick ? b.quickArgs : b.args)], { cwd: ROOT, env: process.env, stdio: ['ignore', 'pipe', 'inherit'] });
+    const child = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [b.file, ...(shortFor(b) ? b.quickArgs : b.args)], { cwd: ROOT, env: process.env, stdio: ['ignore', 'pipe', 'inherit'] });
     let out = '';
     child.stdout.on('data', (d) => {
       out += String(d);
@@ -106,10 +110,10 @@ async function main() {
   const ratios: RatioRow[] = [];
   const ran: string[] = [];
   for (const b of BENCHES.filter((x) => !only || only.includes(x.name))) {
-    console.log(`\n=== ${b.name}: npx tsx ${b.file} ${(quick ? b.quickArgs : b.args).join(' ')}`);
+    console.log(`\n=== ${b.name}: npx tsx ${b.file} ${(shortFor(b) ? b.quickArgs : b.args).join(' ')}`);
     const r = await run(b);
     const found = ratiosOf(b.name, r.out);
-    ran.push(`${b.name} (${r.code === 0 ? 'ok' : `exit ${r.code}`}, ${Math.round(r.seconds)} s${quick ? ', quick options' : ''}${found.length === 0 ? ', no ratios found in its output' : ''})`);
+    ran.push(`${b.name} (${r.code === 0 ? 'ok' : `exit ${r.code}`}, ${Math.round(r.seconds)} s${shortFor(b) ? `, quick options: ${b.quickArgs.join(' ')}` : ', full options'}${found.length === 0 ? ', no ratios found in its output' : ''})`);
     ratios.push(...found);
   }
   const table = [
