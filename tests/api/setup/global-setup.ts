@@ -4,10 +4,22 @@ import { applyTestEnv } from '../../support/env';
 
 export const LOCK_FILE = path.resolve(__dirname, '..', '..', '..', '.data', 'test', 'api-run.lock');
 
-function lockHeldByLiveProcess(): boolean {
+interface Lock {
+  pid: number;
+  ready: boolean; // the holder has finished dropping, creating and migrating
+}
+
+function readLock(): Lock | null {
   try {
-    const pid = Number(fs.readFileSync(LOCK_FILE, 'utf8'));
-    if (!pid || pid === process.pid) return false;
+    const lock = JSON.parse(fs.readFileSync(LOCK_FILE, 'utf8')) as Lock;
+    return typeof lock.pid === 'number' ? lock : null;
+  } catch {
+    return null;
+  }
+}
+
+function alive(pid: number): boolean {
+  try {
     process.kill(pid, 0);
     return true;
   } catch {
@@ -15,10 +27,15 @@ function lockHeldByLiveProcess(): boolean {
   }
 }
 
+const writeLock = (lock: Lock) => {
+  fs.mkdirSync(path.dirname(LOCK_FILE), { recursive: true });
+  fs.writeFileSync(LOCK_FILE, JSON.stringify(lock));
+};
+
 /**
- * Each api run starts from an empty `spinyard_test` database (drop, create, migrate). When another
- * api run on this machine is still going (a live lock holder), its data is left alone and only the
- * migrations run, so colleagues' suites are not pulled out from under them.
+ * Each api run starts from an empty `spinyard_test` database (drop, create, migrate). Several people
+ * share this machine: when another api run is still going (a live lock holder), its database is
+ * left alone — this run waits until that run's migrations are done and then only migrates (a no-op).
  */
 export default async function globalSetup(): Promise<void> {
   applyTestEnv();
@@ -26,10 +43,13 @@ export default async function globalSetup(): Promise<void> {
   const { createDatabase } = await import('../../../server/db');
   const { migrate } = await import('../../../server/migrate');
   const config = loadConfig();
-  const shared = lockHeldByLiveProcess();
-  if (!shared) {
-    fs.mkdirSync(path.dirname(LOCK_FILE), { recursive: true });
-    fs.writeFileSync(LOCK_FILE, String(process.pid));
+  const held = readLock();
+  const shared = !!held && held.pid !== process.pid && alive(held.pid);
+  if (shared) {
+    const deadline = Date.now() + 120_000;
+    while (!readLock()?.ready && Date.now() < deadline && alive(held!.pid)) await new Promise((r) => setTimeout(r, 250));
+  } else {
+    writeLock({ pid: process.pid, ready: false });
     const admin = createDatabase({ ...config, DB_NAME: 'mysql' });
     try {
       await admin.query(`DROP DATABASE IF EXISTS \`${config.DB_NAME}\``);
@@ -44,4 +64,5 @@ export default async function globalSetup(): Promise<void> {
   } finally {
     await db.close();
   }
+  if (!shared) writeLock({ pid: process.pid, ready: true });
 }

@@ -4,8 +4,8 @@ import { LOCK_FILE } from './global-setup';
 /** Release the api-run lock if this run holds it. */
 export default async function globalTeardown(): Promise<void> {
   try {
-    if (Number(fs.readFileSync(LOCK_FILE, 'utf8')) === process.pid) fs.unlinkSync(LOCK_FILE);
+    if ((JSON.parse(fs.readFileSync(LOCK_FILE, 'utf8')) as { pid: number }).pid === process.pid) fs.unlinkSync(LOCK_FILE);
   } catch {
-    // no lock: nothing to release
+    // no lock (or not ours): nothing to release
   }
 }
