@@ -201,7 +201,7 @@ async function partitionTable(lines: string[]): Promise<void> {
 
 function machine(): string {
   const cpu = os.cpus()[0]?.model ?? 'unknown';
-  return `Machine: ${cpu}, ${os.cpus().length} cores, ${(os.totalmem() / 2 ** 30).toFixed(1)} GiB, Node ${process.version}, ${new Date().toISOString()} (cores shared with other work; times are wall-clock).`;
+  return `Machine: ${cpu}, ${os.cpus().length} cores, ${(os.totalmem() / 2 ** 30).toFixed(1)} GiB, Node ${process.version}, ${new Date().toISOString()} (cores shared with other work while measuring).`;
 }
 
 function rewriteSection(body: string): void {

@@ -176,7 +176,11 @@ export async function tabuMaxcut(
     for (;;) {
       const b = topBucket();
       if (b - D <= 0) return;
-      move(head[b]);
+      // Random tie-break among the first few of the bucket: with ±1 lanes many depots share a
+      // gain, and always taking the list head sends every descent down the same path.
+      let pick = head[b], count = 1;
+      for (let v = nxt[pick]; v >= 0 && count < 4; v = nxt[v]) if (rng.int(++count) === 0) pick = v;
+      move(pick);
     }
   };
   const ascend = integral ? ascendBucketed : ascendScan;
