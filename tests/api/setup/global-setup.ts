@@ -3,6 +3,11 @@ import path from 'node:path';
 import { applyTestEnv } from '../../support/env';
 
 export const LOCK_FILE = path.resolve(__dirname, '..', '..', '..', '.data', 'test', 'api-run.lock');
+/**
+ * Every api run (not only the lock holder) leaves its pid here while it runs, so a run that
+ * starts after the lock holder finished does not drop the database under a run still going.
+ */
+export const USERS_DIR = path.resolve(__dirname, '..', '..', '..', '.data', 'test', 'api-run.users');
 
 interface Lock {
   pid: number;
@@ -27,6 +32,18 @@ function alive(pid: number): boolean {
   }
 }
 
+/** True when another live api run uses the database (stale entries are removed). */
+function otherLiveUsers(): boolean {
+  let found = false;
+  for (const name of fs.existsSync(USERS_DIR) ? fs.readdirSync(USERS_DIR) : []) {
+    const pid = Number(name);
+    if (!pid || pid === process.pid) continue;
+    if (alive(pid)) found = true;
+    else fs.rmSync(path.join(USERS_DIR, name), { force: true });
+  }
+  return found;
+}
+
 const writeLock = (lock: Lock) => {
   fs.mkdirSync(path.dirname(LOCK_FILE), { recursive: true });
   fs.writeFileSync(LOCK_FILE, JSON.stringify(lock));
@@ -44,10 +61,13 @@ export default async function globalSetup(): Promise<void> {
   const { migrate } = await import('../../../server/migrate');
   const config = loadConfig();
   const held = readLock();
-  const shared = !!held && held.pid !== process.pid && alive(held.pid);
+  const holderLive = !!held && held.pid !== process.pid && alive(held.pid);
+  const shared = holderLive || otherLiveUsers();
+  fs.mkdirSync(USERS_DIR, { recursive: true });
+  fs.writeFileSync(path.join(USERS_DIR, String(process.pid)), '');
   if (shared) {
     const deadline = Date.now() + 120_000;
-    while (!readLock()?.ready && Date.now() < deadline && alive(held!.pid)) await new Promise((r) => setTimeout(r, 250));
+    while (holderLive && !readLock()?.ready && Date.now() < deadline && alive(held!.pid)) await new Promise((r) => setTimeout(r, 250));
   } else {
     writeLock({ pid: process.pid, ready: false });
     const admin = createDatabase({ ...config, DB_NAME: 'mysql' });
