@@ -35,8 +35,8 @@ export const qaoaBlocksSolver: SolverDefinition<QaoaBlocksSettings> & { simulate
     if (problem.kind === 'kway') return 'qaoa-blocks answers max-cut and balanced bisection; for k regions use qaoa (recursive bisection) on small networks, or fm / milp';
     return null;
   },
-  /** Qubits simulated at once: one block, never the whole network. */
-  simulatedQubits: (problem, settings) => Math.min(settings.blockSize, freeDepots(problem.pins).length),
+  /** Qubits simulated at once: one block (bisection: plus at most 5 slack qubits), never the whole network. */
+  simulatedQubits: (problem, settings) => Math.min(settings.blockSize, freeDepots(problem.pins).length) + (problem.kind === 'bisection' ? 5 : 0),
   async solve(problem, s, ctx) {
     const started = performance.now();
     const elapsed = () => (performance.now() - started) / 1000;

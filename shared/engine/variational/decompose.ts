@@ -424,7 +424,7 @@ export function decomposeBisection(problem: Problem, opts: DecomposeOptions, rng
     if (list.length >= 2 && !sub.pins.every((p) => p >= 0) && !control.shouldStop()) {
       const encoding = encodeBisection(sub);
       qubits = encoding.numQubits;
-      if (qubits <= opts.blockSize + 6) {
+      if (qubits <= opts.blockSize + 5) {
         const out = runQaoa({
           encoding, layers: opts.layers, optimizer: opts.shots > 0 ? 'spsa' : 'nelder-mead', shots: opts.shots, readoutShots: opts.readoutShots,
           restarts: opts.restarts, maxIterations: opts.maxIterations, rng, shouldStop: () => control.shouldStop(),
