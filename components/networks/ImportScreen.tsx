@@ -128,7 +128,7 @@ export function ImportScreen(props: { networkId?: number }) {
   );
 }
 
-function PreviewView(props: { preview: ImportPreview; mapping: Record<string, string>; onMapping: (m: Record<string, string>) => void }) {
+export function PreviewView(props: { preview: ImportPreview; mapping: Record<string, string>; onMapping: (m: Record<string, string>) => void }) {
   const p = props.preview;
   const errors = p.issues.filter((i) => i.severity === 'error');
   const warnings = p.issues.filter((i) => i.severity === 'warning');
