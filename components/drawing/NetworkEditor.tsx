@@ -10,7 +10,7 @@ import { addDepot, addLane, emptySelection, laneEnds, moveDepot, nextDepotId, re
 import type { Projection } from './layout';
 import { depotAt, laneAt } from './hit';
 import { parseVolume } from './volume';
-import { fitTransform, panBy, toWorld, zoomAt, type ViewTransform } from './viewport';
+import { fitTransform, panBy, pinchTransform, toWorld, zoomAt, type ViewTransform } from './viewport';
 
 /** Finger-sized hit areas in screen pixels (TOUCH / 2 around a depot). */
 const DEPOT_HIT_PX = 22;
@@ -150,8 +150,7 @@ export function NetworkEditor(props: {
             gesture.current = { kind: 'pinch', d0: pair.d, mid0: pair.mid, t0: live.current.transform };
             return;
           }
-          const moved = panBy(g.t0, pair.mid[0] - g.mid0[0], pair.mid[1] - g.mid0[1]);
-          setTransform(zoomAt(moved, pair.d / Math.max(g.d0, 1), pair.mid[0], pair.mid[1]));
+          setTransform(pinchTransform(g.t0, g.mid0, pair.mid, g.d0, pair.d));
           return;
         }
         if (g.kind === 'pending') {

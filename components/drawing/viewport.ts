@@ -37,3 +37,12 @@ export function zoomAt(t: ViewTransform, factor: number, sx: number, sy: number)
 }
 
 export const panBy = (t: ViewTransform, dx: number, dy: number): ViewTransform => ({ k: t.k, x: t.x + dx, y: t.y + dy });
+
+/**
+ * Two-finger gesture: the world point that was under the fingers' starting midpoint follows the
+ * midpoint, and the zoom follows the finger spread (d / d0), relative to the transform at the start.
+ */
+export function pinchTransform(t0: ViewTransform, mid0: readonly [number, number], mid: readonly [number, number], d0: number, d: number): ViewTransform {
+  const moved = panBy(t0, mid[0] - mid0[0], mid[1] - mid0[1]);
+  return zoomAt(moved, d / Math.max(d0, 1), mid[0], mid[1]);
+}

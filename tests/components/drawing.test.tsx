@@ -1,6 +1,6 @@
 import { fireEvent, render, screen, act } from '@testing-library/react';
 import { fitProjection, layoutNetwork, project, unproject, LANE_LENGTH } from '../../components/drawing/layout';
-import { fitTransform, toScreen, toWorld, zoomAt } from '../../components/drawing/viewport';
+import { fitTransform, pinchTransform, toScreen, toWorld, zoomAt } from '../../components/drawing/viewport';
 import { depotAt, laneAt, segmentDistance2 } from '../../components/drawing/hit';
 import { record, redo, startHistory, undo } from '../../components/drawing/history';
 import { addDepot, addLane, laneEnds, moveDepot, nextDepotId, removeSelected, type Draft } from '../../components/drawing/draft';
@@ -72,6 +72,16 @@ describe('viewport and hit testing', () => {
     const after = toWorld(zoomAt(t, 1.8, 150, 90), 150, 90);
     expect(after[0]).toBeCloseTo(before[0], 10);
     expect(after[1]).toBeCloseTo(before[1], 10);
+  });
+
+  test('pinch: the world point under the starting midpoint stays under the fingers, zoom follows the spread', () => {
+    const t0 = { k: 0.8, x: 40, y: 12 };
+    const anchor = toWorld(t0, 100, 200);
+    const t = pinchTransform(t0, [100, 200], [130, 170], 50, 125);
+    expect(t.k).toBeCloseTo(0.8 * 2.5, 12);
+    const [sx, sy] = toScreen(t, anchor[0], anchor[1]);
+    expect(sx).toBeCloseTo(130, 9);
+    expect(sy).toBeCloseTo(170, 9);
   });
 
   test('point–segment distance (textbook): perpendicular inside the segment, to the nearer end outside it', () => {
