@@ -1,88 +1,42 @@
-import fs from 'node:fs';
-import path from 'node:path';
 import { applyTestEnv } from '../../support/env';
 
-export const LOCK_FILE = path.resolve(__dirname, '..', '..', '..', '.data', 'test', 'api-run.lock');
 /**
- * Every api run (not only the lock holder) leaves its pid here while it runs, so a run that
- * starts after the lock holder finished does not drop the database under a run still going.
+ * Each api run starts from an empty `spinyard_test` database (drop, create, migrate).
+ *
+ * Several people (and CI clones) may share the test MariaDB. Two named locks on the database server
+ * keep runs from pulling the database out from under each other:
+ *  - `spinyard_test_setup` serialises set-ups, so no two runs migrate at the same moment;
+ *  - `spinyard_test_run` is held for the whole run by the run that reset the database (on a
+ *    connection kept open until global teardown; a crashed run's locks vanish with its connection).
+ * A run that finds `spinyard_test_run` taken leaves the database alone and only migrates (a no-op).
  */
-export const USERS_DIR = path.resolve(__dirname, '..', '..', '..', '.data', 'test', 'api-run.users');
+const KEEP = '__spinyardTestRunLock';
 
-interface Lock {
-  pid: number;
-  ready: boolean; // the holder has finished dropping, creating and migrating
-}
-
-function readLock(): Lock | null {
-  try {
-    const lock = JSON.parse(fs.readFileSync(LOCK_FILE, 'utf8')) as Lock;
-    return typeof lock.pid === 'number' ? lock : null;
-  } catch {
-    return null;
-  }
-}
-
-function alive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch {
-    return false;
-  }
-}
-
-/** True when another live api run uses the database (stale entries are removed). */
-function otherLiveUsers(): boolean {
-  let found = false;
-  for (const name of fs.existsSync(USERS_DIR) ? fs.readdirSync(USERS_DIR) : []) {
-    const pid = Number(name);
-    if (!pid || pid === process.pid) continue;
-    if (alive(pid)) found = true;
-    else fs.rmSync(path.join(USERS_DIR, name), { force: true });
-  }
-  return found;
-}
-
-const writeLock = (lock: Lock) => {
-  fs.mkdirSync(path.dirname(LOCK_FILE), { recursive: true });
-  fs.writeFileSync(LOCK_FILE, JSON.stringify(lock));
-};
-
-/**
- * Each api run starts from an empty `spinyard_test` database (drop, create, migrate). Several people
- * share this machine: when another api run is still going (a live lock holder), its database is
- * left alone — this run waits until that run's migrations are done and then only migrates (a no-op).
- */
 export default async function globalSetup(): Promise<void> {
   applyTestEnv();
+  const mariadb = await import('mariadb');
   const { loadConfig } = await import('../../../server/config');
   const { createDatabase } = await import('../../../server/db');
   const { migrate } = await import('../../../server/migrate');
   const config = loadConfig();
-  const held = readLock();
-  const holderLive = !!held && held.pid !== process.pid && alive(held.pid);
-  const shared = holderLive || otherLiveUsers();
-  fs.mkdirSync(USERS_DIR, { recursive: true });
-  fs.writeFileSync(path.join(USERS_DIR, String(process.pid)), '');
-  if (shared) {
-    const deadline = Date.now() + 120_000;
-    while (holderLive && !readLock()?.ready && Date.now() < deadline && alive(held!.pid)) await new Promise((r) => setTimeout(r, 250));
-  } else {
-    writeLock({ pid: process.pid, ready: false });
-    const admin = createDatabase({ ...config, DB_NAME: 'mysql' });
-    try {
-      await admin.query(`DROP DATABASE IF EXISTS \`${config.DB_NAME}\``);
-      await admin.query(`CREATE DATABASE \`${config.DB_NAME}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-    } finally {
-      await admin.close();
-    }
-  }
-  const db = createDatabase(config);
+  const conn = await mariadb.createConnection({ host: config.DB_HOST, port: config.DB_PORT, user: config.DB_USER, password: config.DB_PASSWORD, connectTimeout: 5000 });
+  const got = async (name: string, waitSeconds: number) => Number(Object.values((await conn.query('SELECT GET_LOCK(?, ?) AS got', [name, waitSeconds]))[0] as { got: unknown })[0]) === 1;
+  if (!(await got('spinyard_test_setup', 180))) throw new Error('another test run kept the test database busy for 3 minutes; try again');
   try {
-    await migrate(db);
+    const owner = await got('spinyard_test_run', 0);
+    if (owner) {
+      await conn.query(`DROP DATABASE IF EXISTS \`${config.DB_NAME}\``);
+      await conn.query(`CREATE DATABASE \`${config.DB_NAME}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+    }
+    const db = createDatabase(config);
+    try {
+      await migrate(db);
+    } finally {
+      await db.close();
+    }
+    if (owner) (globalThis as Record<string, unknown>)[KEEP] = conn;
   } finally {
-    await db.close();
+    await conn.query('SELECT RELEASE_LOCK(?)', ['spinyard_test_setup']);
+    if ((globalThis as Record<string, unknown>)[KEEP] !== conn) await conn.end();
   }
-  if (!shared) writeLock({ pid: process.pid, ready: true });
 }

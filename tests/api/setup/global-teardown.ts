@@ -1,13 +1,8 @@
-import fs from 'node:fs';
-import path from 'node:path';
-import { LOCK_FILE, USERS_DIR } from './global-setup';
-
-/** Release the api-run lock if this run holds it. */
+/** Release the whole-run lock taken in global setup (closing its connection releases it). */
 export default async function globalTeardown(): Promise<void> {
-  fs.rmSync(path.join(USERS_DIR, String(process.pid)), { force: true });
-  try {
-    if ((JSON.parse(fs.readFileSync(LOCK_FILE, 'utf8')) as { pid: number }).pid === process.pid) fs.unlinkSync(LOCK_FILE);
-  } catch {
-    // no lock (or not ours): nothing to release
-  }
+  const g = globalThis as Record<string, unknown>;
+  const conn = g.__spinyardTestRunLock as { end(): Promise<void> } | undefined;
+  if (!conn) return;
+  delete g.__spinyardTestRunLock;
+  await conn.end().catch(() => {});
 }
