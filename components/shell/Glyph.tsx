@@ -5,7 +5,7 @@ import type { GlyphName } from './destinations';
 export function Glyph({ name, color, size = 22 }: { name: GlyphName; color: string; size?: number }) {
   const stroke = { stroke: color, strokeWidth: 2, fill: 'none', strokeLinecap: 'round' as const, strokeLinejoin: 'round' as const };
   return (
-    <Svg width={size} height={size} viewBox="0 0 24 24" accessibilityElementsHidden importantForAccessibility="no">
+    <Svg width={size} height={size} viewBox="0 0 24 24" aria-hidden>
       {name === 'network' && (
         <>
           <Line x1="6" y1="7" x2="17" y2="6" {...stroke} />

@@ -7,7 +7,7 @@ import { Body, Heading } from './Text';
 export function EmptyState(props: { title: string; message: string; children?: React.ReactNode; testID?: string }) {
   return (
     <View style={styles.wrap} testID={props.testID}>
-      <Svg width={96} height={64} viewBox="0 0 96 64" accessibilityElementsHidden importantForAccessibility="no">
+      <Svg width={96} height={64} viewBox="0 0 96 64" aria-hidden>
         <Line x1="16" y1="44" x2="48" y2="16" stroke={colors.line} strokeWidth={3} />
         <Line x1="48" y1="16" x2="80" y2="44" stroke={colors.line} strokeWidth={3} strokeDasharray="6 5" />
         <Circle cx="16" cy="44" r="9" fill={colors.surface} stroke={colors.ink} strokeWidth={3} />
