@@ -155,7 +155,7 @@ describe('cancel and retry', () => {
 
     const again = await as(org.tokens.dispatcher).post(`/runs/${id}/retry`);
     expect(again.status).toBe(200);
-    expect(again.body.jobs[0].status).toBe('queued');
+    expect(['queued', 'running']).toContain(again.body.jobs[0].status); // a free worker may claim it at once
     await waitFor('the retried job to run', async () => (await as(org.tokens.viewer).get(`/runs/${id}`)).body.jobs[0].status === 'running', 30_000);
     await as(org.tokens.dispatcher).post(`/runs/${id}/cancel`).expect(200);
     const second = await finished(org.tokens.viewer, id, 10_000);
