@@ -141,7 +141,13 @@ describe('cancel and retry', () => {
     expect(created.status).toBe(201);
     const id = created.body.id;
     await waitFor('the job to run', async () => (await as(org.tokens.viewer).get(`/runs/${id}`)).body.jobs[0].status === 'running', 30_000);
-    await new Promise((r) => setTimeout(r, 500));
+    // Polling sees the throttled progress writes on the job row (every 200 ms in tests).
+    const polled = await waitFor('progress on the job row', async () => {
+      const job = (await as(org.tokens.viewer).get(`/runs/${id}`)).body.jobs[0];
+      return job.progress > 0 && job.live ? job : null;
+    }, 10_000);
+    expect(polled.progress).toBeLessThan(1);
+    expect(typeof polled.live.bestValue).toBe('number');
     const asked = Date.now();
     const cancel = await as(org.tokens.dispatcher).post(`/runs/${id}/cancel`);
     expect(cancel.status).toBe(200);
