@@ -14,6 +14,7 @@ import { Screen } from '../ui/Screen';
 import { Body } from '../ui/Text';
 import { formatWhen } from './format';
 import { NetworkWorkspace } from './NetworkWorkspace';
+import { useLeaveGuard } from './useLeaveGuard';
 import { VersionsPanel } from './VersionsPanel';
 import { NewRunButton } from '../runs/NewRunButton';
 
@@ -33,7 +34,8 @@ export function NetworkScreen(props: { id: number }) {
   const layouts = useVersionLayout();
   const [dirty, setDirty] = useState(false);
   const [more, setMore] = useState(false);
-  const [asking, setAsking] = useState<null | 'leave' | 'delete' | 'rename' | { open: number }>(null);
+  const [asking, setAsking] = useState<null | 'delete' | 'rename' | { open: number } | { leaveTo: string }>(null);
+  useLeaveGuard(dirty, (path) => setAsking({ leaveTo: path }));
 
   if (network.isPending) return <Screen title="Network"><Body>Loading the network…</Body></Screen>;
   if (network.isError) {
@@ -48,7 +50,7 @@ export function NetworkScreen(props: { id: number }) {
   const n = network.data;
   const viewingOlder = openVersionId !== null && openVersionId !== latestId;
   const version = viewingOlder ? older.data : n.latest;
-  const leave = () => (dirty ? setAsking('leave') : router.push('/networks'));
+  const leave = () => (dirty ? setAsking({ leaveTo: '/networks' }) : router.push('/networks'));
   const open = (versionId: number) => (dirty ? setAsking({ open: versionId }) : setOpenVersionId(versionId === latestId ? null : versionId));
 
   const actions = (
@@ -105,7 +107,7 @@ export function NetworkScreen(props: { id: number }) {
         />
       )}
       <ConfirmModal
-        visible={asking === 'leave' || (typeof asking === 'object' && asking !== null)}
+        visible={typeof asking === 'object' && asking !== null}
         title="Leave without saving?"
         message="Your changes to this network are not saved. Save them as a new version first, or discard them."
         confirmLabel="Discard changes"
@@ -116,8 +118,8 @@ export function NetworkScreen(props: { id: number }) {
           const a = asking;
           setAsking(null);
           setDirty(false);
-          if (a === 'leave') router.push('/networks');
-          else if (typeof a === 'object' && a) setOpenVersionId(a.open === latestId ? null : a.open);
+          if (a && typeof a === 'object' && 'leaveTo' in a) router.push(a.leaveTo as never);
+          else if (a && typeof a === 'object') setOpenVersionId(a.open === latestId ? null : a.open);
         }}
       />
       <ConfirmModal

@@ -13,7 +13,6 @@ import { Small } from '../ui/Text';
 import { DepotsTable } from './DepotsTable';
 import { LanesTable } from './LanesTable';
 import { SummaryBar } from './SummaryBar';
-import { useLeaveGuard } from './useLeaveGuard';
 
 type Tab = 'drawing' | 'depots' | 'lanes' | 'versions';
 
@@ -45,7 +44,6 @@ export function NetworkWorkspace(props: {
   const [tab, setTab] = useState<Tab>('drawing');
   const { draft, dirty } = history;
   const summary = useMemo(() => summariseNetwork(draft), [draft]);
-  useLeaveGuard(dirty);
   const onDirtyChange = props.onDirtyChange;
   useEffect(() => onDirtyChange?.(dirty), [dirty, onDirtyChange]);
 

@@ -7,6 +7,7 @@ import { Button } from '../ui/Button';
 import { Screen } from '../ui/Screen';
 import { TextField } from '../ui/TextField';
 import { NetworkWorkspace } from './NetworkWorkspace';
+import { useLeaveGuard } from './useLeaveGuard';
 
 const EMPTY = { depots: [], lanes: [] };
 
@@ -18,9 +19,10 @@ export function NewNetworkScreen() {
   const [name, setName] = useState('');
   const [nameError, setNameError] = useState<string | null>(null);
   const [dirty, setDirty] = useState(false);
-  const [asking, setAsking] = useState(false);
+  const [asking, setAsking] = useState<string | null>(null);
+  useLeaveGuard(dirty, setAsking);
   return (
-    <Screen title="Draw a network" subtitle="Tap to place depots, drag from depot to depot to join them with a lane." actions={<Button label="All networks" tone="secondary" onPress={() => (dirty ? setAsking(true) : router.push('/networks'))} />} testID="new-network-screen">
+    <Screen title="Draw a network" subtitle="Tap to place depots, drag from depot to depot to join them with a lane." actions={<Button label="All networks" tone="secondary" onPress={() => (dirty ? setAsking('/networks') : router.push('/networks'))} />} testID="new-network-screen">
       <TextField label="Network name" value={name} onChangeText={(t) => { setName(t); setNameError(null); }} error={nameError ?? undefined} placeholder="e.g. North yard lanes" />
       <NetworkWorkspace
         document={EMPTY}
@@ -41,16 +43,18 @@ export function NewNetworkScreen() {
         }}
       />
       <ConfirmModal
-        visible={asking}
+        visible={asking !== null}
         title="Leave without saving?"
         message="This drawing is not saved yet. Give it a name and save it, or discard it."
         confirmLabel="Discard drawing"
         cancelLabel="Keep drawing"
         danger
-        onCancel={() => setAsking(false)}
+        onCancel={() => setAsking(null)}
         onConfirm={() => {
-          setAsking(false);
-          router.push('/networks');
+          const to = asking ?? '/networks';
+          setAsking(null);
+          setDirty(false);
+          router.push(to as never);
         }}
       />
     </Screen>

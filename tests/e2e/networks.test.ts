@@ -115,6 +115,13 @@ describe.each([
     const drawn = await marks();
     expect(drawn).toHaveLength(4);
 
+    // Leaving through the navigation bar with unsaved changes asks first.
+    await page.getByRole('link', { name: 'Runs' }).click();
+    await page.getByText('Leave without saving?').waitFor();
+    await page.getByRole('button', { name: 'Keep drawing' }).click();
+    await page.getByText('Leave without saving?').waitFor({ state: 'detached' });
+    expect(new URL(page.url()).pathname).toBe('/networks/new');
+
     await page.getByTestId('save-network').click();
     await page.waitForURL((u) => /^\/networks\/\d+$/.test(u.pathname));
     await page.getByTestId('network-screen').waitFor();
