@@ -1,18 +1,22 @@
 import type { Browser } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, screenshot, watchPageErrors } from '../support/browser';
 import { startTestServer } from '../support/server';
+import { holdTestDatabase } from '../api/setup/db-lock';
 import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail/mail-catcher';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let browser: Browser;
+let releaseDatabase: (() => Promise<void>) | undefined;
 let mail: MailCatcher;
 
 beforeAll(async () => {
+  releaseDatabase = await holdTestDatabase();
   mail = await startMailCatcher({ smtpPort: 1026 });
   server = await startTestServer(3162);
   browser = await launchBrowser();
 });
 afterAll(async () => {
+  await releaseDatabase?.();
   await browser?.close();
   await server?.stop();
   await mail?.close();

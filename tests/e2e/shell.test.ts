@@ -1,17 +1,21 @@
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, screenshot, watchPageErrors } from '../support/browser';
 import { startTestServer } from '../support/server';
+import { holdTestDatabase } from '../api/setup/db-lock';
 import { DEMO_ORGANISATION_NAME, DEMO_PASSWORD, DEMO_USERS, ensureDemoOrganisation } from '../../server/services/seed-demo';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let browser: Browser;
+let releaseDatabase: (() => Promise<void>) | undefined;
 
 beforeAll(async () => {
+  releaseDatabase = await holdTestDatabase();
   server = await startTestServer(3161);
   await ensureDemoOrganisation(server.deps);
   browser = await launchBrowser();
 });
 afterAll(async () => {
+  await releaseDatabase?.();
   await browser?.close();
   await server?.stop();
 });
