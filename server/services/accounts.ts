@@ -1,4 +1,4 @@
-import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
+import { Op, QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { Deps } from '../deps';
 import type { Role } from '../../shared/permissions';
 import type { Me, SignUp } from '../../shared/schemas/auth';
@@ -72,10 +72,12 @@ export async function organisationsOf(deps: AccountDeps, userId: number): Promis
 
 /** The user's role in an open organisation, or null. */
 export async function roleIn(deps: AccountDeps, userId: number, organisationId: number): Promise<Role | null> {
-  const m = await deps.models.Membership.findOne({ where: { userId, organisationId } });
-  if (!m) return null;
-  const org = await deps.models.Organisation.findByPk(organisationId);
-  return org && !org.closedAt ? m.role : null;
+  // One statement: this runs on every authenticated request (session and token alike).
+  const rows = await deps.db.query<{ role: Role }>(
+    'SELECT m.role AS role FROM memberships m JOIN organisations o ON o.id = m.organisation_id WHERE m.user_id = ? AND m.organisation_id = ? AND o.closed_at IS NULL LIMIT 1',
+    { replacements: [userId, organisationId], type: QueryTypes.SELECT },
+  );
+  return rows[0]?.role ?? null;
 }
 
 /** GET /api/auth/me for a user and the organisation the session points at (if still a member). */
