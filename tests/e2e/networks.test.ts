@@ -6,18 +6,40 @@
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, screenshot, watchPageErrors } from '../support/browser';
 import { startTestServer } from '../support/server';
+import { applyTestEnv } from '../support/env';
 import { createOrgWithRoles, type OrgWithRoles } from '../api/setup/test-app';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let browser: Browser;
+let releaseDatabase: () => Promise<void> = async () => {};
+
+/**
+ * api runs reset the shared test database unless another run holds the `spinyard_test_run` lock
+ * (tests/api/setup/global-setup.ts); holding it while the browser works keeps our rows in place.
+ * If an api run holds it already, that run has done its reset and we go ahead anyway.
+ */
+async function holdTestDatabase() {
+  const mariadb = await import('mariadb');
+  const { loadConfig } = await import('../../server/config');
+  const c = loadConfig();
+  const conn = await mariadb.createConnection({ host: c.DB_HOST, port: c.DB_PORT, user: c.DB_USER, password: c.DB_PASSWORD, connectTimeout: 5000 });
+  await conn.query("SELECT GET_LOCK('spinyard_test_run', 0)");
+  return async () => {
+    await conn.query("SELECT RELEASE_LOCK('spinyard_test_run')").catch(() => {});
+    await conn.end().catch(() => {});
+  };
+}
 
 beforeAll(async () => {
+  applyTestEnv();
+  releaseDatabase = await holdTestDatabase();
   server = await startTestServer(3170);
   browser = await launchBrowser();
 });
 afterAll(async () => {
   await browser?.close();
   await server?.stop();
+  await releaseDatabase();
 });
 
 async function signIn(page: Page, org: OrgWithRoles) {
