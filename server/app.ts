@@ -13,6 +13,8 @@ import { throttleTouch } from './middleware/session-touch';
 
 export const SESSION_COOKIE = 'spinyard.sid';
 export const SESSION_MAX_AGE_MS = 14 * 24 * 3600 * 1000;
+/** API paths (under /api) whose JSON bodies may reach 25 MB: networks, their versions, runs and previews. */
+export const LARGE_JSON_PATHS = /^\/(networks(\/\d+\/versions)?|runs(\/preview)?)\/?$/;
 
 export interface AppExtras {
   /** Middleware that sets req.auth from the session or a Bearer token (accounts). */
@@ -60,7 +62,11 @@ export function createApp(deps: Deps, extras: AppExtras = {}) {
   throttleTouch(store); // one expiry UPDATE per session per minute, not per request
   const api = express.Router();
   api.use('/billing/webhook', express.raw({ type: '*/*', limit: '1mb' }));
-  api.use(express.json({ limit: '25mb' }));
+  // Whole networks (and runs that pin their depots) may be large; nothing else needs more than 1 MB,
+  // and a small limit elsewhere keeps anonymous routes (sign-in, sign-up) from parsing 25 MB bodies.
+  const largeJson = express.json({ limit: '25mb' });
+  const smallJson = express.json({ limit: '1mb' });
+  api.use((req, res, next) => (LARGE_JSON_PATHS.test(req.path) ? largeJson : smallJson)(req, res, next));
   api.use(
     session({
       name: SESSION_COOKIE,
