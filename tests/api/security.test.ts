@@ -212,6 +212,18 @@ describe('size and type limits', () => {
     expect(await t.deps.models.Network.count({ where: { organisationId: org.organisationId } })).toBe(before);
   });
 
+  test('outside the network and run routes the JSON limit is 1 MB (anonymous routes never parse 25 MB)', async () => {
+    const twoMb = 'z'.repeat(2 * 1024 * 1024);
+    const anon = await sessionAgent(t.app);
+    expect((await anon.post('/auth/sign-in', { email: 'a@b.example', password: twoMb })).status).toBe(413);
+    const a = await signedIn(t.app, org.users.owner.email);
+    expect((await a.post('/tokens', { name: twoMb })).status).toBe(413);
+    // The same 2 MB reaches validation on a network route (400 for the over-long name, not 413).
+    const big = await a.post('/networks', { name: twoMb, depots: [{ id: 'a' }], lanes: [] });
+    expect(big.status).toBe(400);
+    expect(big.body.fields.name).toBeDefined();
+  });
+
   test('an upload above the file limit is refused with 413; a binary file is refused with 400; nothing is written', async () => {
     const { MAX_FILE_BYTES } = await import('../../shared/formats');
     const a = await signedIn(t.app, org.users.owner.email);
