@@ -66,7 +66,9 @@ export function createApp(deps: Deps, extras: AppExtras = {}) {
   // and a small limit elsewhere keeps anonymous routes (sign-in, sign-up) from parsing 25 MB bodies.
   const largeJson = express.json({ limit: '25mb' });
   const smallJson = express.json({ limit: '1mb' });
-  api.use((req, res, next) => (LARGE_JSON_PATHS.test(req.path) ? largeJson : smallJson)(req, res, next));
+  // Large bodies only for callers that carry a credential at all (checked properly just after).
+  const credentialed = (req: Request) => !!req.headers.authorization || (req.headers.cookie ?? '').includes(`${SESSION_COOKIE}=`);
+  api.use((req, res, next) => (LARGE_JSON_PATHS.test(req.path) && credentialed(req) ? largeJson : smallJson)(req, res, next));
   api.use(
     session({
       name: SESSION_COOKIE,
