@@ -222,6 +222,8 @@ describe('size and type limits', () => {
     const big = await a.post('/networks', { name: twoMb, depots: [{ id: 'a' }], lanes: [] });
     expect(big.status).toBe(400);
     expect(big.body.fields.name).toBeDefined();
+    // Without any credential the large limit does not apply even there.
+    expect((await request(t.app).post('/api/networks').send({ name: twoMb })).status).toBe(413);
   });
 
   test('an upload above the file limit is refused with 413; a binary file is refused with 400; nothing is written', async () => {
