@@ -15,7 +15,7 @@ import { Screen } from '../ui/Screen';
 import { Body, Heading, Label, Small } from '../ui/Text';
 import { ProgressBar, Segmented } from './controls';
 import { ExportBar } from './ExportBar';
-import { formatPercent, formatSeconds, formatValue, questionLabel } from './format';
+import { formatPercent, formatSeconds, formatValue, parameterNames, questionLabel } from './format';
 import { OperatorInspector } from './OperatorInspector';
 import { PartitionView } from './PartitionView';
 import { Scorecard } from './Scorecard';
@@ -155,7 +155,7 @@ export function RunView(props: { id: number; role: Role | null }) {
       {selected.result.params?.length ? (
         <View testID="final-params">
           <Label>Final parameters</Label>
-          <Body style={styles.mono}>{selected.result.params.map((p, i) => `θ${i} = ${p.toFixed(4)}`).join('   ')}</Body>
+          <Body style={styles.mono}>{parameterNames(selected.solver, selected.result.params.length).map((name, i) => `${name} = ${selected.result!.params![i].toFixed(4)}`).join('   ')}</Body>
           {selected.result.expectation !== null ? <Small>Expected {valueName.toLowerCase()} at these parameters: {formatValue(selected.result.expectation)}.</Small> : null}
         </View>
       ) : null}

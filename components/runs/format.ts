@@ -62,3 +62,15 @@ export const KIND_HINTS = {
 export function questionLabel(problem: { kind: keyof typeof KIND_LABELS; k?: number }): string {
   return problem.kind === 'kway' ? `${problem.k ?? 3} regions` : KIND_LABELS[problem.kind];
 }
+
+/**
+ * Names of a solver's final parameters. QAOA stores [γ₁ … γ_p, β₁ … β_p]
+ * (shared/engine/ansatz/qaoa.ts); other circuits use rotation angles θ₀, θ₁, ….
+ */
+export function parameterNames(solver: string, count: number): string[] {
+  if (solver === 'qaoa' && count % 2 === 0) {
+    const p = count / 2;
+    return Array.from({ length: count }, (_, i) => (i < p ? `γ${i + 1}` : `β${i - p + 1}`));
+  }
+  return Array.from({ length: count }, (_, i) => `θ${i}`);
+}
