@@ -49,6 +49,11 @@ export function createApp(deps: Deps, extras: AppExtras = {}) {
       crossOriginEmbedderPolicy: false,
     }),
   );
+  // Browser features the app never uses stay off for it and anything it might embed.
+  app.use((_req, res, next) => {
+    res.setHeader('Permissions-Policy', 'camera=(), microphone=(), geolocation=(), payment=(), usb=()');
+    next();
+  });
   if (config.NODE_ENV !== 'test') app.use(
       pinoHttp({
         logger,
