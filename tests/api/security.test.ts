@@ -81,6 +81,7 @@ describe('response headers', () => {
     expect(res.headers['referrer-policy']).toBe('no-referrer');
     expect(res.headers['cross-origin-opener-policy']).toBe('same-origin');
     expect(res.headers['x-powered-by']).toBeUndefined();
+    expect(res.headers['permissions-policy']).toMatch(/camera=\(\).*geolocation=\(\)/);
   });
 
   test('API errors are JSON without stack traces or internals', async () => {
