@@ -1,15 +1,11 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { KeyboardAvoidingView, Modal, Platform, Pressable, StyleSheet, View } from 'react-native';
 import { colors, radius, space } from '../theme';
 import { Button } from '../ui/Button';
 import { Heading, Small } from '../ui/Text';
 import { TextField } from '../ui/TextField';
 
-/**
- * An in-app prompt (no window.prompt: it blocks the page and does not exist on phones):
- * one text field checked by `validate` before `onConfirm` runs.
- */
-export function PromptModal(props: {
+interface PromptProps {
   visible: boolean;
   title: string;
   label: string;
@@ -22,47 +18,54 @@ export function PromptModal(props: {
   onConfirm: (text: string) => void;
   onCancel: () => void;
   testID?: string;
-}) {
+}
+
+/**
+ * An in-app prompt (no window.prompt: it blocks the page and does not exist on phones):
+ * one text field checked by `validate` before `onConfirm` runs.
+ */
+export function PromptModal(props: PromptProps) {
+  return (
+    <Modal visible={props.visible} transparent animationType="fade" onRequestClose={props.onCancel}>
+      {/* Mounted afresh at every opening, so the field starts from `initial`, never from the last text. */}
+      {props.visible ? <PromptBody {...props} /> : null}
+    </Modal>
+  );
+}
+
+function PromptBody(props: PromptProps) {
   const [text, setText] = useState(props.initial ?? '');
   const [error, setError] = useState<string | null>(null);
-  useEffect(() => {
-    if (props.visible) {
-      setText(props.initial ?? '');
-      setError(null);
-    }
-  }, [props.visible, props.initial]);
   const confirm = () => {
     const problem = props.validate?.(text) ?? null;
     if (problem) return setError(problem);
     props.onConfirm(text);
   };
   return (
-    <Modal visible={props.visible} transparent animationType="fade" onRequestClose={props.onCancel}>
-      <KeyboardAvoidingView behavior={Platform.OS === 'ios' ? 'padding' : undefined} style={styles.backdrop}>
-        <Pressable style={StyleSheet.absoluteFill} onPress={props.onCancel} accessibilityLabel="Close" accessibilityRole="button" />
-        <View style={styles.card} accessibilityViewIsModal testID={props.testID}>
-          <Heading>{props.title}</Heading>
-          <TextField
-            label={props.label}
-            value={text}
-            onChangeText={(t) => {
-              setText(t);
-              setError(null);
-            }}
-            error={error ?? undefined}
-            hint={props.hint}
-            autoFocus
-            keyboardType={props.keyboardType}
-            onSubmitEditing={confirm}
-            returnKeyType="done"
-          />
-          <View style={styles.row}>
-            <Button label="Cancel" tone="secondary" onPress={props.onCancel} />
-            <Button label={props.confirmLabel} onPress={confirm} />
-          </View>
+    <KeyboardAvoidingView behavior={Platform.OS === 'ios' ? 'padding' : undefined} style={styles.backdrop}>
+      <Pressable style={StyleSheet.absoluteFill} onPress={props.onCancel} accessibilityLabel="Close" accessibilityRole="button" />
+      <View style={styles.card} accessibilityViewIsModal testID={props.testID}>
+        <Heading>{props.title}</Heading>
+        <TextField
+          label={props.label}
+          value={text}
+          onChangeText={(t) => {
+            setText(t);
+            setError(null);
+          }}
+          error={error ?? undefined}
+          hint={props.hint}
+          autoFocus
+          keyboardType={props.keyboardType}
+          onSubmitEditing={confirm}
+          returnKeyType="done"
+        />
+        <View style={styles.row}>
+          <Button label="Cancel" tone="secondary" onPress={props.onCancel} />
+          <Button label={props.confirmLabel} onPress={confirm} />
         </View>
-      </KeyboardAvoidingView>
-    </Modal>
+      </View>
+    </KeyboardAvoidingView>
   );
 }
 

@@ -23,17 +23,29 @@ async function holdTestDatabase() {
   const { loadConfig } = await import('../../server/config');
   const c = loadConfig();
   const conn = await mariadb.createConnection({ host: c.DB_HOST, port: c.DB_PORT, user: c.DB_USER, password: c.DB_PASSWORD, connectTimeout: 5000 });
+  // Set-ups (drop + migrate) are serialised by this lock; wait for one in progress to finish.
+  await conn.query("SELECT GET_LOCK('spinyard_test_setup', 180)");
   await conn.query("SELECT GET_LOCK('spinyard_test_run', 0)");
-  return async () => {
-    await conn.query("SELECT RELEASE_LOCK('spinyard_test_run')").catch(() => {});
-    await conn.end().catch(() => {});
+  return {
+    setupDone: async () => {
+      await conn.query("SELECT RELEASE_LOCK('spinyard_test_setup')").catch(() => {});
+    },
+    release: async () => {
+      await conn.query("SELECT RELEASE_LOCK('spinyard_test_run')").catch(() => {});
+      await conn.end().catch(() => {});
+    },
   };
 }
 
 beforeAll(async () => {
   applyTestEnv();
-  releaseDatabase = await holdTestDatabase();
-  server = await startTestServer(3170);
+  const held = await holdTestDatabase();
+  releaseDatabase = held.release;
+  try {
+    server = await startTestServer(3170); // migrates, while no other set-up can run
+  } finally {
+    await held.setupDone();
+  }
   browser = await launchBrowser();
 });
 afterAll(async () => {
