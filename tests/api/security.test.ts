@@ -38,6 +38,24 @@ describe('the route table validates every input with zod', () => {
     expect(routes.filter((r) => ['post', 'put', 'patch'].includes(r.method) && !r.body).map(keyOf)).toEqual([]);
   });
 
+  test('route handlers and services read input only through the validated parts (no raw req.query/params/body)', () => {
+    const root = path.resolve(__dirname, '../..');
+    const raw = /\breq\.(query|params|body)\b/;
+    expect(raw.test('const x = req.query.page;')).toBe(true); // the pattern can match
+    // The webhook hands the raw bytes to the provider's signature check (its body schema is z.instanceof(Buffer)).
+    const allowed = [/^server\/routes\/billing\.ts: .*handleWebhook\(deps, req\.body/];
+    const found: string[] = [];
+    for (const dir of ['server/routes', 'server/services']) {
+      for (const f of fs.readdirSync(path.join(root, dir)).filter((x) => x.endsWith('.ts'))) {
+        fs.readFileSync(path.join(root, dir, f), 'utf8').split('\n').forEach((line, i) => {
+          const where = `${dir}/${f}: ${line.trim()}`;
+          if (raw.test(line) && !allowed.some((re) => re.test(where))) found.push(`${dir}/${f}:${i + 1}`);
+        });
+      }
+    }
+    expect(found).toEqual([]);
+  });
+
   test('a params schema refuses a non-numeric id with 400, before any handler runs', async () => {
     const a = await signedIn(t.app, org.users.owner.email);
     const problems: string[] = [];
