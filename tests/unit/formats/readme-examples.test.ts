@@ -17,7 +17,7 @@ describe('README import examples', () => {
     const r = readNetwork('lanes.csv', lanes.body, { depots: { name: 'depots.csv', content: depots.body } });
     expect(r.issues.filter((i) => i.severity === 'error')).toEqual([]);
     expect(r.document.lanes).toHaveLength(2);
-    expect(r.document.depots.find((d) => d.id === 'NORTHGATE')?.name).toBe('Northgate Depot');
+    expect(r.document.depots.find((d) => d.id === 'QCROSS')?.name).toBe('Quillmere Cross');
   });
 
   test.each([
