@@ -4,7 +4,7 @@ import type { NextFunction, Request, Response } from 'express';
 import type { Deps } from '../deps';
 import { HttpError, badRequest } from '../lib/http-error';
 import {
-  MAX_DEPOTS, MAX_FILE_BYTES, MAX_LANES, detectFormat, formatIssue, hasErrors, readNetwork,
+  GRAPHML_NAME_CANDIDATES, MAX_DEPOTS, MAX_FILE_BYTES, MAX_LANES, detectFormat, formatIssue, hasErrors, readNetwork,
   type GraphmlMapping, type NetworkFormat, type ParseResult,
 } from '../../shared/formats';
 import { summariseNetwork } from '../../shared/networks/summary';
@@ -70,13 +70,11 @@ function graphmlKeys(content: string): { id: string; for: string; name: string }
 
 /** Which key each field would use: the explicit mapping, else the formats module's candidates. */
 function resolvedMapping(keys: { id: string; for: string; name: string }[], mapping: GraphmlMapping): Record<string, string | null> {
-  const candidates: Record<keyof GraphmlMapping, { domain: string; names: string[] }> = {
-    depotName: { domain: 'node', names: ['name', 'label'] },
-    depotLat: { domain: 'node', names: ['lat', 'latitude'] },
-    depotLon: { domain: 'node', names: ['lon', 'longitude', 'lng'] },
-    depotWeight: { domain: 'node', names: ['weight', 'demand'] },
-    laneWeight: { domain: 'edge', names: ['weight', 'volume'] },
-  };
+  // The same candidates the GraphML reader falls back to (shared/formats/graphml.ts).
+  const domains: Record<keyof GraphmlMapping, 'node' | 'edge'> = { depotName: 'node', depotLat: 'node', depotLon: 'node', depotWeight: 'node', laneWeight: 'edge' };
+  const candidates = Object.fromEntries(
+    (Object.keys(domains) as (keyof GraphmlMapping)[]).map((f) => [f, { domain: domains[f], names: [...GRAPHML_NAME_CANDIDATES[f]] as string[] }]),
+  ) as Record<keyof GraphmlMapping, { domain: string; names: string[] }>;
   const out: Record<string, string | null> = {};
   for (const [field, c] of Object.entries(candidates) as [keyof GraphmlMapping, { domain: string; names: string[] }][]) {
     const usable = keys.filter((k) => k.for === c.domain || k.for === 'all');
