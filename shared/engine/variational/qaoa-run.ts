@@ -7,7 +7,8 @@ import type { StateOptions } from '../statevector/state';
 import { createDiagonalEstimator } from './estimate';
 import { couplingScale, restartStarts, transferredAngles } from './initial-angles';
 import { optimizeAnsatz, type OptimizerName } from './optimize';
-import { readOut, type DecodedSample } from './samples';
+import { finishEncodingRun } from './outcome';
+import type { DecodedSample } from './samples';
 
 export interface VariationalTracePoint {
   iteration: number;
@@ -103,25 +104,5 @@ export function runQaoa(opts: QaoaRunOptions): VariationalOutcome {
     },
   });
   const energy = expectationOfDiagonal(loop.state, diag);
-  const valueDiag = isingDiagonal(encoding.valueOperator, opts.stateOptions);
-  const expectation = expectationOfDiagonal(loop.state, valueDiag);
-  const readoutShots = opts.readoutShots ?? (opts.shots > 0 ? opts.shots : 1024);
-  const out = readOut(encoding, loop.state, readoutShots, opts.rng, opts.topSamples ?? 10);
-  return {
-    params: Array.from(loop.x),
-    paramNames: ansatz.paramNames,
-    energy,
-    objective: loop.fx,
-    stdError: loop.stdError,
-    expectation,
-    evaluations: loop.evaluations,
-    iterations: loop.iterations,
-    restarts: loop.restarts,
-    shotsUsed: loop.evaluations * opts.shots + readoutShots,
-    trace,
-    samples: out.samples,
-    best: out.best,
-    feasibleShare: encoding.kind === 'maxcut' ? null : out.feasibleShare,
-    stopped: loop.reason === 'stopped',
-  };
+  return finishEncodingRun(encoding, ansatz, loop, trace, energy, opts);
 }

@@ -11,7 +11,7 @@ import { createDiagonalEstimator } from './estimate';
 import { restartStarts } from './initial-angles';
 import { optimizeAnsatz, type OptimizerName } from './optimize';
 import { defaultClock, type VariationalOutcome, type VariationalTracePoint } from './qaoa-run';
-import { readOut } from './samples';
+import { finishEncodingRun } from './outcome';
 
 export type VqeAnsatzName = 'ladder' | 'alternating';
 
@@ -86,27 +86,8 @@ export function runVqeOnEncoding(encoding: Encoding, opts: VqeCommonOptions & { 
     ? createQaoaAnsatz({ numQubits: n, layers: opts.layers, energyDiagonal: diagonalLevels(diag) ?? diag, stateOptions: opts.stateOptions })
     : createLadderAnsatz({ numQubits: n, layers: opts.layers, entangler: opts.entangler, stateOptions: opts.stateOptions });
   const first = opts.initialParams ?? (opts.ansatz === 'alternating'
-    ? Float64Array.from({ length: 2 * opts.layers }, (_, j) => (j < opts.layers ? 0.3 : 0.3))
+    ? Float64Array.from({ length: 2 * opts.layers }, (_, j) => 0.3)
     : ladderStart(n, opts.layers, opts.rng));
   const { loop, trace, energy } = runVqeLoop(ansatz, createDiagonalEstimator(diag, opts.shots, opts.rng), (s) => expectationOfDiagonal(s, diag), first, opts);
-  const expectation = expectationOfDiagonal(loop.state, isingDiagonal(encoding.valueOperator, opts.stateOptions));
-  const readoutShots = opts.readoutShots ?? (opts.shots > 0 ? opts.shots : 1024);
-  const out = readOut(encoding, loop.state, readoutShots, opts.rng, opts.topSamples ?? 10);
-  return {
-    params: Array.from(loop.x),
-    paramNames: ansatz.paramNames,
-    energy,
-    objective: loop.fx,
-    stdError: loop.stdError,
-    expectation,
-    evaluations: loop.evaluations,
-    iterations: loop.iterations,
-    restarts: loop.restarts,
-    shotsUsed: loop.evaluations * opts.shots + readoutShots,
-    trace,
-    samples: out.samples,
-    best: out.best,
-    feasibleShare: encoding.kind === 'maxcut' ? null : out.feasibleShare,
-    stopped: loop.reason === 'stopped',
-  };
+  return finishEncodingRun(encoding, ansatz, loop, trace, energy, opts);
 }
