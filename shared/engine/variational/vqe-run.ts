@@ -86,7 +86,7 @@ export function runVqeOnEncoding(encoding: Encoding, opts: VqeCommonOptions & { 
     ? createQaoaAnsatz({ numQubits: n, layers: opts.layers, energyDiagonal: diagonalLevels(diag) ?? diag, stateOptions: opts.stateOptions })
     : createLadderAnsatz({ numQubits: n, layers: opts.layers, entangler: opts.entangler, stateOptions: opts.stateOptions });
   const first = opts.initialParams ?? (opts.ansatz === 'alternating'
-    ? Float64Array.from({ length: 2 * opts.layers }, (_, j) => 0.3)
+    ? new Float64Array(2 * opts.layers).fill(0.3)
     : ladderStart(n, opts.layers, opts.rng));
   const { loop, trace, energy } = runVqeLoop(ansatz, createDiagonalEstimator(diag, opts.shots, opts.rng), (s) => expectationOfDiagonal(s, diag), first, opts);
   return finishEncodingRun(encoding, ansatz, loop, trace, energy, opts);
