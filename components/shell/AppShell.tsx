@@ -20,7 +20,7 @@ export function AppShell(props: { organisationName: string; role: Role | null; h
   const isActive = (href: string) => pathname === href || pathname.startsWith(`${href}/`);
 
   const header = (
-    <View style={[styles.header, { paddingTop: insets.top + space.sm }]} accessibilityRole="banner" testID="shell-header">
+    <View style={[styles.header, { paddingTop: insets.top + space.sm }]} role="banner" testID="shell-header">
       {!wide ? <Wordmark compact /> : null}
       <View style={styles.orgBox}>
         <Text style={styles.orgLabel}>Organisation</Text>
@@ -35,7 +35,7 @@ export function AppShell(props: { organisationName: string; role: Role | null; h
   if (wide) {
     return (
       <View style={styles.wideRoot}>
-        <View style={styles.rail} accessibilityRole="navigation" accessibilityLabel="Main" testID="shell-rail">
+        <View style={styles.rail} role="navigation" accessibilityLabel="Main" testID="shell-rail">
           <View style={styles.railBrand}>
             <Wordmark />
           </View>
@@ -60,7 +60,7 @@ export function AppShell(props: { organisationName: string; role: Role | null; h
     <View style={styles.narrowRoot}>
       {header}
       <View style={styles.page}>{props.children}</View>
-      <View style={[styles.bar, { paddingBottom: Math.max(insets.bottom, space.xs) }]} accessibilityRole="navigation" accessibilityLabel="Main" testID="shell-tabbar">
+      <View style={[styles.bar, { paddingBottom: Math.max(insets.bottom, space.xs) }]} role="navigation" accessibilityLabel="Main" testID="shell-tabbar">
         {visible.map((d) => (
           <Link key={d.href} href={d.href} asChild>
             <Pressable accessibilityRole="link" accessibilityLabel={d.label} aria-current={isActive(d.href) ? 'page' : undefined} style={styles.barItem} testID={`nav-${d.glyph}`}>

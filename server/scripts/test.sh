@@ -17,6 +17,11 @@ cd "$ROOT"
 export NODE_ENV=test CI="${CI:-}"
 # Two workers suit the 2-core machines; e2e and api suites share services, so they run serially.
 extra=(); [ $# -gt 0 ] && extra=(--passWithNoTests)
+# The whole project type-checks under strict (jest itself only transpiles).
+if [ $# -eq 0 ]; then
+  say "type-checking (tsc --noEmit)…"
+  npx tsc --noEmit -p tsconfig.json || fail "type errors (above); fix them before the tests run"
+fi
 set +e
 npx jest "$@" "${extra[@]}" --maxWorkers=2 --selectProjects unit components
 status=$?

@@ -1,4 +1,6 @@
-import { loadConfig, ConfigError } from '../../../server/config';
+import { loadConfig as load, ConfigError } from '../../../server/config';
+
+const loadConfig = (env: Record<string, string>) => load(env as NodeJS.ProcessEnv);
 
 describe('configuration', () => {
   test('defaults give a working local setup', () => {
