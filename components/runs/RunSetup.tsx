@@ -157,6 +157,9 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
         </View>
       ) : (
         <>
+          {mayStart ? (
+            <Small testID="setup-hint">Suggested settings are filled in: check the question, then scroll to “Start run” at the bottom.</Small>
+          ) : null}
           {question}
           {pins}
           {solverCard}
