@@ -6,6 +6,9 @@ import { Card } from '../ui/Card';
 import { Body, Heading, Small } from '../ui/Text';
 import { euros } from './format';
 
+// Thousands separated the way the rest of the app writes counts (1,000 depots).
+const n = (v: number) => v.toLocaleString('en-GB');
+
 /** What the plan includes for free and how a larger solve is priced (the same table the API uses). */
 export function PlanCard(props: { summary: BillingSummary }) {
   const { plan, runsThisMonth } = props.summary;
@@ -13,11 +16,11 @@ export function PlanCard(props: { summary: BillingSummary }) {
   return (
     <Card style={styles.card} testID="billing-plan">
       <Heading>{`${plan.label} plan`}</Heading>
-      <Body>{`Free: runs up to ${plan.includedDepots} depots, ${plan.includedQubits} qubits and ${plan.includedSeconds} s per solver — ${runsThisMonth} of ${plan.monthlyFreeRuns} included runs used this month.`}</Body>
+      <Body>{`Included at no charge: runs up to ${n(plan.includedDepots)} depots, ${n(plan.includedQubits)} qubits and ${n(plan.includedSeconds)} s per solver — ${n(runsThisMonth)} of ${n(plan.monthlyFreeRuns)} included runs used this month.`}</Body>
       <View style={styles.list}>
         <Small>{`Large solve: ${euros(p.largeRunBase)} per run`}</Small>
-        <Small>{`+ ${euros(p.per100DepotsOver)} per started 100 depots above ${plan.includedDepots}`}</Small>
-        <Small>{`+ ${euros(p.perQubitDoubling)} × (2^extra − 1) per variational solver above ${plan.includedQubits} qubits`}</Small>
+        <Small>{`+ ${euros(p.per100DepotsOver)} per started 100 depots above ${n(plan.includedDepots)}`}</Small>
+        <Small>{`+ ${euros(p.perQubitDoubling)} × (2^extra − 1) per quantum (variational) solver, where extra = qubits above ${n(plan.includedQubits)} (each extra qubit doubles the simulation)`}</Small>
         <Small>{`+ ${euros(p.perExtraMinute)} per solver per started minute above ${plan.includedSeconds} s`}</Small>
         <Small>{`Runs beyond the monthly allowance: ${euros(p.smallRun)} each`}</Small>
       </View>

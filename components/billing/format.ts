@@ -18,4 +18,5 @@ export const PURPOSE_LABELS: Record<string, string> = { credits: 'Credits', run:
 
 export const STATUS_LABELS: Record<string, string> = { open: 'Not paid yet', paid: 'Paid', failed: 'Declined', expired: 'Closed', refunded: 'Refunded' };
 
-export const shortDate = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric' }) : '—');
+/** "1 Dec 2026" — the same date style as the team and audit screens, whatever the browser's locale. */
+export const shortDate = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString('en-GB', { year: 'numeric', month: 'short', day: 'numeric' }) : '—');
