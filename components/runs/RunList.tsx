@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Pressable, StyleSheet, View, useWindowDimensions } from 'react-native';
-import { useRouter } from 'expo-router';
+import { Link, useRouter } from 'expo-router';
 import { can, type Role } from '../../shared/permissions';
 import { useRunsQuery } from '../queries/runs';
 import { colors, fonts, radius, space, TOUCH, WIDE_BREAKPOINT } from '../theme';
@@ -41,7 +41,9 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
   // Wide screens: one table row per run, the same cells as the phone card.
   const tableRow = (r: RunListItem) => (
     <View key={r.id} style={styles.tr} testID={`run-item-${r.id}`}>
-      <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} onPress={() => router.push(`/runs/${r.id}`)} style={styles.trOpen}>
+      {/* A real <a href> on the web: Enter opens it (react-native-web leaves role="link" without href to the browser, which does nothing). */}
+      <Link href={`/runs/${r.id}`} asChild>
+      <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} style={styles.trOpen}>
         <Body style={[styles.cRun, styles.title]}>Run {r.id}</Body>
         <Body style={styles.cQuestion}>{questionLabel(r.problem)}</Body>
         <Body style={styles.cNetwork}>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots</Body>
@@ -49,6 +51,7 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
         <Small style={styles.cStatus}>{STATUS_TEXT[r.status] ?? r.status}</Small>
         <Small style={styles.cWhen}>{when(r.createdAt)}</Small>
       </Pressable>
+      </Link>
       {mayCompare ? (
         <View style={styles.cTick}>
           <CheckRow title="Compare" accessibilityLabel={`Compare run ${r.id}`} checked={ticked.includes(r.id)} onPress={() => toggle(r.id)} testID={`tick-${r.id}`} />
@@ -58,11 +61,13 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
   );
   const row = (r: RunListItem) => (
     <View key={r.id} style={styles.item} testID={`run-item-${r.id}`}>
-      <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} onPress={() => router.push(`/runs/${r.id}`)} style={styles.open}>
+      <Link href={`/runs/${r.id}`} asChild>
+      <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} style={styles.open}>
         <Body style={styles.title}>Run {r.id} · {questionLabel(r.problem)}</Body>
         <Small>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots · {r.solvers.join(', ')}</Small>
         <Small>{STATUS_TEXT[r.status] ?? r.status} · {when(r.createdAt)}</Small>
       </Pressable>
+      </Link>
       {mayCompare ? <CheckRow title="Compare" accessibilityLabel={`Compare run ${r.id}`} checked={ticked.includes(r.id)} onPress={() => toggle(r.id)} testID={`tick-${r.id}`} /> : null}
     </View>
   );
