@@ -1,17 +1,20 @@
-import { useLocalSearchParams } from 'expo-router';
+import { useLocalSearchParams, useRouter } from 'expo-router';
 import { RunSetup } from '../../../components/runs/RunSetup';
 import { useMeQuery } from '../../../components/queries/auth';
 import { Screen } from '../../../components/ui/Screen';
 import { Notice } from '../../../components/ui/Notice';
+import { Button } from '../../../components/ui/Button';
 
 /** /runs/new?networkId=…&versionId=… — set up a run on one network version. */
 export default function NewRunScreen() {
   const { networkId, versionId } = useLocalSearchParams<{ networkId?: string; versionId?: string }>();
   const me = useMeQuery();
+  const router = useRouter();
   if (!networkId || !versionId) {
     return (
       <Screen title="New run">
         <Notice>Open a network and choose “New run” to start from one of its versions.</Notice>
+        <Button label="Choose a network" onPress={() => router.push('/networks')} />
       </Screen>
     );
   }
