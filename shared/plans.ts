@@ -158,5 +158,6 @@ export function priceOfRun(plan: string | null | undefined, size: RunSize): RunP
 /** "€12.50" — amounts are cents. */
 export function formatMoney(price: Price): string {
   const symbol = price.currency.toLowerCase() === 'eur' ? '€' : `${price.currency.toUpperCase()} `;
-  return `${symbol}${(price.amount / 100).toFixed(2)}`;
+  // Thousands grouped (€39,322.95), two decimals — large-solve quotes can run to five figures.
+  return `${symbol}${(price.amount / 100).toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 })}`;
 }

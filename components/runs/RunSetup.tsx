@@ -17,7 +17,7 @@ import { CheckRow, ChoiceCard, Segmented } from './controls';
 import { EncodingSummary } from './EncodingSummary';
 import { KIND_HINTS, KIND_LABELS } from './format';
 import { PinPicker } from './PinPicker';
-import { createBody, DEFAULT_ADVANCED, initialSetup, partsOf, problemOf, type SetupState } from './setup';
+import { createBody, DEFAULT_ADVANCED, initialSetup, partsOf, problemOf, refusedChosen, type SetupState } from './setup';
 import type { ProblemKind } from '../../shared/engine/problem/types';
 
 const KINDS: ProblemKind[] = ['maxcut', 'bisection', 'kway'];
@@ -58,6 +58,8 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
     else now.add(name);
     set({ solvers: offered.map((o) => o.name).filter((n) => now.has(n)) });
   };
+  // The API refuses the whole run when one chosen solver cannot take the problem: say which before the tap, and no price for a run that cannot start.
+  const refused = refusedChosen(preview.data?.solvers ?? [], chosen);
   const launch = () =>
     create.mutate(body, { onSuccess: (r) => router.push(`/runs/${r.id}`) });
   const adv = s.advanced ?? DEFAULT_ADVANCED;
@@ -139,9 +141,11 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
           label={
             !chosen.length
               ? 'Choose at least one solver'
-              : `Start run with ${chosen.length} solver${chosen.length > 1 ? 's' : ''}${preview.data?.price ? ` (paid run: ${preview.data.price.label ?? formatMoney(preview.data.price)}, pay next)` : ''}`
+              : refused.length
+                ? `Untick ${refused.join(' and ')} to start: ${refused.length > 1 ? 'they cannot' : 'it cannot'} take this problem`
+                : `Start run with ${chosen.length} solver${chosen.length > 1 ? 's' : ''}${preview.data?.price ? ` (paid run: ${preview.data.price.label ?? formatMoney(preview.data.price)}, pay next)` : ''}`
           }
-          onPress={launch} busy={create.isPending} disabled={chosen.length === 0} testID="start-run" />
+          onPress={launch} busy={create.isPending} disabled={chosen.length === 0 || refused.length > 0} testID="start-run" />
       ) : (
         <Notice>Your role can read runs but not start them. Ask a dispatcher or analyst.</Notice>
       )}

@@ -90,3 +90,11 @@ export function createBody(versionId: number, s: SetupState, names: readonly str
   }
   return body;
 }
+
+/**
+ * Labels of the chosen solvers the preview says will not run. The API refuses the whole run when
+ * any chosen solver refuses, so the start button names them instead of offering a run that fails.
+ */
+export function refusedChosen(solvers: readonly { solver: string; label?: string; refusal?: string | null }[], chosen: readonly string[]): string[] {
+  return solvers.filter((x) => x.refusal && chosen.includes(x.solver)).map((x) => x.label ?? x.solver);
+}

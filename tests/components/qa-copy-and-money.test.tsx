@@ -1,0 +1,45 @@
+import { render, screen } from '@testing-library/react';
+import { refusedChosen } from '../../components/runs/setup';
+import { shortDate } from '../../components/billing/format';
+import { PlanCard } from '../../components/billing/PlanCard';
+import { formatMoney } from '../../shared/plans';
+import type { BillingSummary } from '../../shared/schemas/billing';
+
+// Fixes from the end-to-end product walk (phone and wide): each check here failed before its fix.
+
+describe('money and dates as customers read them', () => {
+  test('large quotes are grouped by thousands, cents kept (common practice for en-GB amounts)', () => {
+    expect(formatMoney({ amount: 3932295, currency: 'eur' })).toBe('€39,322.95');
+    expect(formatMoney({ amount: 100000000, currency: 'eur' })).toBe('€1,000,000.00');
+    expect(formatMoney({ amount: 575, currency: 'eur' })).toBe('€5.75');
+  });
+
+  test('billing dates use the day-month-year style of the team and audit screens, not the browser locale', () => {
+    expect(shortDate('2026-12-01T20:06:00Z')).toBe('1 Dec 2026');
+    expect(shortDate(null)).toBe('—');
+  });
+
+  test('a paid plan card says what is included, not "Free:"', () => {
+    const summary = {
+      plan: { id: 'team', label: 'Team', includedDepots: 2000, includedQubits: 22, includedSeconds: 600, monthlyFreeRuns: 1000 },
+      runsThisMonth: 1,
+    } as unknown as BillingSummary;
+    render(<PlanCard summary={summary} />);
+    const text = screen.getByTestId('billing-plan').textContent ?? '';
+    expect(text).not.toMatch(/Free:/);
+    expect(text).toContain('Included at no charge: runs up to 2,000 depots, 22 qubits and 600 s per solver — 1 of 1,000 included runs used this month.');
+  });
+});
+
+describe('run setup start button', () => {
+  const preview = [
+    { solver: 'exact', label: 'Exact enumeration', refusal: null },
+    { solver: 'qaoa', label: 'QAOA (simulated quantum circuit)', refusal: 'needs at least 40 qubits; this run allows 24' },
+    { solver: 'vqe', label: 'VQE (simulated quantum circuit)', refusal: 'needs at least 40 qubits' },
+  ];
+  test('names only the chosen solvers that will not run (the API refuses the whole run for them)', () => {
+    expect(refusedChosen(preview, ['exact', 'qaoa'])).toEqual(['QAOA (simulated quantum circuit)']);
+    expect(refusedChosen(preview, ['exact'])).toEqual([]);
+    expect(refusedChosen([{ solver: 'vqe', refusal: 'too big' }], ['vqe'])).toEqual(['vqe']);
+  });
+});
