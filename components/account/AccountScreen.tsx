@@ -27,11 +27,11 @@ export function AccountScreen() {
     <Screen title="Account" subtitle={me.data.user.email} actions={<><ApiDocsLink />{out}</>} testID="account-screen">
       {signOut.error ? <Notice tone="error">{signOut.error.message}</Notice> : null}
       <View style={[styles.columns, wide && styles.columnsWide]}>
-        <View style={styles.column}>
+        <View style={[styles.column, wide && styles.columnWide]}>
           <ProfileForm me={me.data} />
           <PasswordForm />
         </View>
-        <View style={styles.column}>
+        <View style={[styles.column, wide && styles.columnWide]}>
           {current && can(current.role, 'tokens:own') ? <TokensPanel organisationName={current.name} /> : null}
           {current ? <OwnerZone me={me.data} /> : null}
         </View>
@@ -44,5 +44,8 @@ const styles = StyleSheet.create({
   center: { padding: space.xl },
   columns: { gap: space.lg },
   columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
-  column: { flex: 1, gap: space.lg, minWidth: 0 },
+  column: { gap: space.lg, minWidth: 0 },
+  // flex: 1 only side by side: stacked on a phone it gave each column a zero basis, and the
+  // tokens card was drawn over the password card's hint and button.
+  columnWide: { flex: 1 },
 });
