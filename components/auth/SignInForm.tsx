@@ -1,5 +1,6 @@
 import { StyleSheet, View } from 'react-native';
-import { Link, useRouter } from 'expo-router';
+import { Link, useLocalSearchParams, useRouter } from 'expo-router';
+import { afterSignIn } from './next';
 import { SignInSchema, type SignIn } from '../../shared/schemas/auth';
 import { useSignInMutation } from '../queries/auth';
 import { colors, space } from '../theme';
@@ -12,12 +13,13 @@ import { useZodForm } from '../ui/useZodForm';
 
 export function SignInForm() {
   const router = useRouter();
+  const { next } = useLocalSearchParams<{ next?: string }>();
   const form = useZodForm(SignInSchema, { email: '', password: '' });
   const signIn = useSignInMutation();
   const submit = () => {
     const body = form.validate() as SignIn | null;
     if (!body) return;
-    signIn.mutate(body, { onSuccess: () => router.replace('/networks'), onError: form.fromServer });
+    signIn.mutate(body, { onSuccess: () => router.replace(afterSignIn(next)), onError: form.fromServer });
   };
   return (
     <Card style={styles.card} testID="sign-in-form">

@@ -1,5 +1,6 @@
 import { render, screen } from '@testing-library/react';
 import { refusedChosen } from '../../components/runs/setup';
+import { afterSignIn } from '../../components/auth/next';
 import { shortDate } from '../../components/billing/format';
 import { PlanCard } from '../../components/billing/PlanCard';
 import { formatMoney } from '../../shared/plans';
@@ -41,5 +42,19 @@ describe('run setup start button', () => {
     expect(refusedChosen(preview, ['exact', 'qaoa'])).toEqual(['QAOA (simulated quantum circuit)']);
     expect(refusedChosen(preview, ['exact'])).toEqual([]);
     expect(refusedChosen([{ solver: 'vqe', refusal: 'too big' }], ['vqe'])).toEqual(['vqe']);
+  });
+});
+
+describe('sign-in lands on the page that was asked for', () => {
+  // Open-redirect rule, common practice: after sign-in follow only paths inside this app.
+  test('a shared run link survives the sign-in; anything not a local path goes to the networks list', () => {
+    expect(afterSignIn('/runs/12')).toBe('/runs/12');
+    expect(afterSignIn('/networks/3')).toBe('/networks/3');
+    expect(afterSignIn(undefined)).toBe('/networks');
+    expect(afterSignIn('//evil.example/runs/1')).toBe('/networks');
+    expect(afterSignIn('https://evil.example/')).toBe('/networks');
+    expect(afterSignIn('/\\evil.example')).toBe('/networks');
+    expect(afterSignIn('/sign-in')).toBe('/networks');
+    expect(afterSignIn('/invite?token=x')).toBe('/networks');
   });
 });
