@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Pressable, StyleSheet, View, useWindowDimensions } from 'react-native';
-import { useRouter } from 'expo-router';
+import { Link, useRouter } from 'expo-router';
 import { can } from '../../shared/permissions';
 import type { NetworkListItem, NetworkSort } from '../../shared/schemas/networks';
 import { useMeQuery } from '../queries/auth';
@@ -43,7 +43,6 @@ export function NetworkList() {
       setOrder(key === 'name' ? 'asc' : 'desc');
     }
   };
-  const open = (n: NetworkListItem) => router.push(`/networks/${n.id}`);
   const actions = canWrite ? (
     <>
       <Button label="Draw" onPress={() => router.push('/networks/new')} accessibilityHint="Draw a new network" />
@@ -97,18 +96,19 @@ export function NetworkList() {
           {copy.isError ? <Notice tone="error">{copy.error.message}</Notice> : null}
           {list.isPending ? <Body>Loading networks…</Body> : null}
           {list.data && list.data.length === 0 ? <Body>No network name contains “{search.trim()}”.</Body> : null}
-          {list.data && list.data.length > 0 ? (wide ? <NetworkTable items={list.data} onOpen={open} /> : <NetworkCards items={list.data} onOpen={open} />) : null}
+          {list.data && list.data.length > 0 ? (wide ? <NetworkTable items={list.data} /> : <NetworkCards items={list.data} />) : null}
         </>
       )}
     </Screen>
   );
 }
 
-function NetworkCards(props: { items: NetworkListItem[]; onOpen: (n: NetworkListItem) => void }) {
+function NetworkCards(props: { items: NetworkListItem[] }) {
   return (
     <View style={styles.cards} accessibilityRole="list" testID="networks-list">
       {props.items.map((n) => (
-        <Pressable key={n.id} onPress={() => props.onOpen(n)} accessibilityRole="link" accessibilityLabel={`Open ${n.name}`}>
+        <Link key={n.id} href={`/networks/${n.id}`} asChild>
+          <Pressable accessibilityRole="link" accessibilityLabel={`Open ${n.name}`}>
           <Card>
             <Label style={styles.name}>{n.name}</Label>
             <Small>
@@ -116,13 +116,14 @@ function NetworkCards(props: { items: NetworkListItem[]; onOpen: (n: NetworkList
             </Small>
             <Small>Version {n.latestVersion} · updated {formatWhen(n.updatedAt)}</Small>
           </Card>
-        </Pressable>
+          </Pressable>
+        </Link>
       ))}
     </View>
   );
 }
 
-function NetworkTable(props: { items: NetworkListItem[]; onOpen: (n: NetworkListItem) => void }) {
+function NetworkTable(props: { items: NetworkListItem[] }) {
   const head = ['Name', 'Depots', 'Lanes', 'Total volume', 'Version', 'Updated'];
   return (
     <Card style={styles.table} accessibilityRole="list" testID="networks-table">
@@ -132,7 +133,9 @@ function NetworkTable(props: { items: NetworkListItem[]; onOpen: (n: NetworkList
         ))}
       </View>
       {props.items.map((n) => (
-        <Pressable key={n.id} onPress={() => props.onOpen(n)} accessibilityRole="link" accessibilityLabel={`Open ${n.name}`} style={(state) => [styles.tr, (state as { hovered?: boolean }).hovered ? styles.hover : null]}>
+        // A real link, so Enter opens the row from the keyboard (react-native-web ignores Enter on role=link without href).
+        <Link key={n.id} href={`/networks/${n.id}`} asChild>
+        <Pressable accessibilityRole="link" accessibilityLabel={`Open ${n.name}`} style={(state) => [styles.tr, (state as { hovered?: boolean }).hovered ? styles.hover : null]}>
           <Body style={[styles.td, styles.nameCol, styles.nameText]} numberOfLines={1}>{n.name}</Body>
           <Body style={[styles.td, styles.numCol]}>{formatVolume(n.summary.depots)}</Body>
           <Body style={[styles.td, styles.numCol]}>{formatVolume(n.summary.lanes)}</Body>
@@ -140,6 +143,7 @@ function NetworkTable(props: { items: NetworkListItem[]; onOpen: (n: NetworkList
           <Body style={[styles.td, styles.numCol]}>{n.latestVersion}</Body>
           <Body style={[styles.td, styles.numCol, styles.whenCol]}>{formatWhen(n.updatedAt)}</Body>
         </Pressable>
+        </Link>
       ))}
     </Card>
   );

@@ -3,7 +3,7 @@ export function formatVolume(v: number): string {
   if (!Number.isFinite(v)) return String(v);
   const rounded = Math.round(v * 100) / 100;
   const [int, frac] = String(Math.abs(rounded)).split('.');
-  const grouped = int.replace(/\B(?=(\d{3})+(?!\d))/g, ' '); // thin grouping that reads in every locale
+  const grouped = int.replace(/\B(?=(\d{3})+(?!\d))/g, ','); // the same thousands separator as the runs and billing screens
   return `${rounded < 0 ? '−' : ''}${grouped}${frac ? `.${frac}` : ''}`;
 }
 

@@ -191,7 +191,7 @@ describe.each([
     await signIn(page, org);
     await page.getByRole('button', { name: 'Import' }).click();
     await page.getByTestId('import-screen').waitFor();
-    await expect(page.getByTestId('import-limits').textContent()).resolves.toMatch(/Up to 20 MB per file, 20 000 depots and 200 000 lanes/);
+    await expect(page.getByTestId('import-limits').textContent()).resolves.toMatch(/Up to 20 MB per file, 20,000 depots and 200,000 lanes/);
     const before = await counts(org.organisationId);
 
     const choose = async (content: string) => {

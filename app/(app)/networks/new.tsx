@@ -1,5 +1,10 @@
 import { NewNetworkScreen } from '../../../components/networks/NewNetworkScreen';
+import { RequirePermission } from '../../../components/shell/RequirePermission';
 
 export default function NewNetworkRoute() {
-  return <NewNetworkScreen />;
+  return (
+    <RequirePermission permission="networks:write" title="Draw a network" what="draw networks" backTo="/networks">
+      <NewNetworkScreen />
+    </RequirePermission>
+  );
 }
