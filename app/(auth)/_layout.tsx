@@ -1,5 +1,5 @@
 import { Redirect, Slot, useLocalSearchParams } from 'expo-router';
-import { afterSignIn } from '../../components/auth/next';
+import { pageAfterSignIn } from '../../components/auth/next';
 import { useMeQuery } from '../../components/queries/auth';
 import { AuthFrame } from '../../components/auth/AuthFrame';
 
@@ -8,7 +8,7 @@ export default function AuthLayout() {
   const me = useMeQuery();
   const { next } = useLocalSearchParams<{ next?: string }>();
   // Signed in (or just signed in here): on to the page first asked for, else the networks list.
-  if (me.data) return <Redirect href={afterSignIn(next)} />;
+  if (me.data) return <Redirect href={pageAfterSignIn(next)} />;
   return (
     <AuthFrame>
       <Slot />

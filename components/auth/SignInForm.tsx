@@ -1,6 +1,6 @@
 import { StyleSheet, View } from 'react-native';
 import { Link, useLocalSearchParams, useRouter } from 'expo-router';
-import { afterSignIn } from './next';
+import { pageAfterSignIn } from './next';
 import { SignInSchema, type SignIn } from '../../shared/schemas/auth';
 import { useSignInMutation } from '../queries/auth';
 import { colors, space } from '../theme';
@@ -19,7 +19,7 @@ export function SignInForm() {
   const submit = () => {
     const body = form.validate() as SignIn | null;
     if (!body) return;
-    signIn.mutate(body, { onSuccess: () => router.replace(afterSignIn(next)), onError: form.fromServer });
+    signIn.mutate(body, { onSuccess: () => router.replace(pageAfterSignIn(next)), onError: form.fromServer });
   };
   return (
     <Card style={styles.card} testID="sign-in-form">

@@ -8,3 +8,20 @@ export function afterSignIn(next: unknown): string {
   if (/^\/(sign-in|sign-up|reset|invite)(\/|\?|$)/.test(next)) return '/networks';
   return next;
 }
+
+/**
+ * The page a signed-out visitor asked for, kept for the sign-in screen. expo-router drops the
+ * query of a <Redirect> issued from a layout before its navigator mounts, so `?next=` cannot carry
+ * it there; this one value (a path, never a secret) lives for the page's lifetime only.
+ */
+let requested: string | null = null;
+
+export function rememberRequestedPage(pathname: string | null | undefined): void {
+  if (pathname && pathname !== '/') requested = afterSignIn(pathname);
+}
+
+/** `?next=` when present, else the remembered page (both the form and the layout may ask). */
+export function pageAfterSignIn(next: unknown): string {
+  if (typeof next === 'string' && next) return afterSignIn(next);
+  return requested ?? '/networks';
+}
