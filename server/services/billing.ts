@@ -187,7 +187,8 @@ async function onPaymentFailed(deps: Deps, intent: Stripe.PaymentIntent): Promis
   const paymentId = Number(intent.metadata?.paymentId);
   const payment = Number.isInteger(paymentId) && paymentId > 0 ? await deps.models.Payment.findOne({ where: { id: paymentId, organisationId: Number(intent.metadata.organisationId) } }) : null;
   if (!payment) return 'unknown payment';
-  if (payment.status !== 'open') return 'already settled';
+  // Events arrive in any order: the session's 'expired' event may come first for a declined card.
+  if (payment.status !== 'open' && payment.status !== 'expired') return 'already settled';
   await payment.update({ status: 'failed', failureMessage: message.slice(0, 300), providerPaymentIntent: intent.id });
   if (payment.runId) await deps.models.RunCharge.update({ failureMessage: `Card payment failed: ${message}`.slice(0, 300) }, { where: { runId: payment.runId, status: 'awaiting' } });
   await recordAudit(deps, { organisationId: payment.organisationId, actorUserId: payment.createdBy, action: 'billing.payment_failed', targetType: 'payment', targetId: payment.id, detail: { message } });
