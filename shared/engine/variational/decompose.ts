@@ -202,13 +202,21 @@ export function blockCouplings(network: CompactNetwork, blockOf: Int32Array, blo
   return edges;
 }
 
+/** Blocks of at most `blockSize` depots: each depot's block, and each block's depots in order. */
+function blockMembers(network: CompactNetwork, blockSize: number, rng: Rng): { blockOf: Int32Array; members: number[][] } {
+  const blockOf = splitIntoBlocks(network, blockSize, rng);
+  let blockCount = 0;
+  for (let i = 0; i < network.n; i++) blockCount = Math.max(blockCount, blockOf[i] + 1);
+  const members: number[][] = Array.from({ length: blockCount }, () => []);
+  for (let i = 0; i < network.n; i++) members[blockOf[i]].push(i);
+  return { blockOf, members };
+}
+
 export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: Rng, control: DecomposeControl): DecomposeOutcome {
   const { network } = problem;
   const n = network.n;
-  const blockOf = splitIntoBlocks(network, opts.blockSize, rng);
-  const blockCount = n === 0 ? 0 : Math.max(...blockOf) + 1;
-  const members: number[][] = Array.from({ length: blockCount }, () => []);
-  for (let i = 0; i < n; i++) members[blockOf[i]].push(i);
+  const { blockOf, members } = blockMembers(network, opts.blockSize, rng);
+  const blockCount = members.length;
 
   const assignment = Int32Array.from(problem.pins, (p) => (p >= 0 ? p : 0));
   const blocks: BlockReport[] = [];
@@ -408,10 +416,8 @@ function repairBalance(problem: Problem, st: ReturnType<typeof createFlipState>,
 export function decomposeBisection(problem: Problem, opts: DecomposeOptions, rng: Rng, control: DecomposeControl): DecomposeOutcome {
   const { network } = problem;
   const n = network.n;
-  const blockOf = splitIntoBlocks(network, opts.blockSize, rng);
-  const blockCount = n === 0 ? 0 : Math.max(...blockOf) + 1;
-  const members: number[][] = Array.from({ length: blockCount }, () => []);
-  for (let i = 0; i < n; i++) members[blockOf[i]].push(i);
+  const { blockOf, members } = blockMembers(network, opts.blockSize, rng);
+  const blockCount = members.length;
   const assignment = Int32Array.from(problem.pins, (p) => (p >= 0 ? p : 0));
   const blocks: BlockReport[] = [];
   const trace: VariationalTracePoint[] = [];
