@@ -6,7 +6,7 @@ import { useTokenCreateMutation, useTokenRevokeMutation, useTokensQuery } from '
 import { colors, radius, space, type as typo } from '../theme';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
-import { Notice } from '../ui/Notice';
+import { Notice, QueryError } from '../ui/Notice';
 import { TextField } from '../ui/TextField';
 import { Body, Heading, Small } from '../ui/Text';
 import { useZodForm } from '../ui/useZodForm';
@@ -60,10 +60,7 @@ export function TokensPanel(props: { organisationName: string }) {
       <Button label="Create token" tone="secondary" onPress={submit} busy={create.isPending} testID="token-create" />
       {q.isPending ? <ActivityIndicator color={colors.ink} accessibilityLabel="Loading tokens" /> : null}
       {q.isError ? (
-        <Notice tone="error">
-          <Body>{q.error.message}</Body>
-          <Button label="Try again" tone="secondary" onPress={() => q.refetch()} />
-        </Notice>
+        <QueryError error={q.error} onRetry={() => q.refetch()} />
       ) : null}
       {q.data && q.data.length === 0 ? <Small>You have no tokens for this organisation.</Small> : null}
       {q.data?.map((t) => <TokenRow key={t.id} token={t} />)}

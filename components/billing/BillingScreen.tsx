@@ -7,7 +7,7 @@ import { colors, space, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { EmptyState } from '../ui/EmptyState';
-import { Notice } from '../ui/Notice';
+import { Notice, QueryError } from '../ui/Notice';
 import { Screen } from '../ui/Screen';
 import { Body, Heading, Small } from '../ui/Text';
 import { CreditsCard } from './CreditsCard';
@@ -40,10 +40,7 @@ export function BillingScreen(props: { checkout?: string }) {
     return (
       <Screen title="Billing">
         {summary.isError ? (
-          <Notice tone="error">
-            <Body>{summary.error.message}</Body>
-            <Button label="Try again" tone="secondary" onPress={() => summary.refetch()} />
-          </Notice>
+          <QueryError error={summary.error} onRetry={() => summary.refetch()} />
         ) : (
           <View style={styles.center}>
             <ActivityIndicator color={colors.ink} accessibilityLabel="Loading billing" />

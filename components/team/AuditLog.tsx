@@ -8,7 +8,7 @@ import { colors, fonts, space, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { EmptyState } from '../ui/EmptyState';
-import { Notice } from '../ui/Notice';
+import { Notice, QueryError } from '../ui/Notice';
 import { Screen } from '../ui/Screen';
 import { Body, Label, Small } from '../ui/Text';
 import { describeAudit, formatDateTime } from './format';
@@ -44,10 +44,7 @@ export function AuditLog() {
           <ActivityIndicator color={colors.ink} accessibilityLabel="Loading the audit log" />
         </View>
       ) : q.isError ? (
-        <Notice tone="error">
-          <Body>{q.error.message}</Body>
-          <Button label="Try again" tone="secondary" onPress={() => q.refetch()} />
-        </Notice>
+        <QueryError error={q.error} onRetry={() => q.refetch()} />
       ) : q.data.items.length === 0 ? (
         <EmptyState title="Nothing recorded yet" message="Events appear here as people sign in, join and change roles." />
       ) : (

@@ -5,7 +5,7 @@ import { useInvitationCancelMutation, useInvitationResendMutation, useInvitation
 import { colors, space } from '../theme';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
-import { Notice } from '../ui/Notice';
+import { Notice, QueryError } from '../ui/Notice';
 import { Body, Heading, Small } from '../ui/Text';
 import { ConfirmBar } from './ConfirmBar';
 import { formatDate } from './format';
@@ -19,10 +19,7 @@ export function PendingInvitations() {
       <Heading>Pending invitations</Heading>
       {q.isPending ? <ActivityIndicator color={colors.ink} accessibilityLabel="Loading invitations" /> : null}
       {q.isError ? (
-        <Notice tone="error">
-          <Body>{q.error.message}</Body>
-          <Button label="Try again" tone="secondary" onPress={() => q.refetch()} />
-        </Notice>
+        <QueryError error={q.error} onRetry={() => q.refetch()} />
       ) : null}
       {q.data && q.data.length === 0 ? <Small>No invitations are waiting for an answer.</Small> : null}
       {q.data?.map((inv) => <InvitationRow key={inv.id} inv={inv} />)}

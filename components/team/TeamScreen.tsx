@@ -6,7 +6,7 @@ import { useMembersQuery } from '../queries/members';
 import { colors, space, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { EmptyState } from '../ui/EmptyState';
-import { Notice } from '../ui/Notice';
+import { Notice, QueryError } from '../ui/Notice';
 import { Screen } from '../ui/Screen';
 import { Body } from '../ui/Text';
 import { InviteForm } from './InviteForm';
@@ -42,10 +42,7 @@ export function TeamScreen() {
           <ActivityIndicator color={colors.ink} accessibilityLabel="Loading members" />
         </View>
       ) : members.isError ? (
-        <Notice tone="error">
-          <Body>{members.error.message}</Body>
-          <Button label="Try again" tone="secondary" onPress={() => members.refetch()} />
-        </Notice>
+        <QueryError error={members.error} onRetry={() => members.refetch()} />
       ) : (
         <>
           {members.data.members.length === 0 ? (

@@ -1,6 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 import { colors, radius, space } from '../theme';
 import { Body } from './Text';
+import { Button } from './Button';
 
 export type NoticeTone = 'info' | 'caution' | 'error' | 'success';
 
@@ -33,3 +34,13 @@ export function DecisionSupportNote() {
 const styles = StyleSheet.create({
   box: { borderWidth: 1, borderRadius: radius.md, padding: space.md },
 });
+
+/** A failed query: its message and a retry button (every list and page shows the same). */
+export function QueryError(props: { error: Error; onRetry: () => void }) {
+  return (
+    <Notice tone="error">
+      <Body>{props.error.message}</Body>
+      <Button label="Try again" tone="secondary" onPress={props.onRetry} />
+    </Notice>
+  );
+}
