@@ -1,15 +1,14 @@
-import fs from 'node:fs';
-import path from 'node:path';
 import request from 'supertest';
 import { startNetworksApi, freshOrg, rowCounts } from './networks-support';
 import { MAX_FILE_BYTES } from '../../shared/formats';
+import { gsetRow, instanceText } from '../data/load';
 
 /**
  * Parser integration through the API: every format, every kind of malformed file, each giving the
  * message that names the place and the fix — and no write (row counts unchanged).
  * Formats: GeoJSON per RFC 7946 (Butler et al., 2016); GraphML per the GraphML primer
  * (graphml.graphdrawing.org); CSV per RFC 4180; the edge list is the layout of the G-set files
- * (Helmberg & Rendl, SIAM J. Optim. 10(3), 2000; /work/shared/data/gset/SOURCE.md).
+ * (Helmberg & Rendl, SIAM J. Optim. 10(3), 2000; tests/data/gset/SOURCE.md).
  */
 let api: Awaited<ReturnType<typeof startNetworksApi>>;
 const org = freshOrg();
@@ -161,13 +160,14 @@ describe('saving imports', () => {
   });
 
   test('G-set file G1 (800 depots, 19176 lanes per its header): preview counts match; signed-weight formats import', async () => {
-    const text = fs.readFileSync(path.join('/work/shared/data/gset', 'G1.txt'), 'utf8');
+    const text = instanceText('gset', 'G1');
     const res = await request(api.app).post('/api/networks/import/preview').set(as()).attach('file', Buffer.from(text), 'G1.txt');
     expect(res.body.format).toBe('edgelist');
     expect(res.body.counts).toEqual({ depots: 800, lanes: 19176 });
+    expect(gsetRow('G1')).toMatchObject({ n: 800, m: 19176 }); // published size (Helmberg & Rendl 2000)
     expect(res.body.errorCount).toBe(0);
     // G11 has ±1 weights (SOURCE.md): benchmark formats keep signed weights.
-    const g11 = fs.readFileSync(path.join('/work/shared/data/gset', 'G11.txt'), 'utf8');
+    const g11 = instanceText('gset', 'G11');
     const saved = await request(api.app).post('/api/networks/import').set(as()).attach('file', Buffer.from(g11), 'G11.txt');
     expect(saved.status).toBe(201);
     expect(saved.body.counts).toEqual({ depots: 800, lanes: 1600 });

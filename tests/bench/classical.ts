@@ -7,7 +7,7 @@
  *   npx tsx tests/bench/classical.ts [--limit SECONDS] [--instances G1,G11] [--skip-exact] [--skip-partition] [--skip-milp] [--no-write]
  *
  * Best-known values: Benlic & Hao, "Breakout local search for the max-cut problem",
- * Eng. Appl. AI 26(3) (2013), via /work/shared/data/gset/best-known.csv.
+ * Eng. Appl. AI 26(3) (2013), via tests/data/gset/best-known.csv.
  */
 import * as fs from 'node:fs';
 import * as os from 'node:os';
@@ -21,8 +21,8 @@ import { exactSolver, fmSolver, milpSolver, tabuSolver } from '../../shared/engi
 import { tabuMaxcut, tabuMaxcutDefaults } from '../../shared/engine/classical/tabu-maxcut';
 import type { RunControl } from '../../shared/engine/classical/run-control';
 import { randomSides } from '../../shared/engine/classical/balance';
+import { gsetTable as gsetRows, readInstance, type Edge } from '../data/load';
 
-const DATA = '/work/shared/data/gset';
 const DOC = path.join(__dirname, '../../docs/benchmarks.md');
 
 const args = process.argv.slice(2);
@@ -37,25 +37,10 @@ const skipMilp = args.includes('--skip-milp');
 const skipPartition = args.includes('--skip-partition');
 const write = !args.includes('--no-write');
 
-type Edge = [number, number, number];
-function readInstance(file: string): { n: number; edges: Edge[] } {
-  const lines = fs.readFileSync(file, 'utf8').trim().split(/\r?\n/);
-  const [n] = lines[0].trim().split(/\s+/).map(Number);
-  const edges = lines.slice(1).filter((l) => l.trim()).map((l) => {
-    const [a, b, w] = l.trim().split(/\s+/).map(Number);
-    return [a - 1, b - 1, w] as Edge;
-  });
-  return { n, edges };
-}
 const problemOf = (n: number, edges: Edge[], spec: Partial<ProblemSpec> = {}) => bindProblem(compactFromEdges(n, edges), { kind: 'maxcut', ...spec } as ProblemSpec);
 
-function bestKnownRows(): Array<{ instance: string; best: number; status: string }> {
-  const [, ...rows] = fs.readFileSync(path.join(DATA, 'best-known.csv'), 'utf8').trim().split(/\r?\n/);
-  return rows.map((r) => {
-    const c = r.split(',');
-    return { instance: c[0], best: Number(c[3]), status: c[6] };
-  });
-}
+const bestKnownRows = (): Array<{ instance: string; best: number; status: string }> =>
+  gsetRows().map((r) => ({ instance: r.instance, best: r.best_known, status: r.status }));
 
 /**
  * A RunControl on this process's CPU time (user + system): "20 s on one core" even when the
@@ -90,7 +75,7 @@ async function gsetTable(lines: string[]): Promise<void> {
   lines.push('|---|---:|---:|---:|---:|---:|---:|---:|---:|');
   const gaps: number[] = [];
   for (const row of rows) {
-    const { n, edges } = readInstance(path.join(DATA, `${row.instance}.txt`));
+    const { n, edges } = readInstance('gset', row.instance);
     const problem = problemOf(n, edges);
     const rng = createRng(1);
     const control = cpuControl(limit);
@@ -179,13 +164,13 @@ async function partitionTable(lines: string[]): Promise<void> {
   lines.push('| network | n | kind | reference | fm | tabu |', '|---|---:|---|---:|---:|---:|');
   const cases: Array<{ name: string; n: number; edges: Edge[]; kind: 'bisection' | 'kway'; k?: number; reference: string }> = [];
   for (const g of ['G48', 'G50']) {
-    const { n, edges } = readInstance(path.join(DATA, `${g}.txt`));
+    const { n, edges } = readInstance('gset', g);
     cases.push({ name: g, n, edges, kind: 'bisection', reference: g === 'G48' ? '100 (torus 60×50: 2 × 50)' : '50 (torus 120×25: 2 × 25)' });
   }
   cases.push({ name: '100×50 torus', n: 5000, edges: torusEdges(100, 50), kind: 'bisection', reference: '100 (a×b torus, a even, a ≥ b: 2b; common practice)' });
-  const g22 = readInstance(path.join(DATA, 'G22.txt'));
+  const g22 = readInstance('gset', 'G22');
   cases.push({ name: 'G22', n: g22.n, edges: g22.edges, kind: 'bisection', reference: '—' });
-  const g48 = readInstance(path.join(DATA, 'G48.txt'));
+  const g48 = readInstance('gset', 'G48');
   cases.push({ name: 'G48', n: g48.n, edges: g48.edges, kind: 'kway', k: 4, reference: '≤ 200 (four 15×50 strips)' });
   for (const c of cases) {
     const problem = problemOf(c.n, c.edges, { kind: c.kind, k: c.k });

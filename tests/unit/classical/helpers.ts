@@ -1,18 +1,16 @@
 /**
- * Test helpers for the classical solvers: small graph families, an independent brute force,
- * and readers for the open data sets in /work/shared/data (file reading lives here, in the
- * tests — the engine never reads files).
+ * Test helpers for the classical solvers: small graph families and an independent brute force.
+ * The open data sets (G-set, Biq Mac) are read through tests/data/load.ts.
  */
-import * as fs from 'node:fs';
 import { compactFromEdges } from '../../../shared/engine/network/build';
 import { bindProblem } from '../../../shared/engine/problem/bind';
 import type { Problem, ProblemSpec } from '../../../shared/engine/problem/types';
 import type { CompactNetwork } from '../../../shared/engine/network/types';
 import { createRng } from '../../../shared/engine/random';
 
-export type Edge = [number, number, number];
+import type { Edge } from '../../data/load';
 
-export const DATA = '/work/shared/data';
+export type { Edge };
 
 export function problemOf(n: number, edges: Edge[], spec: Partial<ProblemSpec> = {}, depotWeights?: number[]): Problem {
   let net: CompactNetwork = compactFromEdges(n, edges);
@@ -92,41 +90,8 @@ export function bruteForce(n: number, edges: Edge[], opts: { kind: 'maxcut' | 'b
   return best;
 }
 
-/** Plain "n m" then "i j w" (1-based) format of the G-set and Biq Mac files. */
-export function readInstance(file: string): { n: number; edges: Edge[] } {
-  const lines = fs.readFileSync(file, 'utf8').trim().split(/\r?\n/);
-  const [n, m] = lines[0].trim().split(/\s+/).map(Number);
-  const edges: Edge[] = [];
-  for (const line of lines.slice(1)) {
-    const t = line.trim();
-    if (!t) continue;
-    const [i, j, w] = t.split(/\s+/).map(Number);
-    edges.push([i - 1, j - 1, w]);
-  }
-  if (edges.length !== m) throw new Error(`${file}: header says ${m} lanes, found ${edges.length}`);
-  return { n, edges };
-}
-
 /** Pins by depot index → depot id map for ProblemSpec (compactFromEdges ids are 1-based strings). */
 export const pinsOf = (pins: Record<number, number>): Record<string, number> =>
   Object.fromEntries(Object.entries(pins).map(([i, p]) => [String(Number(i) + 1), p]));
 
 export const ctx = (timeLimitSeconds: number, seed = 7) => ({ seed, timeLimitSeconds });
-
-/** Rows of a small CSV with quoted fields (the data folders' OPTIMA.csv / best-known.csv). */
-export function readCsv(file: string): Array<Record<string, string>> {
-  const [head, ...rows] = fs.readFileSync(file, 'utf8').trim().split(/\r?\n/);
-  const split = (line: string): string[] => {
-    const out: string[] = [];
-    let cur = '', quoted = false;
-    for (const ch of line) {
-      if (ch === '"') quoted = !quoted;
-      else if (ch === ',' && !quoted) { out.push(cur); cur = ''; }
-      else cur += ch;
-    }
-    out.push(cur);
-    return out;
-  };
-  const keys = split(head);
-  return rows.map((r) => Object.fromEntries(split(r).map((v, i) => [keys[i], v])));
-}

@@ -1,7 +1,7 @@
-import * as path from 'node:path';
 import { exactSolver, fmSolver } from '../../../shared/engine/solvers/classical';
 import { isBalanced, maxPartWeight, partWeights, respectsPins } from '../../../shared/engine/problem/evaluate';
-import { DATA, ctx, cycle, grid, path as pathGraph, pinsOf, problemOf, randomGraph, readInstance } from './helpers';
+import { ctx, cycle, grid, path as pathGraph, pinsOf, problemOf, randomGraph } from './helpers';
+import { readInstance } from '../../data/load';
 
 describe('fm: textbook minimum bisections (common practice)', () => {
   test('cycle C_40: 2; path P_41: 1; 8×8 grid: L = 8', async () => {
@@ -11,7 +11,7 @@ describe('fm: textbook minimum bisections (common practice)', () => {
     expect((await fmSolver.solve(problemOf(64, grid(8), { kind: 'bisection' }), settings, ctx(0.5))).value).toBe(8);
   });
   test('G50 (120×25 torus, all weights 1) bisects at 2 × the shorter side = 50 (references.md, torus argument)', async () => {
-    const { n, edges } = readInstance(path.join(DATA, 'gset/G50.txt'));
+    const { n, edges } = readInstance('gset', 'G50');
     const r = await fmSolver.solve(problemOf(n, edges, { kind: 'bisection' }), fmSolver.parseSettings({}), ctx(4));
     expect(r.value).toBe(50);
   }, 20000);

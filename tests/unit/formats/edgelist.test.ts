@@ -1,30 +1,28 @@
 import fc from 'fast-check';
-import { readFileSync, readdirSync } from 'fs';
-import path from 'path';
-import Papa from 'papaparse';
 import { parseEdgeList, writeEdgeList } from '../../../shared/formats/edgelist';
 import { anyTextArb, fragmentsArb, networkArb } from './arbitraries';
+import { biqmacTable, gsetTable, instanceNames, instanceText } from '../../data/load';
 
-const DATA = '/work/shared/data';
-const table = (file: string) => Papa.parse<Record<string, string>>(readFileSync(file, 'utf8'), { header: true, skipEmptyLines: true }).data;
 
 describe('edge list: the benchmark libraries read exactly as published', () => {
   // Sizes and weight sets from the data folders' tables: G-set (Helmberg & Rendl 2000, values
-  // listed by Benlic & Hao 2013, data/gset/best-known.csv) and Biq Mac (Wiegele 2007,
-  // data/biqmac/OPTIMA.csv). SOURCE.md: no duplicates or self-loops, 1-based ids, trailing space.
-  const gset = table(path.join(DATA, 'gset/best-known.csv'));
-  const biqmac = table(path.join(DATA, 'biqmac/OPTIMA.csv'));
+  // listed by Benlic & Hao 2013, tests/data/gset/best-known.csv) and Biq Mac (Wiegele 2007,
+  // tests/data/biqmac/OPTIMA.csv). SOURCE.md: no duplicates or self-loops, 1-based ids, trailing space.
+  const kept = new Set(instanceNames('gset'));
   const cases = [
-    ...gset.filter((r) => readdirSync(path.join(DATA, 'gset')).includes(`${r.instance}.txt`)).map((r) => ({ file: `gset/${r.instance}.txt`, n: +r.n, m: +r.m, weights: r.weights })),
-    ...biqmac.map((r) => ({ file: `biqmac/${r.instance}`, n: +r.n, m: +r.m, weights: r.weights })),
+    ...gsetTable().filter((r) => kept.has(r.instance)).map((r) => ({ set: 'gset' as const, name: r.instance, n: r.n, m: r.m, weights: r.weights })),
+    ...biqmacTable().map((r) => ({ set: 'biqmac' as const, name: r.instance, n: r.n, m: r.m, weights: r.weights })),
   ];
 
-  test('the tables list every file we read', () => {
-    expect(cases.length).toBeGreaterThanOrEqual(70);
+  test('the tables list every instance file we keep (30 G-set, 47 Biq Mac)', () => {
+    const listed = new Set(cases.map((c) => c.name));
+    expect([...instanceNames('gset'), ...instanceNames('biqmac')].filter((f) => !listed.has(f))).toEqual([]);
+    expect(instanceNames('gset')).toHaveLength(30);
+    expect(instanceNames('biqmac')).toHaveLength(47);
   });
 
-  test.each(cases)('$file has n, m and weights as its table says', ({ file, n, m, weights }) => {
-    const { document, issues } = parseEdgeList(readFileSync(path.join(DATA, file), 'utf8'), file);
+  test.each(cases)('$set/$name has n, m and weights as its table says', ({ set, name, n, m, weights }) => {
+    const { document, issues } = parseEdgeList(instanceText(set, name), name);
     expect(issues).toEqual([]);
     expect(document.depots).toHaveLength(n);
     expect(document.depots[n - 1].id).toBe(String(n));

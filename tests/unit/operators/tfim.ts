@@ -2,7 +2,7 @@
  * Transverse-field Ising chain, periodic: H = −J Σ_i Z_iZ_{i+1} − h Σ_i X_i, and its ground energy
  * in closed form from Pfeuty, "The one-dimensional Ising model with a transverse field",
  * Ann. Phys. 57, 79 (1970): E0 = −Σ_k √(J² + h² − 2Jh cos k) over the even-parity momenta
- * k = ±π(2m−1)/N, m = 1…N/2 (as given in /work/shared/references.md).
+ * k = ±π(2m−1)/N, m = 1…N/2 (as given in docs/references.md).
  */
 import type { PauliSum } from '../../../shared/engine/operators/types';
 

@@ -104,7 +104,7 @@ describe('solver registry', () => {
 });
 
 describe('solveProblem checks every answer', () => {
-  // Textbook max-cut values (common practice, /work/shared/references.md): K_n = ⌊n²/4⌋,
+  // Textbook max-cut values (common practice, docs/references.md): K_n = ⌊n²/4⌋,
   // C_n = n (even) or n − 1 (odd), Petersen graph = 12.
   test.each([
     ['K5', complete(5), 6], ['K6', complete(6), 9], ['C7', cycle(7), 6], ['C8', cycle(8), 8], ['Petersen', petersen, 12],

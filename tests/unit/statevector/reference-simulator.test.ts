@@ -1,6 +1,6 @@
 /**
  * Our statevector against an independent simulator from the npm registry: the package
- * `quantum-circuit` (0.9, reference simulator for tests per /work/shared/setup-notes.md).
+ * `quantum-circuit` (0.9, an independent general-purpose simulator, used only in tests).
  * Its conventions are checked empirically first (qubit 0 = least significant bit, cx [c, t],
  * rz(φ) = diag(e^{−iφ/2}, e^{iφ/2})), then random circuits of our gates must agree to 1e-10.
  */

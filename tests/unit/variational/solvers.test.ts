@@ -3,6 +3,8 @@ import { SettingsError } from '../../../shared/engine/classical/settings';
 import { crossingWeight, isBalanced, respectsPins } from '../../../shared/engine/problem/evaluate';
 import type { SolveContext } from '../../../shared/engine/solvers/types';
 import { createRng } from '../../../shared/engine/random';
+import * as builder from '../../../shared/engine/encodings/builder';
+import { encodeProblem } from '../../../shared/engine/encodings';
 import { bruteForceBest, problemOf, randomGraph, ringEdges } from '../encodings/fixtures';
 
 const ctx = (seed: number, extra: Partial<SolveContext> = {}): SolveContext => ({ seed, timeLimitSeconds: 30, ...extra });
@@ -45,11 +47,22 @@ describe('refuses', () => {
     expect(qaoaSolver.refuses(problemOf(30, ringEdges(30), { kind: 'maxcut', pins }), qaoaSolver.parseSettings({}))).toBeNull();
   });
   test('a large network is refused from the depot count, without building its operator', () => {
-    const n = 5000;
-    const big = problemOf(n, ringEdges(n), { kind: 'bisection' });
-    const t = performance.now();
-    expect(vqeSolver.refuses(big, vqeSolver.parseSettings({}))).toMatch(/at least 5000 qubits/);
-    expect(performance.now() - t).toBeLessThan(2000); // a built operator would hold ~12.5 M terms
+    // Every encoding is assembled by the builders (a built operator here would hold ~12.5 M terms).
+    const ising = jest.spyOn(builder, 'createIsingBuilder');
+    const qubo = jest.spyOn(builder, 'createQuboBuilder');
+    try {
+      encodeProblem(problemOf(6, ringEdges(6), { kind: 'bisection' })); // the spies do see a build
+      expect(ising).toHaveBeenCalled();
+      ising.mockClear();
+      const n = 5000;
+      const big = problemOf(n, ringEdges(n), { kind: 'bisection' });
+      expect(vqeSolver.refuses(big, vqeSolver.parseSettings({}))).toMatch(/at least 5000 qubits/);
+      expect(ising).not.toHaveBeenCalled();
+      expect(qubo).not.toHaveBeenCalled();
+    } finally {
+      ising.mockRestore();
+      qubo.mockRestore();
+    }
   });
   test('k-way one-hot counts n·k qubits; recursive counts the first split only', () => {
     const p = problemOf(10, ringEdges(10), { kind: 'kway', k: 3 });
