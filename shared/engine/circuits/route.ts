@@ -25,9 +25,7 @@ export function routeCircuit(circuit: LogicalCircuit, layoutName: LayoutName): P
   where.forEach((p, q) => (at[p] = q));
   const gates: Gate[] = [];
   let swaps = 0;
-  const place = (g: Gate): Gate => (g.qubits.length === 1
-    ? { ...g, qubits: [where[g.qubits[0]]] }
-    : { ...g, qubits: [where[g.qubits[0]], where[g.qubits[1]]] } as Gate);
+  const place = (g: Gate): Gate => ({ ...g, qubits: g.qubits.map((q) => where[q]) } as Gate);
 
   for (const stage of circuit.stages) {
     if (stage.type === 'gates') { for (const g of stage.gates) gates.push(place(g)); continue; }
