@@ -32,6 +32,10 @@ const OPTIONS = {
   precision: { type: 'string' },
   'no-bounds': { type: 'boolean', default: false },
   json: { type: 'boolean', default: false },
+  qasm: { type: 'string' },
+  'qasm-version': { type: 'string', default: '3' },
+  'qasm-layout': { type: 'string', default: 'all' },
+  'qasm-form': { type: 'string', default: 'bound' },
   progress: { type: 'boolean', default: false },
   help: { type: 'boolean', short: 'h', default: false },
 } as const;
@@ -79,6 +83,7 @@ async function solveCommand(flags: Flags, positionals: string[], io: CliIo, sign
   const seed = numberFlag('seed', flags.seed, Number.isInteger, 'a whole number')!;
   const timeLimitSeconds = numberFlag('time-limit', flags['time-limit'], (v) => v > 0, 'a positive number of seconds')!;
   const settings = settingsFrom(flags);
+  const qasm = qasmFlags(flags);
   const { network, warnings } = loadNetwork(file, { ...(flags.depots ? { depots: flags.depots } : {}), ...(format ? { format } : {}) });
   const { formatIssue } = require('../../shared/formats') as typeof import('../../shared/formats');
   const warningText = warnings.map(formatIssue);
@@ -106,8 +111,35 @@ async function solveCommand(flags: Flags, positionals: string[], io: CliIo, sign
   const result = await solveProblem(problem, flags.solver, settings, { seed, timeLimitSeconds, cancel, onProgress }, { bounds: !flags['no-bounds'] });
   signals.onInterrupt = null;
   const report = solveReport(file, problem, result, { qubits: qubitsFor(problem), seed, timeLimitSeconds, cancelled: cancel.cancelled, warnings: warningText });
+  if (qasm) writeQasm(qasm, problem, result, io);
   io.out(flags.json ? JSON.stringify(report) : solveSummary(report));
   return cancel.cancelled ? 130 : 0;
+}
+
+interface QasmRequest { file: string; version: 2 | 3; layout: 'all' | 'line' | 'grid'; form: 'bound' | 'parameterised' }
+
+/** --qasm FILE [--qasm-version 2|3] [--qasm-layout all|line|grid] [--qasm-form bound|parameterised]. */
+function qasmFlags(flags: Flags): QasmRequest | null {
+  if (flags.qasm === undefined) return null;
+  const version = flags['qasm-version'], layout = flags['qasm-layout'], form = flags['qasm-form'];
+  if (version !== '2' && version !== '3') throw new UserError(`--qasm-version ${version}: choose 2 (OpenQASM 2.0) or 3 (OpenQASM 3)`);
+  if (layout !== 'all' && layout !== 'line' && layout !== 'grid') throw new UserError(`--qasm-layout ${layout}: choose all, line or grid`);
+  if (form !== 'bound' && form !== 'parameterised') throw new UserError(`--qasm-form ${form}: choose bound or parameterised`);
+  return { file: flags.qasm, version: version === '2' ? 2 : 3, layout, form };
+}
+
+function writeQasm(q: QasmRequest, problem: import('../../shared/engine/problem/types').Problem, result: import('../../shared/engine/solvers/orchestrate').RunResult, io: CliIo): void {
+  if (!result.circuitSpec || !result.params) {
+    io.err(`spinyard: warning: --qasm: ${result.solver} runs no circuit (or every depot was pinned); no file written`);
+    return;
+  }
+  const { runQasm } = require('../../shared/engine/circuits/export') as typeof import('../../shared/engine/circuits/export');
+  const { writeFileSync } = require('node:fs') as typeof import('node:fs');
+  try {
+    writeFileSync(q.file, runQasm(problem, result.circuitSpec, result.params, q));
+  } catch (e) {
+    throw new UserError(`--qasm ${q.file}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'the folder does not exist' : (e as Error).message}`);
+  }
 }
 
 function inspectCommand(flags: Flags, positionals: string[], io: CliIo): number {

@@ -32,6 +32,8 @@ export interface SolveReport {
   cancelled: boolean;
   notes: string[];
   warnings: string[];
+  /** Variational solvers: qubits and gate counts per qubit layout (docs/runs.md). */
+  circuit?: import('../../shared/engine/circuits/summary').CircuitSummary;
 }
 
 export function solveReport(file: string, problem: Problem, result: RunResult, extra: { qubits: number | null; seed: number; timeLimitSeconds: number; cancelled: boolean; warnings: string[] }): SolveReport {
@@ -63,6 +65,7 @@ export function solveReport(file: string, problem: Problem, result: RunResult, e
     cancelled: extra.cancelled,
     notes: result.notes,
     warnings: extra.warnings,
+    ...(result.circuit ? { circuit: result.circuit } : {}),
   };
 }
 
@@ -89,6 +92,11 @@ export function solveSummary(r: SolveReport): string {
     `  ${'bound'.padEnd(10)} ${num(r.bound)}${r.boundSource ? ` (${r.boundSource})` : ''}   gap ${r.gap === null ? '—' : `${(100 * r.gap).toFixed(2)} %`}${r.provenOptimal ? '   proven optimal' : ''}`,
   ];
   if (r.expectation !== null || r.energy !== null) lines.push(`  ${'quantum'.padEnd(10)} expectation ${num(r.expectation)}   energy ${num(r.energy)}   qubits ${num(r.qubits)}`);
+  if (r.circuit) {
+    for (const [layout, c] of Object.entries(r.circuit.layouts)) {
+      lines.push(`  ${`${layout === 'all' ? 'all-to-all' : layout}`.padEnd(10)} ${c.oneQubitGates} one-qubit + ${c.twoQubitGates} two-qubit gates, two-qubit depth ${c.twoQubitDepth}, depth ${c.depth}${c.swaps ? `, ${c.swaps} swaps` : ''}`);
+    }
+  }
   lines.push(`  ${'time'.padEnd(10)} ${r.seconds.toFixed(2)} s   evaluations ${r.evaluations}   shots ${r.shots}   seed ${r.seed}`);
   lines.push(...groups(r));
   for (const note of r.notes) lines.push(`  note: ${note}`);

@@ -1,3 +1,5 @@
+import type { CircuitSpec } from '../engine/circuits/of-run';
+import type { CircuitSummary } from '../engine/circuits/summary';
 import { z } from 'zod';
 
 /**
@@ -98,6 +100,10 @@ export interface JobResultView {
   trace?: { iteration: number; energy: number; stdError?: number; bestValue?: number; seconds: number }[];
   samples?: { assignment: number[]; count: number; value: number }[];
   notes?: string[];
+  /** Variational jobs: qubits and gate counts per layout (docs/runs.md, "Circuit resources"). */
+  circuit?: CircuitSummary;
+  /** Variational jobs: what rebuilds the circuit (OpenQASM export, noise). */
+  circuitSpec?: CircuitSpec;
 }
 
 export interface JobView {

@@ -153,6 +153,8 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
       };
       if (raw.trace) result.trace = raw.trace;
       if (raw.samples) result.samples = raw.samples;
+      if (raw.circuit) result.circuit = raw.circuit;
+      if (raw.circuitSpec) result.circuitSpec = raw.circuitSpec;
       return result;
     },
   };

@@ -1,3 +1,5 @@
+import type { CircuitSpec } from '../circuits/of-run';
+import type { CircuitSummary } from '../circuits/summary';
 import type { Problem, ProblemKind } from '../problem/types';
 
 /** Progress reported while a solver runs (published by workers, printed by the CLI). */
@@ -51,6 +53,10 @@ export interface SolveResult {
   /** True when the assignment violates the balance rule (reported, never hidden). */
   infeasible?: boolean;
   notes?: string[];
+  /** Variational runs: qubits and gate counts per qubit layout (docs/runs.md, "Circuit resources"). */
+  circuit?: CircuitSummary;
+  /** Variational runs: what rebuilds the circuit from the problem (OpenQASM, noise). */
+  circuitSpec?: CircuitSpec;
 }
 
 /** Cooperative cancellation: solvers check it between iterations. */

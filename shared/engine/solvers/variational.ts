@@ -4,6 +4,9 @@
  * circuit on the CPU statevector and answer with the best read-out sample; k-way problems go
  * through recursive bisection by default (one small operator per split) or one-hot encoding.
  */
+import { circuitOf, type CircuitSpec } from '../circuits/of-run';
+import { warmProbabilities } from '../circuits/warm';
+import { circuitSummary } from '../circuits/summary';
 import { createFlipState } from '../classical/flip-state';
 import { greedyMaxcut, polishBisection, polishMaxcut } from '../classical/local-search';
 import { randomBalancedSides } from '../classical/balance';
@@ -136,6 +139,8 @@ function classicalStart(problem: Problem, rng: Rng): Int8Array | null {
 }
 
 interface RunPlan {
+  /** The circuit the run simulates (without the encoding choice, added by the shared loop). */
+  spec(encoding: Encoding, warm: ArrayLike<number> | null): Omit<CircuitSpec, 'encoding' | 'penaltyRule'>;
   run(encoding: Encoding, warm: ArrayLike<number> | null, shouldStop: () => boolean, onIteration: (p: VariationalTracePoint) => void): VariationalOutcome;
 }
 
@@ -160,6 +165,11 @@ async function solveVariational(problem: Problem, s: CommonSettings, ctx: SolveC
   const notes: string[] = [];
   const recursive = problem.kind === 'kway' && s.kwayStrategy === 'recursive';
   let stoppedAny = false;
+  // Gate counts per qubit layout for the circuit the result's params belong to.
+  const circuitFields = (encoding: Encoding, warm: ArrayLike<number> | null, which: CircuitSpec['encoding']): Partial<SolveResult> => {
+    const spec: CircuitSpec = { ...plan.spec(encoding, warm), encoding: which, penaltyRule: s.penaltyRule };
+    return { circuit: circuitSummary(circuitOf(encoding, spec)), circuitSpec: spec };
+  };
   const finish = (assignment: ArrayLike<number>, outcome: VariationalOutcome | null, extra: Partial<SolveResult>): SolveResult => {
     const a = Array.from(assignment, (x) => x | 0);
     const infeasible = !isBalanced(problem, a);
@@ -188,6 +198,7 @@ async function solveVariational(problem: Problem, s: CommonSettings, ctx: SolveC
   if (recursive) {
     let evaluations = 0, shots = 0;
     let first: VariationalOutcome | null = null;
+    let firstCircuit: Partial<SolveResult> = {};
     const assignment = await recursiveBisection(problem, async (step) => {
       if (step.problem.pins.every((p) => p >= 0)) return step.problem.pins;
       const enc = encodeBisection(step.problem, { ...encodingOptions(s), imbalanceWindow: step.imbalanceWindow });
@@ -195,6 +206,7 @@ async function solveVariational(problem: Problem, s: CommonSettings, ctx: SolveC
       iterationBase = lastIteration;
       evaluations += out.evaluations;
       shots += out.shotsUsed;
+      if (!first) firstCircuit = circuitFields(enc, null, 'first-split');
       first = first ?? out;
       stoppedAny = stoppedAny || out.stopped;
       notes.push(`split regions ${step.firstRegion}…${step.firstRegion + step.regions0 - 1} | ${step.firstRegion + step.regions0}…${step.firstRegion + step.regions0 + step.regions1 - 1}: ${enc.numQubits} qubits, ${enc.rule}`);
@@ -203,7 +215,7 @@ async function solveVariational(problem: Problem, s: CommonSettings, ctx: SolveC
     });
     notes.push('k-way by recursive bisection: energy, expectation and params are those of the first split; samples are not combined across splits');
     const top = first as VariationalOutcome | null;
-    return finish(assignment, top, { energy: top?.energy ?? null, expectation: null, params: top?.params ?? null, evaluations, shots });
+    return finish(assignment, top, { energy: top?.energy ?? null, expectation: null, params: top?.params ?? null, evaluations, shots, ...firstCircuit });
   }
 
   const encoding = encodeProblem(problem, encodingOptions(s));
@@ -221,7 +233,7 @@ async function solveVariational(problem: Problem, s: CommonSettings, ctx: SolveC
   const out = plan.run(encoding, warm, shouldStop, onIteration);
   if (out.feasibleShare !== null) notes.push(`${(100 * out.feasibleShare).toFixed(1)} % of read-out shots met the balance rule`);
   const best = out.best!;
-  return finish(best.assignment, out, { evaluations: out.evaluations, shots: out.shotsUsed, samples: toSamples(out) });
+  return finish(best.assignment, out, { evaluations: out.evaluations, shots: out.shotsUsed, samples: toSamples(out), ...circuitFields(encoding, warm, 'direct') });
 }
 
 export const qaoaSolver: SolverDefinition<QaoaSettings> = {
@@ -242,6 +254,7 @@ export const qaoaSolver: SolverDefinition<QaoaSettings> = {
   async solve(problem, s, ctx) {
     const rng = createRng(ctx.seed);
     return solveVariational(problem, s, ctx, {
+      spec: (encoding, warm) => ({ ansatz: 'qaoa', layers: s.layers, ...(warm ? { warmStart: { probabilities: warmProbabilities(encoding, warm), epsilon: s.warmStartEpsilon } } : {}) }),
       run: (encoding, warm, shouldStop, onIteration) => runQaoa({
         encoding, layers: s.layers, optimizer: s.optimizer, shots: s.shots, readoutShots: s.readoutShots,
         restarts: s.restarts, maxIterations: s.maxIterations, rng, shouldStop, onIteration,
@@ -270,6 +283,7 @@ export const vqeSolver: SolverDefinition<VqeSettings> = {
   async solve(problem, s, ctx) {
     const rng = createRng(ctx.seed);
     return solveVariational(problem, s, ctx, {
+      spec: () => (s.ansatz === 'ladder' ? { ansatz: 'ladder', layers: s.layers, entangler: s.entangler } : { ansatz: 'qaoa', layers: s.layers }),
       run: (encoding, _warm, shouldStop, onIteration) => runVqeOnEncoding(encoding, {
         ansatz: s.ansatz, layers: s.layers, entangler: s.entangler, optimizer: s.optimizer, shots: s.shots,
         readoutShots: s.readoutShots, restarts: s.restarts, maxIterations: s.maxIterations, rng, shouldStop, onIteration,

@@ -1,4 +1,5 @@
 import { createQaoaAnsatz } from '../ansatz/qaoa';
+import { warmProbabilities } from '../circuits/warm';
 import type { Encoding } from '../encodings/types';
 import type { Rng } from '../random';
 import { expectationOfDiagonal, isingDiagonal } from '../statevector/diagonal';
@@ -80,10 +81,7 @@ export function runQaoa(opts: QaoaRunOptions): VariationalOutcome {
   const levels = diagonalLevels(diag);
   let warm: { probabilities: Float64Array; epsilon?: number } | undefined;
   if (opts.warmStart) {
-    const bits = encoding.encodeAssignment(opts.warmStart.assignment);
-    const probabilities = new Float64Array(encoding.numQubits).fill(0.5); // slack qubits stay unbiased
-    bits.forEach((b, q) => (probabilities[q] = b));
-    warm = { probabilities, epsilon: opts.warmStart.epsilon };
+    warm = { probabilities: Float64Array.from(warmProbabilities(encoding, opts.warmStart.assignment)), epsilon: opts.warmStart.epsilon };
   }
   const ansatz = createQaoaAnsatz({ numQubits: encoding.numQubits, layers: opts.layers, energyDiagonal: levels ?? diag, warmStart: warm, stateOptions: opts.stateOptions });
   const first = opts.initialParams ?? transferredAngles(opts.layers, couplingScale(encoding.operator));
