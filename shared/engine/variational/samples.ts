@@ -28,7 +28,14 @@ export function readOut(encoding: Encoding, state: StateVector, shots: number, r
     if (feasible) feasibleShots += count;
     decoded.push({ state: x, assignment: a, count, value: encoding.valueOf(a), feasible });
   }
-  const maximise = encoding.kind === 'maxcut';
+  const best = bestSample(encoding.kind, decoded);
+  const samples = decoded.slice().sort((a, b) => b.count - a.count || a.state - b.state).slice(0, top);
+  return { samples, best, feasibleShare: feasibleShots / Math.max(1, shots) };
+}
+
+/** The best of decoded samples: feasible first, then value (max-cut highest, else lowest), then count. */
+export function bestSample(kind: Encoding['kind'], decoded: DecodedSample[]): DecodedSample {
+  const maximise = kind === 'maxcut';
   const better = (a: DecodedSample, b: DecodedSample) => {
     if (a.feasible !== b.feasible) return a.feasible;
     if (a.value !== b.value) return maximise ? a.value > b.value : a.value < b.value;
@@ -36,6 +43,5 @@ export function readOut(encoding: Encoding, state: StateVector, shots: number, r
   };
   let best = decoded[0];
   for (const d of decoded) if (better(d, best)) best = d;
-  const samples = decoded.slice().sort((a, b) => b.count - a.count || a.state - b.state).slice(0, top);
-  return { samples, best, feasibleShare: feasibleShots / Math.max(1, shots) };
+  return best;
 }
