@@ -36,6 +36,11 @@ const OPTIONS = {
   'qasm-version': { type: 'string', default: '3' },
   'qasm-layout': { type: 'string', default: 'all' },
   'qasm-form': { type: 'string', default: 'bound' },
+  device: { type: 'string', multiple: true, default: [] as string[] },
+  noise: { type: 'boolean', default: false },
+  'noise-layout': { type: 'string', default: 'line' },
+  'noise-trajectories': { type: 'string', default: '20' },
+  'noise-shots': { type: 'string', default: '100' },
   progress: { type: 'boolean', default: false },
   help: { type: 'boolean', short: 'h', default: false },
 } as const;
@@ -84,6 +89,7 @@ async function solveCommand(flags: Flags, positionals: string[], io: CliIo, sign
   const timeLimitSeconds = numberFlag('time-limit', flags['time-limit'], (v) => v > 0, 'a positive number of seconds')!;
   const settings = settingsFrom(flags);
   const qasm = qasmFlags(flags);
+  const device = deviceFlags(flags);
   const { network, warnings } = loadNetwork(file, { ...(flags.depots ? { depots: flags.depots } : {}), ...(format ? { format } : {}) });
   const { formatIssue } = require('../../shared/formats') as typeof import('../../shared/formats');
   const warningText = warnings.map(formatIssue);
@@ -112,8 +118,47 @@ async function solveCommand(flags: Flags, positionals: string[], io: CliIo, sign
   signals.onInterrupt = null;
   const report = solveReport(file, problem, result, { qubits: qubitsFor(problem), seed, timeLimitSeconds, cancelled: cancel.cancelled, warnings: warningText });
   if (qasm) writeQasm(qasm, problem, result, io);
+  if (result.circuitSpec && result.params) {
+    const { analyseRun } = require('../../shared/engine/circuits/run-analysis') as typeof import('../../shared/engine/circuits/run-analysis');
+    const reference = result.bound !== null ? { value: result.bound, what: `the bound (${result.boundSource})` } : { value: result.value, what: 'the value found by this run' };
+    const shots = typeof settings.shots === 'number' && settings.shots > 0 ? settings.shots : EXACT_RUN_SHOTS;
+    const readoutShots = typeof settings.readoutShots === 'number' ? settings.readoutShots : 1024;
+    try {
+      const analysis = analyseRun(problem, result.circuitSpec, result.params,
+        { assumptions: device.assumptions, settings: 1, shotsPerSetting: shots, estimates: result.evaluations, readoutShots },
+        device.noise ? { ...device.noise, seed, reference } : undefined);
+      report.deviceTime = { shotsPerSetting: shots, settings: 1, estimates: result.evaluations, readoutShots, assumptions: device.assumptions, layouts: analysis.deviceTime };
+      if (analysis.noise) report.noise = analysis.noise;
+    } catch (e) {
+      if (e instanceof RangeError) throw new UserError(`--noise: ${e.message}`);
+      throw e;
+    }
+  } else if (device.noise) io.err(`spinyard: warning: --noise: ${result.solver} runs no circuit; nothing to add noise to`);
   io.out(flags.json ? JSON.stringify(report) : solveSummary(report));
   return cancel.cancelled ? 130 : 0;
+}
+
+/** Shots per estimate assumed for device time when the run used exact expectations (shots = 0). */
+const EXACT_RUN_SHOTS = 10_000;
+
+/** --device KEY=VALUE (assumption overrides) and --noise [--noise-layout L] [--noise-trajectories N] [--noise-shots S]. */
+function deviceFlags(flags: Flags) {
+  const { defaultAssumptions, DEVICE_DEFAULTS } = require('../../shared/engine/circuits/device') as typeof import('../../shared/engine/circuits/device');
+  const assumptions = defaultAssumptions();
+  for (const item of flags.device) {
+    const eq = item.indexOf('=');
+    const key = item.slice(0, Math.max(0, eq)), value = Number(item.slice(eq + 1));
+    if (eq <= 0 || !(key in DEVICE_DEFAULTS)) throw new UserError(`--device ${item}: write KEY=VALUE with KEY one of ${Object.keys(DEVICE_DEFAULTS).join(', ')}`);
+    const unit = DEVICE_DEFAULTS[key as keyof typeof DEVICE_DEFAULTS].unit;
+    if (!Number.isFinite(value) || value < 0 || (unit === 'probability' && value > 1)) throw new UserError(`--device ${item}: ${unit === 's' ? 'a duration in seconds ≥ 0' : 'a probability in 0…1'}`);
+    assumptions[key as keyof typeof assumptions] = value;
+  }
+  if (!flags.noise) return { assumptions, noise: null };
+  const layout = flags['noise-layout'];
+  if (layout !== 'all' && layout !== 'line' && layout !== 'grid') throw new UserError(`--noise-layout ${layout}: choose all, line or grid`);
+  const trajectories = numberFlag('noise-trajectories', flags['noise-trajectories'], (v) => Number.isInteger(v) && v >= 0 && v <= 10_000, 'a whole number 0…10000 (0 = depolarizing estimate only)')!;
+  const shotsPerTrajectory = numberFlag('noise-shots', flags['noise-shots'], (v) => Number.isInteger(v) && v >= 0 && v <= 1_000_000, 'a whole number of shots per trajectory')!;
+  return { assumptions, noise: { layout, trajectories, shotsPerTrajectory } as const };
 }
 
 interface QasmRequest { file: string; version: 2 | 3; layout: 'all' | 'line' | 'grid'; form: 'bound' | 'parameterised' }

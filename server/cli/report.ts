@@ -34,6 +34,14 @@ export interface SolveReport {
   warnings: string[];
   /** Variational solvers: qubits and gate counts per qubit layout (docs/runs.md). */
   circuit?: import('../../shared/engine/circuits/summary').CircuitSummary;
+  /** Variational solvers: time on a device per layout under the stated assumptions. */
+  deviceTime?: {
+    shotsPerSetting: number; settings: number; estimates: number; readoutShots: number;
+    assumptions: import('../../shared/engine/circuits/device').DeviceAssumptions;
+    layouts: import('../../shared/engine/circuits/run-analysis').RunAnalysis['deviceTime'];
+  };
+  /** With --noise: noiseless vs noisy energy, expected value and approximation ratio. */
+  noise?: import('../../shared/engine/circuits/run-analysis').NoiseReport;
 }
 
 export function solveReport(file: string, problem: Problem, result: RunResult, extra: { qubits: number | null; seed: number; timeLimitSeconds: number; cancelled: boolean; warnings: string[] }): SolveReport {
@@ -69,6 +77,15 @@ export function solveReport(file: string, problem: Problem, result: RunResult, e
   };
 }
 
+/** Seconds in a readable unit. */
+function seconds(s: number): string {
+  if (s < 1e-3) return `${(s * 1e6).toPrecision(3)} µs`;
+  if (s < 1) return `${(s * 1e3).toPrecision(3)} ms`;
+  if (s < 120) return `${s.toPrecision(3)} s`;
+  if (s < 7200) return `${(s / 60).toPrecision(3)} min`;
+  return `${(s / 3600).toPrecision(3)} h`;
+}
+
 const KIND_WORDS = { maxcut: 'max-cut', bisection: 'balanced bisection', kway: 'k-way partition' } as const;
 export const num = (x: number | null): string => (x === null ? '—' : Number.isInteger(x) ? String(x) : String(Number(x.toPrecision(10))));
 
@@ -96,6 +113,16 @@ export function solveSummary(r: SolveReport): string {
     for (const [layout, c] of Object.entries(r.circuit.layouts)) {
       lines.push(`  ${`${layout === 'all' ? 'all-to-all' : layout}`.padEnd(10)} ${c.oneQubitGates} one-qubit + ${c.twoQubitGates} two-qubit gates, two-qubit depth ${c.twoQubitDepth}, depth ${c.depth}${c.swaps ? `, ${c.swaps} swaps` : ''}`);
     }
+  }
+  if (r.deviceTime) {
+    const t = r.deviceTime.layouts;
+    lines.push(`  ${'device'.padEnd(10)} ${r.deviceTime.settings} setting × ${r.deviceTime.shotsPerSetting} shots per estimate: ${seconds(t.all.estimateSeconds)} (all-to-all), ${seconds(t.line.estimateSeconds)} (line), ${seconds(t.grid.estimateSeconds)} (grid); whole run on a line ${seconds(t.line.runSeconds)} — assumed durations, see docs/runs.md`);
+  }
+  if (r.noise) {
+    const n = r.noise;
+    const ratio = (x: number | null) => (x === null ? '' : `, ratio ${x.toFixed(3)}`);
+    lines.push(`  ${'noise'.padEnd(10)} ${n.layout} layout: noiseless expectation ${num(n.noiseless.expectation)}${ratio(n.noiseless.ratio)}; depolarizing estimate ${num(n.depolarizing.expectation)}${ratio(n.depolarizing.ratio)} (fidelity ${n.depolarizing.fidelity.toPrecision(3)})`);
+    if (n.trajectories) lines.push(`  ${''.padEnd(10)} ${n.trajectories.count} trajectories: ${num(n.trajectories.expectation)} ± ${n.trajectories.expectationStdError.toPrecision(2)}${ratio(n.trajectories.ratio)}; best sampled answer under noise ${n.trajectories.best ? `${num(n.trajectories.best.value)}${n.trajectories.best.feasible ? '' : ' (unbalanced)'}` : '—'}`);
   }
   lines.push(`  ${'time'.padEnd(10)} ${r.seconds.toFixed(2)} s   evaluations ${r.evaluations}   shots ${r.shots}   seed ${r.seed}`);
   lines.push(...groups(r));

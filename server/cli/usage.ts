@@ -5,7 +5,8 @@ export const USAGE = `usage:
                  [--time-limit SECONDS] [--tolerance T] [--pin ID=SIDE ...]
                  [--depots DEPOTS.csv] [--format FORMAT] [--no-bounds] [--json] [--progress]
                  [--qasm OUT.qasm] [--qasm-version 2|3] [--qasm-layout all|line|grid]
-                 [--qasm-form bound|parameterised]
+                 [--qasm-form bound|parameterised] [--device KEY=VALUE ...]
+                 [--noise] [--noise-layout all|line|grid] [--noise-trajectories N] [--noise-shots S]
   spinyard inspect FILE [--problem …] [--k K] [--tolerance T] [--pin ID=SIDE ...]
                  [--precision EPS] [--depots DEPOTS.csv] [--format FORMAT] [--json]
   spinyard solvers [--json]
@@ -15,7 +16,8 @@ FILE formats (by extension): .txt edge list "n m" then "i j w" (G-set / Biq Mac 
 .csv lanes from,to,weight (depots id,name,lat,lon,weight via --depots), .json Spinyard
 network document, .graphml, .geojson. --format edgelist|csv|json|graphml|geojson overrides.
 Defaults: --problem maxcut, --k 3 (kway), --seed 1, --time-limit 10, --tolerance 0,
---qasm-version 3, --qasm-layout all, --qasm-form bound (variational solvers only).
+--qasm-version 3, --qasm-layout all, --qasm-form bound (variational solvers only),
+--noise-layout line, --noise-trajectories 20, --noise-shots 100.
 Exit codes: 0 done, 2 bad input (file, flags, settings, refusal), 1 internal error,
 130 cancelled with Ctrl-C (the best answer so far is still printed).
 See docs/cli.md.`;

@@ -88,6 +88,8 @@ export interface TrajectoryResult {
   /** Mean ⟨H⟩ over trajectories (read-out flips averaged exactly) and its standard error. */
   energy: number;
   stdError: number;
+  /** The same for a second operator when given (the business value), else null. */
+  value: { mean: number; stdError: number } | null;
   /** Best decoded read-out sample over all trajectories, read-out flips applied; null without an encoding. */
   best: DecodedSample | null;
   shots: number;
@@ -99,11 +101,12 @@ export interface TrajectoryResult {
  * read-out flips is exact for that state, and shots are sampled with each bit flipped with
  * probability ε_ro. The mean over trajectories is an unbiased estimate of the noisy ⟨H⟩.
  */
-export function trajectoryNoise(c: PhysicalCircuit, params: ArrayLike<number>, op: IsingOperator, a: DeviceAssumptions, opts: TrajectoryOptions, encoding?: Encoding): TrajectoryResult {
+export function trajectoryNoise(c: PhysicalCircuit, params: ArrayLike<number>, op: IsingOperator, a: DeviceAssumptions, opts: TrajectoryOptions, encoding?: Encoding, valueOperator?: IsingOperator): TrajectoryResult {
   const n = c.numQubits;
   if (n > TRAJECTORY_MAX_QUBITS) throw new RangeError(`trajectory noise simulation takes at most ${TRAJECTORY_MAX_QUBITS} qubits (this circuit has ${n}); use the depolarizing estimate`);
   const global = opts.model === 'global';
   const energies: number[] = [];
+  const values: number[] = [];
   const decoded = new Map<number, DecodedSample>();
   let shots = 0;
   for (let t = 0; t < opts.trajectories; t++) {
@@ -117,6 +120,7 @@ export function trajectoryNoise(c: PhysicalCircuit, params: ArrayLike<number>, o
     }
     const logical = toLogicalOrder(s, c.finalPlacement);
     energies.push(readoutExpectation(logical, op, a.readoutError));
+    if (valueOperator) values.push(readoutExpectation(logical, valueOperator, a.readoutError));
     if (!encoding || opts.shotsPerTrajectory <= 0) continue;
     for (const x of sampleBasisIndices(logical, opts.shotsPerTrajectory, opts.rng)) {
       let y = x;
@@ -128,14 +132,20 @@ export function trajectoryNoise(c: PhysicalCircuit, params: ArrayLike<number>, o
       decoded.set(y, { state: y, assignment, count: 1, value: encoding.valueOf(assignment), feasible: encoding.feasible(assignment) });
     }
   }
-  const mean = energies.reduce((x, y) => x + y, 0) / energies.length;
-  const variance = energies.length > 1 ? energies.reduce((x, y) => x + (y - mean) ** 2, 0) / (energies.length - 1) : 0;
+  const energy = meanAndError(energies);
   return {
     model: 'trajectories',
     trajectories: energies.length,
-    energy: mean,
-    stdError: Math.sqrt(variance / energies.length),
+    energy: energy.mean,
+    stdError: energy.stdError,
+    value: valueOperator ? meanAndError(values) : null,
     best: encoding && decoded.size > 0 ? bestSample(encoding.kind, [...decoded.values()]) : null,
     shots,
   };
+}
+
+function meanAndError(xs: number[]): { mean: number; stdError: number } {
+  const mean = xs.reduce((x, y) => x + y, 0) / xs.length;
+  const variance = xs.length > 1 ? xs.reduce((x, y) => x + (y - mean) ** 2, 0) / (xs.length - 1) : 0;
+  return { mean, stdError: Math.sqrt(variance / xs.length) };
 }

@@ -1,3 +1,7 @@
+import { createLadderAnsatz } from '../ansatz/ladder';
+import { createQaoaAnsatz } from '../ansatz/qaoa';
+import type { Ansatz } from '../ansatz/types';
+import { isingDiagonal } from '../statevector/diagonal';
 import { encodeBisection } from '../encodings/bisection';
 import { encodeProblem } from '../encodings';
 import type { Encoding } from '../encodings/types';
@@ -36,4 +40,10 @@ export function encodingOf(problem: Problem, spec: Pick<CircuitSpec, 'encoding' 
 export function circuitOf(encoding: Encoding, spec: CircuitSpec): LogicalCircuit {
   if (spec.ansatz === 'ladder') return ladderCircuit({ numQubits: encoding.numQubits, layers: spec.layers, entangler: spec.entangler });
   return qaoaCircuit({ operator: encoding.operator, layers: spec.layers, warmStart: spec.warmStart });
+}
+
+/** The statevector ansatz of a run (the one the solver optimised), for its noiseless state. */
+export function ansatzOf(encoding: Encoding, spec: CircuitSpec): Ansatz {
+  if (spec.ansatz === 'ladder') return createLadderAnsatz({ numQubits: encoding.numQubits, layers: spec.layers, entangler: spec.entangler });
+  return createQaoaAnsatz({ numQubits: encoding.numQubits, layers: spec.layers, energyDiagonal: isingDiagonal(encoding.operator), warmStart: spec.warmStart });
 }

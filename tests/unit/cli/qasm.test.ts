@@ -77,3 +77,28 @@ test('version 3 is the default; classical solvers write no file; bad flags are r
   expect(bad.code).toBe(2);
   expect(bad.stderr).toMatch(/--qasm-version 4: choose 2/);
 }, 60_000);
+
+test('--noise: noiseless matches the run, zero error changes nothing, defaults shrink the expectation; device time', async () => {
+  const args = ['solve', path.join(dir, 'lanes.csv'), '--solver', 'qaoa', '--layers', '1', '--set', 'maxIterations=20', '--set', 'restarts=1', '--json', '--noise', '--noise-trajectories', '4', '--noise-shots', '50'];
+  const noisy = JSON.parse((await run(...args)).stdout);
+  expect(Math.abs(noisy.noise.noiseless.expectation - noisy.expectation)).toBeLessThan(1e-9);
+  expect(noisy.noise.layout).toBe('line');
+  expect(noisy.noise.depolarizing.fidelity).toBeLessThan(1);
+  // Max-cut: noise pulls the expected cut towards the random-cut value (half the lane weight, 8).
+  expect(Math.abs(noisy.noise.depolarizing.expectation - 8)).toBeLessThan(Math.abs(noisy.noise.noiseless.expectation - 8));
+  expect(noisy.noise.trajectories.count).toBe(4);
+  expect(noisy.noise.trajectories.shots).toBe(200);
+  expect(noisy.noise.reference.what).toMatch(/bound/);
+  const t = noisy.deviceTime.layouts.line;
+  expect(t.estimateSeconds).toBeCloseTo(10_000 * (t.circuitSeconds + 1e-6 + 100e-6), 9);
+  expect(noisy.deviceTime.layouts.line.circuitSeconds).toBeGreaterThan(noisy.deviceTime.layouts.all.circuitSeconds);
+
+  const clean = JSON.parse((await run(...args, '--device', 'oneQubitError=0', '--device', 'twoQubitError=0', '--device', 'readoutError=0')).stdout);
+  expect(clean.noise.depolarizing.fidelity).toBe(1);
+  expect(Math.abs(clean.noise.depolarizing.expectation - clean.expectation)).toBeLessThan(1e-9);
+  expect(Math.abs(clean.noise.trajectories.expectation - clean.expectation)).toBeLessThan(1e-9);
+
+  const bad = await run(...args, '--device', 'readoutError=2');
+  expect(bad.code).toBe(2);
+  expect(bad.stderr).toMatch(/a probability in 0…1/);
+}, 60_000);
