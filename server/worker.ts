@@ -73,7 +73,8 @@ export async function startWorker(): Promise<StartedWorker> {
     if (!entry) return;
     const final = entry.attemptsMade >= (entry.opts.attempts ?? 1) || /stalled/i.test(err.message);
     deps.logger.warn({ err: err.message, job: entry.id, final }, 'solve worker: queue entry failed');
-    if (final) void markEntryFailed(deps, entry.data, /stalled/i.test(err.message) ? 'the job was interrupted too many times (its worker kept stopping); retry it' : `the job could not be processed: ${err.message}`).catch(() => {});
+    // The queue error's text (database messages, paths) stays in the log above; members see a sentence.
+    if (final) void markEntryFailed(deps, entry.data, /stalled/i.test(err.message) ? 'the job was interrupted too many times (its worker kept stopping); retry it' : "the job could not be processed; the details are in the solve worker's log").catch(() => {});
   });
   await worker.waitUntilReady();
   await reconcileQueue(deps).catch((err) => deps.logger.warn({ err }, 'solve worker: reconcile failed'));

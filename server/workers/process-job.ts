@@ -131,6 +131,9 @@ export function createJobProcessor(env: ProcessorEnv) {
       });
       await pendingWrite;
 
+      if (outcome.kind !== 'done' && outcome.detail) {
+        deps.logger.error({ jobId, attempt, solver: row.solver, detail: outcome.detail }, 'solve job failed inside the solver');
+      }
       let status: JobStatus;
       let fields: Partial<RunJobRow>;
       if (outcome.kind === 'done') {

@@ -3,6 +3,12 @@ import type { ProblemSpec } from '../../shared/engine/problem/types';
 import type { SolveProgress } from '../../shared/engine/solvers/types';
 import type { RunResult } from '../../shared/engine/solvers/orchestrate';
 
+/**
+ * The job error members see when the fault is ours (the details are in the worker's log, found
+ * by job id). Job errors are shown to every member, viewers included: never file paths or stack.
+ */
+export const INTERNAL_ERROR = "internal error in the solver; the details are in the solve worker's log";
+
 /** What the worker's main thread sends a solve thread (plain data, structured-cloned). */
 export interface SolveTask {
   document: NetworkDocument;
@@ -21,4 +27,5 @@ export type SolveThreadMessage =
   | { type: 'started' }
   | { type: 'progress'; progress: SolveProgress }
   | { type: 'done'; result: RunResult; cancelled: boolean }
-  | { type: 'error'; message: string; userError: boolean };
+  /** `message` is shown to every member of the organisation; `detail` (stack text) goes to the worker's log only. */
+  | { type: 'error'; message: string; userError: boolean; detail?: string };

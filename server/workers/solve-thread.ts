@@ -8,7 +8,7 @@ import { buildCompactNetwork } from '../../shared/engine/network/build';
 import { bindProblem } from '../../shared/engine/problem/bind';
 import { solveProblem } from '../../shared/engine/solvers/orchestrate';
 import type { SolveProgress } from '../../shared/engine/solvers/types';
-import type { SolveTask, SolveThreadMessage } from './solve-task';
+import { INTERNAL_ERROR, type SolveTask, type SolveThreadMessage } from './solve-task';
 
 // Errors that describe the user's input (shown as they are) rather than a fault of ours.
 const USER_ERRORS = new Set(['SettingsError', 'SolverRefusedError', 'ProblemError', 'NetworkError', 'UnknownSolverError']);
@@ -34,7 +34,9 @@ async function handle(task: SolveTask): Promise<void> {
   } catch (e) {
     const err = e as Error;
     const userError = USER_ERRORS.has(err?.name);
-    post({ type: 'error', message: userError ? err.message : `internal error in the solver: ${err?.message ?? String(e)}`, userError });
+    // Our faults keep their text (file paths, stack) for the log; members see a fixed sentence.
+    if (userError) post({ type: 'error', message: err.message, userError });
+    else post({ type: 'error', message: INTERNAL_ERROR, userError, detail: err?.stack ?? String(e) });
   }
 }
 

@@ -11,8 +11,9 @@ import type { SolveTask, SolveThreadMessage } from './solve-task';
  */
 export type SlotOutcome =
   | { kind: 'done'; result: RunResult; cancelled: boolean }
-  | { kind: 'error'; message: string; userError: boolean }
-  | { kind: 'killed'; reason: 'cancel' | 'timeout' | 'crash'; message: string };
+  | { kind: 'error'; message: string; userError: boolean; detail?: string }
+  | { kind: 'killed'; reason: 'cancel' | 'timeout' | 'crash'; message: string; detail?: string };
+// `message` is what members see (no paths, no stack); `detail` is for the worker's log.
 
 export interface SlotRun {
   outcome: Promise<SlotOutcome>;
@@ -28,11 +29,12 @@ export interface ThreadSlot {
 const ENTRY = path.join(__dirname, 'solve-thread.cjs');
 const STARTUP_MS = 120_000;
 
-export function createThreadSlot(): ThreadSlot {
+/** `entry` is the thread's script (tests give a faulty one). */
+export function createThreadSlot(entry: string = ENTRY): ThreadSlot {
   let worker: Worker | null = null;
   const fresh = (): Worker => {
     if (!worker) {
-      worker = new Worker(ENTRY);
+      worker = new Worker(entry);
       worker.unref();
     }
     return worker;
@@ -66,11 +68,11 @@ export function createThreadSlot(): ThreadSlot {
           hard = overdue(opts.hardLimitMs, `stopped after ${Math.round(opts.hardLimitMs / 1000)} s: the solver went past its time limit and grace period`);
         } else if (msg.type === 'progress') opts.onProgress(msg.progress);
         else if (msg.type === 'done') finish({ kind: 'done', result: msg.result, cancelled: msg.cancelled });
-        else finish({ kind: 'error', message: msg.message, userError: msg.userError });
+        else finish({ kind: 'error', message: msg.message, userError: msg.userError, detail: msg.detail });
       };
       const onError = (err: Error) => {
         kill(w);
-        finish({ kind: 'killed', reason: 'crash', message: `the solver thread crashed: ${err.message}` });
+        finish({ kind: 'killed', reason: 'crash', message: "the solver thread crashed; the details are in the solve worker's log", detail: err.stack ?? err.message });
       };
       const onExit = (code: number) => {
         if (worker === w) worker = null;

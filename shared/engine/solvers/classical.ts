@@ -1,8 +1,8 @@
 /**
  * The classical solvers (exact, bound and heuristic families) as SolverDefinitions, plus
  * `computeBounds` (attached by the orchestrator to every run) and the `best` entry point.
- * Pure engine code: worker threads are reached only through a dynamic import of
- * classical/threads/pool when a solver is asked to use more than one thread.
+ * Pure engine code: worker threads are reached only through loadPool (loaded on first use)
+ * when a solver is asked to use more than one thread.
  */
 import type { Problem, ProblemKind } from '../problem/types';
 import { crossingWeight, isBalanced, maxPartWeight } from '../problem/evaluate';
@@ -22,6 +22,7 @@ import { anneal, annealDefaults } from '../classical/anneal';
 import { goemansWilliamson, gwDefaults } from '../classical/goemans-williamson';
 import { multilevelBisect, type PartGraph } from '../classical/fm-bisection';
 import { kwayPartition, kwayDefaults } from '../classical/kway';
+import { loadPool } from '../classical/threads/load-pool';
 import { certifiedShiftBound, computeBounds as computeClassicalBounds, type BoundOptions, type BoundReport } from '../classical/bounds';
 
 export { SettingsError } from '../classical/settings';
@@ -44,7 +45,7 @@ const threadsField = { default: 1, min: 1, max: 8, integer: true };
 /** Run `copies` of a solver in worker threads with forked seeds (null answers dropped). */
 async function workerCopies(name: string, problem: Problem, settings: unknown, ctx: SolveContext, copies: number, rng: Rng): Promise<SolveResult[]> {
   if (copies <= 0) return [];
-  const { runInWorker } = await import('../classical/threads/pool');
+  const { runInWorker } = loadPool();
   const runs = Array.from({ length: copies }, () =>
     runInWorker(
       { task: 'solve', solver: name, problem, settings, seed: rng.fork().int(2 ** 31), timeLimitSeconds: ctx.timeLimitSeconds },
@@ -154,7 +155,7 @@ export const exactSolver: SolverDefinition<ExactSettings> = {
 };
 
 async function exactInWorkers(problem: Problem, plan: ReturnType<typeof planExact>, chunks: number, threads: number, ctx: SolveContext): Promise<ExactBest> {
-  const { runInWorker } = await import('../classical/threads/pool');
+  const { runInWorker } = loadPool();
   const deadlineMs = Date.now() + ctx.timeLimitSeconds * 1000;
   const jobs = Array.from({ length: threads }, (_, t) => {
     const mine: number[] = [];
@@ -215,7 +216,7 @@ export const milpSolver: SolverDefinition<MilpSettings> = {
       const short = createRunControl(ctx, Math.min(1, 0.05 * ctx.timeLimitSeconds));
       start = (await tabuMaxcut(problem, start, tabuMaxcutDefaults, rng, short)).side;
     }
-    const { runInWorker } = await import('../classical/threads/pool');
+    const { runInWorker } = loadPool();
     const remaining = Math.max(0.1, ctx.timeLimitSeconds - control.elapsed());
     const ticker = setInterval(() => ctx.onProgress?.({ fraction: control.fraction() }), 250);
     let run;

@@ -3,7 +3,7 @@
  * structured clone: typed arrays and strings), plain data out.
  */
 import type { Problem } from '../../problem/types';
-import type { SolveResult } from '../../solvers/types';
+import type { SolveResult, SolverDefinition } from '../../solvers/types';
 import { enumerateChunks, type ExactBest, type ExactPlan } from '../exact';
 import { buildMilp } from '../milp-model';
 import { runMilp, type MilpRunResult } from './milp-run';
@@ -19,11 +19,14 @@ export type ClassicalTaskResult<T extends ClassicalTask> = T extends { task: 'ex
     ? MilpRunResult
     : SolveResult;
 
-export async function runClassicalTask(t: ClassicalTask): Promise<unknown> {
+/** Finds a classical solver by name (given by the thread entry, so this file does not import the solvers that start it). */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export type ClassicalLookup = (name: string) => SolverDefinition<any> | undefined;
+
+export async function runClassicalTask(t: ClassicalTask, lookup: ClassicalLookup): Promise<unknown> {
   if (t.task === 'exact') return enumerateChunks(t.problem, t.plan, t.chunks, t.deadlineMs);
   if (t.task === 'milp') return runMilp(buildMilp(t.problem), { timeLimitSeconds: t.timeLimitSeconds, seed: t.seed, start: t.start });
-  const { classicalSolvers } = await import('../../solvers/classical');
-  const def = classicalSolvers.find((d) => d.name === t.solver);
+  const def = lookup(t.solver);
   if (!def) throw new Error(`no classical solver named "${t.solver}"`);
   const settings = def.parseSettings(t.settings);
   return def.solve(t.problem, settings, { seed: t.seed, timeLimitSeconds: t.timeLimitSeconds });
