@@ -81,12 +81,12 @@ afterAll(async () => {
 
 test('every listed solver succeeds on every question it answers, through the API and a worker process', async () => {
   const org = await orgWithTokens(t.deps, 'Deployed yard', 'team');
-  const { dispatcher, viewer } = org.tokens;
+  const { analyst, viewer } = org.tokens; // threads: 2 is an advanced setting (runs:advanced)
   const listed = await api<{ solvers: { name: string; kinds: string[] }[] }>(viewer, 'GET', '/solvers');
   expect(listed.status).toBe(200);
   expect(listed.body.solvers.length).toBeGreaterThan(0);
 
-  const saved = await api<{ versionId: number }>(dispatcher, 'POST', '/networks', {
+  const saved = await api<{ versionId: number }>(analyst, 'POST', '/networks', {
     name: 'Quillmere six', depots: IDS.map((id) => ({ id, name: `Depot ${id}` })), lanes: LANES.map(([from, to, weight]) => ({ from, to, weight })),
   });
   expect(saved.status).toBe(201);
@@ -104,7 +104,7 @@ test('every listed solver succeeds on every question it answers, through the API
   for (const [kind, problem] of Object.entries(problems)) {
     const entries = listed.body.solvers.filter((s) => s.kinds.includes(kind)).map((s) => ({ solver: s.name, settings: hasThreads(s.name) ? { threads: 2 } : {} }));
     for (let i = 0; i < entries.length; i += 8) { // at most 8 solvers per run
-      const created = await api<{ id: number; status: string }>(dispatcher, 'POST', '/runs', { versionId: saved.body.versionId, problem, solvers: entries.slice(i, i + 8), timeLimitSeconds: 1 });
+      const created = await api<{ id: number; status: string }>(analyst, 'POST', '/runs', { versionId: saved.body.versionId, problem, solvers: entries.slice(i, i + 8), timeLimitSeconds: 1 });
       expect({ kind, status: created.status, body: created.body }).toMatchObject({ status: 201, body: { status: 'queued' } });
       runIds.push(created.body.id);
     }
