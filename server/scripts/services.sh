@@ -58,6 +58,20 @@ ensure_node_modules() {
 
 export PATH="$PATH:/usr/sbin:/sbin"
 
+# Runs a long-lived service without the caller's open files beyond stdin/out/err. A caller that
+# holds a lock through an open file (flock /work/services.lock …) would otherwise pass that file
+# to MariaDB and Redis, which outlive the caller and keep the lock held for everyone.
+# Started in the background (one process: the subshell closes the files, then becomes the service).
+detached() {
+  (
+    for fd in /proc/$BASHPID/fd/*; do
+      fd="${fd##*/}"
+      if [ "$fd" -gt 2 ] 2>/dev/null; then eval "exec $fd>&-" 2>/dev/null || true; fi
+    done
+    exec "$@"
+  ) &
+}
+
 start_mariadb() {
   local dir="$DATA_DIR/mariadb" sock="$RUN_DIR/mariadb.sock" pidf="$RUN_DIR/mariadb.pid"
   local admin=(mariadb-admin --no-defaults -S "$sock" -uroot)
@@ -70,10 +84,13 @@ start_mariadb() {
       --auth-root-authentication-method=socket >"$RUN_DIR/mariadb-install.log" 2>&1 \
       || { rm -rf "$dir"; fail "mariadb-install-db failed (see $RUN_DIR/mariadb-install.log)"; }
   fi
-  mariadbd --no-defaults --datadir="$dir" --socket="$sock" --pid-file="$pidf" --port="$DB_PORT" \
+  # max_allowed_packet: the largest networks inside the import limits are stored as one JSON
+  # document of up to about 30 MB (README "Limits"); MariaDB's default of 16 MB is too small.
+  detached mariadbd --no-defaults --datadir="$dir" --socket="$sock" --pid-file="$pidf" --port="$DB_PORT" \
+    --max-allowed-packet=64M \
     --bind-address=127.0.0.1 --skip-name-resolve --user=root --innodb-buffer-pool-size=64M \
     --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
-    --log-error="$RUN_DIR/mariadbd.err" >/dev/null 2>&1 &
+    --log-error="$RUN_DIR/mariadbd.err" >/dev/null 2>&1
   local i
   for i in $(seq 1 100); do
     "${admin[@]}" ping >/dev/null 2>&1 && break
@@ -107,9 +124,8 @@ start_redis() {
   fi
   rm -f "$dir/redis.pid"
   port_busy "$REDIS_PORT" && fail "port $REDIS_PORT (Redis) is in use by another program; stop it or set REDIS_PORT"
-  redis-server --bind 127.0.0.1 --port "$REDIS_PORT" --save '' --appendonly no --dir "$dir" \
-    --daemonize yes --pidfile "$dir/redis.pid" --logfile "$dir/redis.log" >/dev/null \
-    || fail "redis-server failed to start (see ${dir#$ROOT/}/redis.log)"
+  detached redis-server --bind 127.0.0.1 --port "$REDIS_PORT" --save '' --appendonly no --dir "$dir" \
+    --daemonize yes --pidfile "$dir/redis.pid" --logfile "$dir/redis.log" >/dev/null
   for _ in $(seq 1 50); do redis-cli -p "$REDIS_PORT" ping 2>/dev/null | grep -q PONG && break; sleep 0.1; done
   redis-cli -p "$REDIS_PORT" ping 2>/dev/null | grep -q PONG || fail "Redis did not answer within 5 s (see ${dir#$ROOT/}/redis.log)"
   say "Redis up on 127.0.0.1:$REDIS_PORT"

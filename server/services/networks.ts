@@ -8,7 +8,9 @@ import { compareNetworks } from '../../shared/networks/compare';
 import type {
   NetworkDetail, NetworkListItem, NetworkListQuery, NetworkSummary, VersionComparison, VersionDetail, VersionInfo, VersionSource,
 } from '../../shared/schemas/networks';
+import { VERSION_NOTE_MAX } from '../../shared/schemas/networks';
 import type { NetworkRow } from '../models/network';
+import { assertStorable } from './db-limits';
 import type { NetworkVersionRow } from '../models/network-version';
 
 /** Who is acting: the organisation every query is scoped to, and the user for created_by. */
@@ -105,17 +107,30 @@ function listItem(n: NetworkRow): NetworkListItem {
 
 const live = (organisationId: number, id?: number): WhereOptions<NetworkRow> => ({ organisationId, deletedAt: null, ...(id !== undefined ? { id } : {}) });
 
+/**
+ * Notes are descriptions ("imported <file name>"), so a long one is shortened to the column's
+ * size rather than refused (a 299-character upload name used to end the import in a 500).
+ * Counted in code points, so a pair of UTF-16 surrogates is never split.
+ */
+function clipNote(note: string | null | undefined): string | null {
+  if (!note) return null;
+  const points = Array.from(note);
+  return points.length <= VERSION_NOTE_MAX ? note : `${points.slice(0, VERSION_NOTE_MAX - 1).join('')}…`;
+}
+
 /** Writes the next version of a network inside the caller's transaction (row lock → numbering). */
 async function writeVersion(deps: Deps, actor: Actor, network: NetworkRow, doc: NetworkDocument, opts: SaveOptions, transaction: import('sequelize').Transaction) {
   const { Network, NetworkVersion } = deps.models;
   const s = summariseNetwork(doc);
   const number = network.latestNumber + 1;
+  const json = JSON.stringify(doc);
+  await assertStorable(deps.db, json, `This network (${s.depots} depots, ${s.lanes} lanes)`);
   const version = await NetworkVersion.create(
     {
-      networkId: network.id, organisationId: actor.organisationId, number, document: JSON.stringify(doc),
+      networkId: network.id, organisationId: actor.organisationId, number, document: json,
       depotCount: s.depots, laneCount: s.lanes, totalVolume: s.totalVolume, componentCount: s.components,
       minDegree: s.minDegree, maxDegree: s.maxDegree, hasCoordinates: s.hasCoordinates,
-      source: opts.source, note: opts.note ?? null, createdBy: actor.userId,
+      source: opts.source, note: clipNote(opts.note), createdBy: actor.userId,
     },
     { transaction },
   );

@@ -14,6 +14,7 @@ import {
 import type { RunRow } from '../models/run';
 import type { RunJobRow } from '../models/run-job';
 import { getVersionDocument } from './networks';
+import { writeCsvTable } from '../../shared/formats/csv-cells';
 import { assertQueueUp, enqueueJobs, removeEntries, requestCancel, type SolveJobData } from './queue';
 import { loadRunsConfig } from './queue-config';
 import { refreshRunStatus } from './runs-status';
@@ -444,17 +445,14 @@ function pickJob(view: RunView, jobId?: number): JobView {
   return pool.reduce((best, j) => ((max ? j.result!.value > best.result!.value : j.result!.value < best.result!.value) ? j : best));
 }
 
-const csvCell = (s: string): string => (/[",\n\r]/.test(s) || /^[=+\-@]/.test(s) ? `"${(/^[=+\-@]/.test(s) ? `'${s}` : s).replace(/"/g, '""')}"` : s);
-
 /** CSV: depot id, name, side (max-cut, bisection) or region (k-way) of the chosen job. */
 export async function assignmentCsv(deps: RunServiceDeps, organisationId: number, id: number, jobId?: number): Promise<{ fileName: string; body: string }> {
   const view = await getRun(deps, organisationId, id);
   const job = pickJob(view, jobId);
   const document = await getVersionDocument(deps as Deps, organisationId, view.versionId);
   const column = view.problem.kind === 'kway' ? 'region' : 'side';
-  const lines = [`depot_id,depot_name,${column}`];
-  document.depots.forEach((d, i) => lines.push([csvCell(d.id), csvCell(d.name ?? ''), String(job.result!.assignment[i])].join(',')));
-  return { fileName: `run-${id}-${job.solver}.csv`, body: lines.join('\r\n') + '\r\n' };
+  const rows = document.depots.map((d, i) => [d.id, d.name, job.result!.assignment[i]]);
+  return { fileName: `run-${id}-${job.solver}.csv`, body: writeCsvTable(['depot_id', 'depot_name', column], rows, '\r\n') };
 }
 
 /** JSON report: the run, every job with its checked result, and which answer is best. */

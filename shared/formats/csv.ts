@@ -1,5 +1,6 @@
 import Papa from 'papaparse';
 import type { Depot, NetworkDocument } from '../engine/network/types';
+import { restoreCsvText, writeCsvTable } from './csv-cells';
 import { emptyResult, finishNetwork, readNumber, sizeIssue, type DraftNetwork } from './finish';
 import type { FormatIssue, ParseResult, SourcePosition } from './types';
 
@@ -32,7 +33,8 @@ function readRows(file: CsvFile, issues: FormatIssue[]): CsvRow[] {
       const end = result.meta.cursor;
       const e = result.errors[0];
       if (e) issues.push({ ...(file.name ? { file: file.name } : {}), line, severity: 'error', message: `${e.message.replace(/\.$/, '')}; close the quote or remove it` });
-      const cells = result.data;
+      // Undo the export's formula guard (csv-cells.ts), so an exported file reads back the same.
+      const cells = result.data.map(restoreCsvText);
       if (!(cells.length === 1 && cells[0].trim() === '') && result.errors.length === 0) rows.push({ cells, line });
       for (let i = start; i < end && i < text.length; i++) if (text.charCodeAt(i) === 10) line++;
       start = end;
@@ -53,6 +55,25 @@ function headerDelimiter(text: string): string {
     if (count > bestCount) { best = d; bestCount = count; }
   }
   return best;
+}
+
+/**
+ * A row with more non-empty fields than the header has columns: the fields no longer line up, so
+ * the row is refused rather than read from the wrong columns. The usual cause is a decimal comma
+ * (`CV06,CV07,1,5` meant volume 1.5), so that case gets its own fix.
+ */
+function extraFieldsProblem(row: CsvRow, header: CsvRow, numberColumn: number | undefined): string | null {
+  const width = header.cells.length;
+  if (row.cells.length <= width || row.cells.slice(width).every((c) => c.trim() === '')) return null;
+  const used = row.cells.length - [...row.cells].reverse().findIndex((c) => c.trim() !== '');
+  const base = `the row has ${used} fields but the header has ${width} (${header.cells.join(',')})`;
+  if (numberColumn !== undefined && numberColumn === width - 1 && used === width + 1) {
+    const [whole, fraction] = [row.cells[width - 1].trim(), row.cells[width].trim()];
+    if (/^[+-]?\d+$/.test(whole) && /^\d+$/.test(fraction)) {
+      return `${base}: "${whole},${fraction}" looks like a number written with a decimal comma; write ${whole}.${fraction}`;
+    }
+  }
+  return `${base}; remove the extra fields, or put quotes around a value that contains the delimiter`;
 }
 
 /** Maps header names (case-insensitive, trimmed) to column indices; warns about the rest. */
@@ -99,6 +120,11 @@ export function parseCsvNetwork(lanesFile: CsvFile, depotsFile?: CsvFile): Parse
     const cell = (name: string) => (row.cells[laneCols.get(name)!] ?? '').trim();
     const from = cell('from'), to = cell('to');
     const here = pos(lanesFile, row.line);
+    const extra = extraFieldsProblem(row, laneRows[0], laneCols.get('weight'));
+    if (extra) {
+      issues.push({ ...here, where: 'lanes', severity: 'error', message: extra });
+      continue;
+    }
     if (from === '' || to === '') {
       issues.push({ ...here, where: 'lanes', severity: 'error', message: `the lane needs both "from" and "to" depot ids (found "${from}" and "${to}"); fill them in or remove the row` });
       continue;
@@ -123,6 +149,11 @@ export function parseCsvNetwork(lanesFile: CsvFile, depotsFile?: CsvFile): Parse
     for (const row of depotRows.slice(1)) {
       const cell = (name: string) => (cols.has(name) ? (row.cells[cols.get(name)!] ?? '').trim() : '');
       const here = pos(depotsFile, row.line);
+      const extra = extraFieldsProblem(row, depotRows[0], cols.get('weight'));
+      if (extra) {
+        issues.push({ ...here, where: 'depots', severity: 'error', message: extra });
+        continue;
+      }
       const depot: Depot = { id: cell('id') };
       if (cell('name') !== '') depot.name = cell('name');
       let ok = true;
@@ -150,15 +181,12 @@ export function parseCsvNetwork(lanesFile: CsvFile, depotsFile?: CsvFile): Parse
   return finishNetwork(draft, issues, { rejectNegativeWeights: true, weightWord: 'volume' });
 }
 
-/** Lanes as CSV with header from,to,weight. */
+/** Lanes as CSV with header from,to,weight (text cells guarded against formulas: csv-cells.ts). */
 export function writeLanesCsv(doc: NetworkDocument): string {
-  if (doc.lanes.length === 0) return `${LANE_COLUMNS.join(',')}\n`; // unparse drops the header of an empty table
-  return Papa.unparse({ fields: [...LANE_COLUMNS], data: doc.lanes.map((l) => [l.from, l.to, l.weight]) }, { newline: '\n' }) + '\n';
+  return writeCsvTable(LANE_COLUMNS, doc.lanes.map((l) => [l.from, l.to, l.weight]));
 }
 
 /** Depots as CSV with header id,name,lat,lon,weight (empty cells for absent fields). */
 export function writeDepotsCsv(doc: NetworkDocument): string {
-  const cell = (v: string | number | undefined) => (v === undefined ? '' : v);
-  if (doc.depots.length === 0) return `${DEPOT_COLUMNS.join(',')}\n`;
-  return Papa.unparse({ fields: [...DEPOT_COLUMNS], data: doc.depots.map((d) => [d.id, cell(d.name), cell(d.lat), cell(d.lon), cell(d.weight)]) }, { newline: '\n' }) + '\n';
+  return writeCsvTable(DEPOT_COLUMNS, doc.depots.map((d) => [d.id, d.name, d.lat, d.lon, d.weight]));
 }

@@ -14,6 +14,7 @@ export * from './types';
 export { detectFormat, FORMAT_EXTENSIONS } from './detect';
 export { parseEdgeList, writeEdgeList } from './edgelist';
 export { parseCsvNetwork, writeLanesCsv, writeDepotsCsv, LANE_COLUMNS, DEPOT_COLUMNS, type CsvFile } from './csv';
+export { writeCsvTable, neutraliseCsvText, restoreCsvText, type CsvValue } from './csv-cells';
 export { parseNetworkJson, writeNetworkJson, NETWORK_FORMAT_TAG, NETWORK_FORMAT_VERSION } from './json';
 export { parseGraphml, writeGraphml, GRAPHML_NAME_CANDIDATES, type GraphmlMapping } from './graphml';
 export { parseGeojson, writeGeojson } from './geojson';

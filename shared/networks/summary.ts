@@ -41,6 +41,8 @@ export function summariseNetwork(doc: NetworkDocument): NetworkSummary {
   }
   const hasCoordinates = n > 0 && doc.depots.every((d) => Number.isFinite(d.lat) && Number.isFinite(d.lon));
   // Round away float noise from summing decimals (12.1 + 7.2 …) so lists show clean figures.
-  totalVolume = Math.round(totalVolume * 1e9) / 1e9;
+  // Only where ×1e9 stays exact: beyond 1e6 there is no such noise to remove, and ×1e9 of a
+  // very large total would overflow to Infinity (a lane of 1e300 did, and the save failed).
+  if (Math.abs(totalVolume) < 1e6) totalVolume = Math.round(totalVolume * 1e9) / 1e9;
   return { depots: n, lanes: doc.lanes.length, totalVolume, components, minDegree, maxDegree, hasCoordinates };
 }

@@ -11,6 +11,8 @@ import { MAX_DEPOTS, MAX_LANES } from '../formats/types';
 
 export const DEPOT_ID_MAX = 120;
 export const NETWORK_NAME_MAX = 160;
+/** Characters of a version note (the column's size; longer notes from imports are shortened). */
+export const VERSION_NOTE_MAX = 300;
 
 const finite = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be a finite number`);
 
@@ -41,7 +43,7 @@ export const NetworkBodySchema = z.object({
   depots: z.array(DepotInputSchema).min(1, 'a network needs at least one depot').max(MAX_DEPOTS, `a network holds at most ${MAX_DEPOTS} depots`),
   lanes: z.array(LaneInputSchema).max(MAX_LANES, `a network holds at most ${MAX_LANES} lanes`),
   /** Optional note shown in the version list ("moved depot 7", "imported lanes.csv"). */
-  note: z.string().trim().max(300).optional(),
+  note: z.string().trim().max(VERSION_NOTE_MAX, `keep the note to ${VERSION_NOTE_MAX} characters`).optional(),
 });
 export type NetworkBody = z.infer<typeof NetworkBodySchema>;
 

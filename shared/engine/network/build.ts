@@ -8,6 +8,35 @@ export class NetworkError extends Error {
   }
 }
 
+/**
+ * Totals must stay finite: cut values, balance limits and stored summaries add weights up, and a
+ * sum past the largest double (about 1.8e308) becomes Infinity, which neither the solvers nor the
+ * database can use. Reported at the row where the running sum of magnitudes overflows.
+ */
+function totalsIssues(doc: NetworkDocument): NetworkIssue[] {
+  const out: NetworkIssue[] = [];
+  let lanes = 0, depots = 0;
+  for (let i = 0; i < doc.lanes.length; i++) {
+    const w = doc.lanes[i].weight;
+    if (typeof w !== 'number' || !Number.isFinite(w)) continue;
+    lanes += Math.abs(w);
+    if (!Number.isFinite(lanes)) {
+      out.push({ where: 'lanes', row: i + 1, message: `the lane weights up to this lane add up to more than ${Number.MAX_VALUE.toPrecision(2)}, the largest number that can be stored; use a larger unit (thousands of tonnes instead of tonnes, say)` });
+      break;
+    }
+  }
+  for (let i = 0; i < doc.depots.length; i++) {
+    const w = doc.depots[i].weight;
+    if (typeof w !== 'number' || !Number.isFinite(w)) continue;
+    depots += Math.abs(w);
+    if (!Number.isFinite(depots)) {
+      out.push({ where: 'depots', row: i + 1, message: `the depot weights up to this depot add up to more than ${Number.MAX_VALUE.toPrecision(2)}, the largest number that can be stored; use a larger unit` });
+      break;
+    }
+  }
+  return out;
+}
+
 /** Problems in a document without throwing (previews show them all at once). */
 export function checkNetwork(doc: NetworkDocument): NetworkIssue[] {
   const issues: NetworkIssue[] = [];
@@ -37,6 +66,7 @@ export function checkNetwork(doc: NetworkDocument): NetworkIssue[] {
     if (l.from === l.to) issues.push({ where: 'lanes', row, message: `lane joins depot "${l.from}" to itself; self-loops carry no split information, remove it` });
     if (typeof l.weight !== 'number' || !Number.isFinite(l.weight)) issues.push({ where: 'lanes', row, message: `lane ${l.from}–${l.to} has weight ${String(l.weight)}; use a finite number` });
   });
+  issues.push(...totalsIssues(doc));
   return issues;
 }
 

@@ -34,11 +34,12 @@ describe('CSV lanes file', () => {
     const text = 'from,to,weight\n"Depot\nwith newline",B,1\n\nB,C,abc\nC,D,12,5\nD,A,-4\n';
     const { document, issues } = parseCsvNetwork(lanes(text));
     const errors = issues.filter((i) => i.severity === 'error');
-    expect(errors.map((e) => e.line)).toEqual([5, 7]);
+    expect(errors.map((e) => e.line)).toEqual([5, 6, 7]);
     expect(errors[0].message).toBe('weight "abc" is not a number; use a number such as 12.5');
-    expect(errors[1].message).toContain('volume -4');
-    // "C,D,12,5" is four cells: the weight is 12 and the extra cell falls outside the header.
-    expect(document.lanes.map((l) => l.weight)).toEqual([1, 12]);
+    // "C,D,12,5" is four cells: a decimal comma, refused with its fix (not read as volume 12).
+    expect(errors[1].message).toContain('write 12.5');
+    expect(errors[2].message).toContain('volume -4');
+    expect(document.lanes.map((l) => l.weight)).toEqual([1]);
   });
 
   test('a decimal comma (semicolon-separated files) gets a specific fix', () => {
