@@ -5,10 +5,12 @@
  * runs on every question it answers, on a small network, with `threads: 2` where the solver has
  * that setting; every job must succeed. In-process tests load TypeScript through jest and missed
  * that milp and multi-threaded solvers could not load their worker threads under tsx.
- * Nothing a member receives may contain file paths or stack text.
+ * Nothing a member receives may contain file paths or stack text. The run assignment CSV, as a
+ * member downloads it, neutralises formula cells (the same helper as the network exports).
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
+import Papa from 'papaparse';
 import { getSolver } from '../../shared/engine/solvers/registry';
 import type { RunView } from '../../shared/schemas/runs';
 import { applyRunsEnv, createTestApp, orgWithTokens, startWorkerChild, waitFor, ROOT, type TestApp, type WorkerChild } from './runs-support';
@@ -125,4 +127,24 @@ test('every listed solver succeeds on every question it answers, through the API
   const exactOnes = listed.body.solvers.filter((s) => getSolver(s.name).family === 'exact').map((s) => s.name);
   expect(jobs.filter((j) => j.kind === 'maxcut' && exactOnes.includes(j.solver)).map((j) => [j.solver, j.value])).toEqual(exactOnes.map((n) => [n, MAXCUT_OPTIMUM]));
   expect(received.filter((text) => LEAK.test(text))).toEqual([]);
+});
+
+test('the run assignment CSV neutralises formula cells, TAB and CR included', async () => {
+  const org = await orgWithTokens(t.deps, 'Formula yard', 'team');
+  const { dispatcher, viewer } = org.tokens;
+  // Spinyard JSON keeps names as written (the API and CSV trim them), so TAB and CR can lead.
+  const names = ['=1+1', '+North', '-Sorrowby', '@Tarnwyth', '\tTab yard', '\rReturn yard'];
+  const doc = { format: 'spinyard-network', version: 1, depots: IDS.map((id, i) => ({ id, name: names[i] })), lanes: LANES.map(([from, to, weight]) => ({ from, to, weight })) };
+  const form = new FormData();
+  form.append('file', new Blob([JSON.stringify(doc)], { type: 'application/json' }), 'formula-yard.json');
+  const imported = await fetch(`${BASE}/networks/import`, { method: 'POST', headers: { Authorization: `Bearer ${dispatcher}` }, body: form });
+  const saved = (await imported.json()) as { versionId: number };
+  expect(imported.status).toBe(201);
+  const created = await api<{ id: number }>(dispatcher, 'POST', '/runs', { versionId: saved.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 1 });
+  expect(created.status).toBe(201);
+  await waitFor('the run to finish', async () => (await api<RunView>(viewer, 'GET', `/runs/${created.body.id}`)).body.status === 'succeeded', 120_000, 500);
+  const csv = await (await fetch(`${BASE}/runs/${created.body.id}/assignment.csv`, { headers: { Authorization: `Bearer ${viewer}` } })).text();
+  const rows = Papa.parse<string[]>(csv, { skipEmptyLines: true }).data.slice(1);
+  expect(rows.map((r) => r[1])).toEqual(names.map((n) => `'${n}`));
+  expect(rows.flatMap((r) => r.slice(0, 2)).filter((c) => /^[=+\-@\t\r]/.test(c))).toEqual([]);
 });
