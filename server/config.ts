@@ -1,5 +1,8 @@
 import { z } from 'zod';
 
+/** The local payment fake's signing secret: anyone can read it here, so production refuses it. */
+export const DEV_WEBHOOK_SECRET = 'whsec_spinyard_local_fake';
+
 /** Every setting the server reads, validated once at start-up (README lists them). */
 const ConfigSchema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -19,7 +22,7 @@ const ConfigSchema = z.object({
   WEB_DIR: z.string().optional(),
   // Payments through the official SDK; defaults point at the local fake (server/fakes/payments), see docs/billing.md.
   STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_\S+$/, 'must start with sk_test_ or sk_live_').default('sk_test_spinyard_local_fake'),
-  STRIPE_WEBHOOK_SECRET: z.string().min(8).default('whsec_spinyard_local_fake'),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).default(DEV_WEBHOOK_SECRET),
   STRIPE_API_HOST: z.string().default('127.0.0.1'),
   /** Unset = the local fake's port (PAYMENTS_PORT). */
   STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
@@ -41,6 +44,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const c = parsed.data;
   if (c.NODE_ENV === 'production' && c.SESSION_SECRET.startsWith('spinyard-dev')) {
     throw new ConfigError('SESSION_SECRET: set a secret of your own in production');
+  }
+  // With the published development secret anyone could sign payment events that credit money.
+  if (c.NODE_ENV === 'production' && c.STRIPE_WEBHOOK_SECRET === DEV_WEBHOOK_SECRET) {
+    throw new ConfigError("STRIPE_WEBHOOK_SECRET: set your webhook endpoint's signing secret in production (the development secret is public)");
   }
   return { ...c, publicUrl: c.PUBLIC_URL ?? `http://${c.HOST}:${c.PORT}` };
 }

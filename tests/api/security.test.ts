@@ -144,7 +144,7 @@ describe('session cookie and CSRF', () => {
   test('in production the cookie is also Secure (behind the one trusted proxy that terminates TLS)', async () => {
     const { loadConfig } = await import('../../server/config');
     const { createApp } = await import('../../server/app');
-    const config = loadConfig({ ...process.env, NODE_ENV: 'production', SESSION_SECRET: 'a-production-secret-for-this-test-only' });
+    const config = loadConfig({ ...process.env, NODE_ENV: 'production', SESSION_SECRET: 'a-production-secret-for-this-test-only', STRIPE_WEBHOOK_SECRET: 'whsec_production_secret_for_this_test' });
     const { app, dispose } = createApp({ ...t.deps, config });
     const res = await request(app).get('/api/auth/csrf').set('x-forwarded-proto', 'https');
     dispose();

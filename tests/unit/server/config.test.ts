@@ -15,6 +15,12 @@ describe('configuration', () => {
   });
   test('production refuses the development session secret', () => {
     expect(() => loadConfig({ NODE_ENV: 'production' })).toThrow(/SESSION_SECRET/);
-    expect(loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'a-long-enough-real-secret' }).NODE_ENV).toBe('production');
+    expect(loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'a-long-enough-real-secret', STRIPE_WEBHOOK_SECRET: 'whsec_a_real_endpoint_secret' }).NODE_ENV).toBe('production');
+  });
+  test('production refuses the development webhook secret (anyone could sign payment events with it)', () => {
+    expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'a-long-enough-real-secret' })).toThrow(/STRIPE_WEBHOOK_SECRET/);
+    expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'a-long-enough-real-secret', STRIPE_WEBHOOK_SECRET: 'whsec_spinyard_local_fake' })).toThrow(ConfigError);
+    // Development and tests keep the local fake's secret.
+    expect(loadConfig({}).STRIPE_WEBHOOK_SECRET).toBe('whsec_spinyard_local_fake');
   });
 });
