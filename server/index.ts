@@ -5,11 +5,12 @@ import { createApp } from './app';
 import { migrate } from './migrate';
 import { databaseUp } from './db';
 import { serverExtras, afterStart } from './bootstrap';
+import { billingRunHooks } from './services/billing-run-hooks';
 
 /** Start the API server: validate config, wait for MariaDB, migrate, listen; stop cleanly on signals. */
 export async function startServer(opts: { seedDemo?: boolean } = {}): Promise<{ server: Server; deps: Deps; stop: () => Promise<void> }> {
   const config = loadConfig();
-  const deps = createDeps(config);
+  const deps = createDeps(config, { runHooks: billingRunHooks });
   const deadline = Date.now() + 20000;
   while (!(await databaseUp(deps.db))) {
     if (Date.now() > deadline) {

@@ -13,6 +13,8 @@ import { loadRunsConfig, type RunsConfig } from './services/queue-config';
 import { cancelChannel, closeSolveQueue, reconcileQueue, type SolveJobData } from './services/queue';
 import { CANCEL_GRACE_MS, createJobProcessor, markEntryFailed, workerName, type ProcessorEnv } from './workers/process-job';
 import { createThreadSlot } from './workers/thread-slot';
+import { billingRunHooks } from './services/billing-run-hooks';
+import { startQueueReconciler } from './services/queue-reconciler';
 
 export interface StartedWorker {
   deps: Deps;
@@ -39,7 +41,7 @@ async function waitForTables(deps: Deps, seconds: number): Promise<void> {
 export async function startWorker(): Promise<StartedWorker> {
   const config = loadConfig();
   const rc = loadRunsConfig();
-  const deps = createDeps(config);
+  const deps = createDeps(config, { runHooks: billingRunHooks });
   await waitForTables(deps, 60);
 
   const env: ProcessorEnv = {
@@ -78,9 +80,12 @@ export async function startWorker(): Promise<StartedWorker> {
   });
   await worker.waitUntilReady();
   await reconcileQueue(deps).catch((err) => deps.logger.warn({ err }, 'solve worker: reconcile failed'));
+  // Then every RUN_RECONCILE_MS: lost entries come back without waiting for a restart.
+  const reconciler = startQueueReconciler(deps, rc.RUN_RECONCILE_MS);
   deps.logger.info({ queue: rc.RUN_QUEUE_NAME, concurrency: rc.WORKER_CONCURRENCY, worker: env.workerName }, 'solve worker ready');
 
   const stop = async () => {
+    await reconciler.stop();
     await worker.close();
     await Promise.allSettled(allSlots.map((s) => s.close()));
     subscriber.disconnect();

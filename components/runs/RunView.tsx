@@ -3,6 +3,7 @@ import { StyleSheet, View, useWindowDimensions, type LayoutChangeEvent } from 'r
 import { useRouter } from 'expo-router';
 import { senseOf } from '../../shared/engine/problem/types';
 import { can, type Role } from '../../shared/permissions';
+import { runSeconds } from '../../shared/schemas/runs';
 import { ConvergenceChart } from '../charts/ConvergenceChart';
 import { SampleHistogram } from '../charts/SampleHistogram';
 import { isLive, useRunCancelMutation, useRunQuery, useRunRetryMutation, useRunVersionQuery, useSolversQuery } from '../queries/runs';
@@ -121,7 +122,7 @@ export function RunView(props: { id: number; role: Role | null }) {
   const selected = r.jobs.find((j) => j.id === selectedId && j.result);
   const variational = r.jobs.filter((j) => (j.family === 'variational' || j.solver === 'qaoa' || j.solver === 'vqe') && (traces[j.id]?.length ?? 0) > 0);
   const chartFor = variational.find((j) => j.id === chartJob) ?? variational[0];
-  const overall = seconds(r.createdAt, r.finishedAt, now);
+  const overall = runSeconds(r, now); // from its release to the queue: waiting for payment is not run time
   const mayCancel = can(props.role, 'runs:cancel') && live;
   const mayRetry = can(props.role, 'runs:start') && !live && r.jobs.some((j) => j.status === 'failed' || j.status === 'cancelled');
 

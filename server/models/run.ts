@@ -19,6 +19,8 @@ export interface RunRow {
   seed: number;
   timeLimitSeconds: number;
   depotCount: number;
+  /** Last handed to the queue (creation, payment, retry); durations count from here (null: older rows, use createdAt). */
+  releasedAt: Date | null;
   finishedAt: Date | null;
   /** Set once when the "run finished" e-mail went out (guards against sending twice). */
   notifiedAt: Date | null;
@@ -45,6 +47,7 @@ export function defineRun(db: Sequelize): RunModel {
       seed: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
       timeLimitSeconds: { type: DataTypes.DOUBLE, allowNull: false },
       depotCount: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
+      releasedAt: { type: DataTypes.DATE, allowNull: true },
       finishedAt: { type: DataTypes.DATE, allowNull: true },
       notifiedAt: { type: DataTypes.DATE, allowNull: true },
       deletedAt: { type: DataTypes.DATE, allowNull: true },

@@ -11,6 +11,7 @@ import { paymentClient } from './billing-client';
 import { receiptNumber, sendReceipt } from './billing-receipts';
 import { applyRunCardPayment, refundFailedRuns, releasePaidRun } from './billing-runs';
 import { seatsInUse } from './invitations';
+import { parseBillingEvent, type EventIntent, type EventSession } from './billing-events';
 import { appendEntry, balanceOf, hasEntry, lockOrganisationRow } from './ledger';
 import { runsThisMonth } from './pricing';
 import { purchasedSeats } from './billing-seats';
@@ -115,15 +116,19 @@ export async function createCheckout(deps: Deps, actor: BillingActor, body: Chec
       },
       { idempotencyKey: `spinyard-checkout-${payment.id}` },
     );
-    if (!session.url || session.amount_total === null) throw new Error('no payment page in the answer');
+    if (!session.url) throw new Error('no payment page in the answer');
+    // Our row's amount is what we credit later; a session for another amount is not ours to offer.
+    if (session.amount_total !== payment.amount || (session.currency ?? '').toLowerCase() !== payment.currency) {
+      throw new Error(`the provider's session is for ${session.amount_total} ${session.currency}, our checkout for ${payment.amount} ${payment.currency}`);
+    }
   } catch (err) {
     deps.logger.warn({ err }, 'checkout session could not be created');
     await payment.update({ status: 'failed', failureMessage: 'The payment service did not answer.' });
     throw new HttpError(502, 'The payment service did not answer. Try again in a minute.', { code: 'payments_unavailable' });
   }
-  await payment.update({ providerSessionId: session.id, amount: session.amount_total! });
-  await recordAudit(deps, { organisationId: actor.organisationId, actorUserId: actor.userId, action: 'billing.checkout_started', targetType: 'payment', targetId: payment.id, detail: { purpose: body.purpose, amount: session.amount_total, runId: item.runId }, ip: actor.ip ?? null });
-  return { paymentId: payment.id, purpose: body.purpose, sessionId: session.id, url: session.url!, amount: session.amount_total!, currency: session.currency ?? CURRENCY };
+  await payment.update({ providerSessionId: session.id });
+  await recordAudit(deps, { organisationId: actor.organisationId, actorUserId: actor.userId, action: 'billing.checkout_started', targetType: 'payment', targetId: payment.id, detail: { purpose: body.purpose, amount: payment.amount, runId: item.runId }, ip: actor.ip ?? null });
+  return { paymentId: payment.id, purpose: body.purpose, sessionId: session.id, url: session.url, amount: payment.amount, currency: payment.currency };
 }
 
 /** Verify the SDK signature; 400 (nothing recorded) when it does not match. */
@@ -136,13 +141,27 @@ export function verifyWebhook(deps: Pick<Deps, 'config'>, rawBody: unknown, sign
   }
 }
 
-async function onCheckoutCompleted(deps: Deps, event: Stripe.Event, session: Stripe.Checkout.Session): Promise<string> {
+/**
+ * The amount credited is our checkout record's, never the event's: an event that states another
+ * amount or currency is refused (400 `amount_mismatch`), logged and audited, and credits nothing.
+ */
+async function refuseMismatch(deps: Deps, eventId: string, session: EventSession, payment: PaymentRow): Promise<void> {
+  const stated = { amount: session.amount_total ?? null, currency: (session.currency ?? '').toLowerCase() || null };
+  if (stated.amount === payment.amount && stated.currency === payment.currency) return;
+  const detail = { eventId, sessionId: session.id, stated, recorded: { amount: payment.amount, currency: payment.currency } };
+  deps.logger.error({ ...detail, paymentId: payment.id }, 'payment event refused: its amount differs from our checkout record');
+  await recordAudit(deps, { organisationId: payment.organisationId, actorUserId: null, action: 'billing.payment_event_refused', targetType: 'payment', targetId: payment.id, detail });
+  throw new HttpError(400, 'Webhook rejected: the amount in the event differs from the checkout it refers to.', { code: 'amount_mismatch' });
+}
+
+async function onCheckoutCompleted(deps: Deps, eventId: string, session: EventSession): Promise<string> {
   if (session.payment_status !== 'paid') return 'not paid yet';
   // By session id; else by our id in the metadata (if the row never got its session id saved).
   const byMeta = Number(session.metadata?.paymentId);
   const found = (await deps.models.Payment.findOne({ where: { providerSessionId: session.id } }))
     ?? (Number.isInteger(byMeta) && byMeta > 0 ? await deps.models.Payment.findOne({ where: { id: byMeta, organisationId: Number(session.metadata?.organisationId), status: 'open' } }) : null);
   if (!found) return 'unknown checkout';
+  await refuseMismatch(deps, eventId, session, found.get({ plain: true }) as PaymentRow);
   if (found.providerSessionId !== session.id) await found.update({ providerSessionId: session.id });
   let last4: string | null = null;
   const intentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
@@ -158,12 +177,12 @@ async function onCheckoutCompleted(deps: Deps, event: Stripe.Event, session: Str
     await lockOrganisationRow(deps, found.organisationId, transaction);
     const payment = (await deps.models.Payment.findByPk(found.id, { transaction, lock: transaction.LOCK.UPDATE }))!;
     if (payment.status === 'paid' || payment.status === 'refunded') return { outcome: 'duplicate', release: false };
-    const amount = session.amount_total ?? payment.amount;
-    await payment.update({ status: 'paid', paidAt: new Date(), providerPaymentIntent: intentId, cardLast4: last4, failureMessage: null, amount }, { transaction });
+    const amount = payment.amount;
+    await payment.update({ status: 'paid', paidAt: new Date(), providerPaymentIntent: intentId, cardLast4: last4, failureMessage: null }, { transaction });
     let release = false;
     if (payment.purpose === 'credits') {
       if (!(await hasEntry(deps, `checkout:${session.id}`, transaction))) {
-        await appendEntry(deps, { organisationId: payment.organisationId, kind: 'credit_purchase', amount, sourceKey: `checkout:${session.id}`, eventId: event.id, paymentId: payment.id, createdBy: payment.createdBy, note: `Receipt ${receiptNumber(payment.id)}` }, transaction);
+        await appendEntry(deps, { organisationId: payment.organisationId, kind: 'credit_purchase', amount, sourceKey: `checkout:${session.id}`, eventId, paymentId: payment.id, createdBy: payment.createdBy, note: `Receipt ${receiptNumber(payment.id)}` }, transaction);
       }
     } else if (payment.purpose === 'seats') {
       if ((await deps.models.SeatGrant.count({ where: { sourceKey: `checkout:${session.id}` }, transaction })) === 0) {
@@ -171,10 +190,10 @@ async function onCheckoutCompleted(deps: Deps, event: Stripe.Event, session: Str
       }
     } else if (payment.runId) {
       if (!(await hasEntry(deps, `checkout:${session.id}`, transaction))) {
-        release = await applyRunCardPayment(deps, { organisationId: payment.organisationId, runId: payment.runId, paymentId: payment.id, amount, sessionId: session.id, eventId: event.id, userId: payment.createdBy }, transaction);
+        release = await applyRunCardPayment(deps, { organisationId: payment.organisationId, runId: payment.runId, paymentId: payment.id, amount, sessionId: session.id, eventId, userId: payment.createdBy }, transaction);
       }
     }
-    await recordAudit(deps, { organisationId: payment.organisationId, actorUserId: payment.createdBy, action: 'billing.payment_succeeded', targetType: 'payment', targetId: payment.id, detail: { purpose: payment.purpose, amount, eventId: event.id } }, { transaction });
+    await recordAudit(deps, { organisationId: payment.organisationId, actorUserId: payment.createdBy, action: 'billing.payment_succeeded', targetType: 'payment', targetId: payment.id, detail: { purpose: payment.purpose, amount, eventId } }, { transaction });
     return { outcome: 'paid', release, runId: payment.runId };
   });
   if (result.release && result.runId) await releasePaidRun(deps, result.runId);
@@ -182,10 +201,10 @@ async function onCheckoutCompleted(deps: Deps, event: Stripe.Event, session: Str
   return result.outcome;
 }
 
-async function onPaymentFailed(deps: Deps, intent: Stripe.PaymentIntent): Promise<string> {
+async function onPaymentFailed(deps: Deps, intent: EventIntent): Promise<string> {
   const message = intent.last_payment_error?.message ?? 'The payment was refused.';
   const paymentId = Number(intent.metadata?.paymentId);
-  const payment = Number.isInteger(paymentId) && paymentId > 0 ? await deps.models.Payment.findOne({ where: { id: paymentId, organisationId: Number(intent.metadata.organisationId) } }) : null;
+  const payment = Number.isInteger(paymentId) && paymentId > 0 ? await deps.models.Payment.findOne({ where: { id: paymentId, organisationId: Number(intent.metadata?.organisationId) } }) : null;
   if (!payment) return 'unknown payment';
   // Events arrive in any order: the session's 'expired' event may come first for a declined card.
   if (payment.status !== 'open' && payment.status !== 'expired') return 'already settled';
@@ -195,30 +214,25 @@ async function onPaymentFailed(deps: Deps, intent: Stripe.PaymentIntent): Promis
   return 'failed';
 }
 
-async function onCheckoutExpired(deps: Deps, session: Stripe.Checkout.Session): Promise<string> {
+async function onCheckoutExpired(deps: Deps, session: EventSession): Promise<string> {
   const [n] = await deps.models.Payment.update({ status: 'expired' }, { where: { providerSessionId: session.id, status: 'open' } });
   return n ? 'expired' : 'nothing to do';
 }
 
 /** POST /api/billing/webhook — verify, then apply once (replays find the payment already settled). */
 export async function handleWebhook(deps: Deps, rawBody: unknown, signature: string | undefined): Promise<{ received: true; outcome: string }> {
-  const event = verifyWebhook(deps, rawBody, signature);
-  let outcome = 'ignored';
+  const event = parseBillingEvent(verifyWebhook(deps, rawBody, signature));
   switch (event.type) {
     case 'checkout.session.completed':
     case 'checkout.session.async_payment_succeeded':
-      outcome = await onCheckoutCompleted(deps, event, event.data.object as Stripe.Checkout.Session);
-      break;
+      return { received: true, outcome: await onCheckoutCompleted(deps, event.id, event.session) };
     case 'payment_intent.payment_failed':
-      outcome = await onPaymentFailed(deps, event.data.object as Stripe.PaymentIntent);
-      break;
+      return { received: true, outcome: await onPaymentFailed(deps, event.intent) };
     case 'checkout.session.expired':
-      outcome = await onCheckoutExpired(deps, event.data.object as Stripe.Checkout.Session);
-      break;
+      return { received: true, outcome: await onCheckoutExpired(deps, event.session) };
     default:
-      break;
+      return { received: true, outcome: 'ignored' };
   }
-  return { received: true, outcome };
 }
 
 export function assertPositiveCents(amount: number): void {

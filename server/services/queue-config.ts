@@ -22,6 +22,12 @@ const RunsConfigSchema = z.object({
   RUN_MAIL_AFTER_SECONDS: z.coerce.number().min(0).default(30),
   /** Minimum time between progress writes to the job row (pub/sub is every 200 ms). */
   RUN_PROGRESS_WRITE_MS: z.coerce.number().int().min(0).max(60_000).default(1000),
+  /**
+   * How often each worker process puts lost queue entries back (jobs queued in the database but
+   * missing from Redis: a failed enqueue after commit or after a payment, a Redis restart).
+   * At most 30 s, so a lost entry waits at most that long.
+   */
+  RUN_RECONCILE_MS: z.coerce.number().int().min(200).max(30_000).default(15_000),
   /** Default per-solver time limit when a run does not give one. */
   RUN_DEFAULT_SECONDS: z.coerce.number().positive().max(3600).default(10),
 });

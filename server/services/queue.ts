@@ -130,8 +130,9 @@ const LIVE_STATES = new Set(['waiting', 'active', 'delayed', 'prioritized', 'wai
 
 /**
  * Re-enqueue every queued or running job whose queue entry is missing (Redis restarted, an
- * enqueue after commit failed, an entry failed at queue level). Run by the API and by every
- * worker at start. Returns how many entries were added.
+ * enqueue after commit failed, an entry failed at queue level). Run by the API at start, and by
+ * every worker at start and then every RUN_RECONCILE_MS (queue-reconciler.ts). Returns how many
+ * entries were added.
  */
 export async function reconcileQueue(deps: Pick<Deps, 'redis' | 'models' | 'logger'>): Promise<number> {
   if (!(await queueAvailable(deps.redis))) throw new Error('Redis is not reachable');

@@ -1,5 +1,5 @@
 import type { Deps } from '../deps';
-import type { RunStatus } from '../../shared/schemas/runs';
+import { runSeconds, type RunStatus } from '../../shared/schemas/runs';
 
 export interface FinishedJobLine {
   solver: string;
@@ -56,7 +56,7 @@ export async function sendRunFinishedMail(deps: Pick<Deps, 'models' | 'mailer' |
     return { solver: j.get('solver') as string, status: j.get('status') as string, value: result?.value ?? null, gap: result?.gap ?? null, error: (j.get('error') as string | null) ?? null };
   });
   const finishedAt = (run.get('finishedAt') as Date | null) ?? new Date();
-  const seconds = (finishedAt.getTime() - (run.get('createdAt') as Date).getTime()) / 1000;
+  const seconds = runSeconds({ status: run.get('status') as RunStatus, createdAt: run.get('createdAt') as Date, releasedAt: run.get('releasedAt') as Date | null, finishedAt }, finishedAt.getTime()) ?? 0;
   const mail = runFinishedMail(deps.config.publicUrl, { id: runId, networkName: network ? (network.get('name') as string) : null, status: run.get('status') as RunStatus, seconds }, lines);
   await deps.mailer.send({ to: user.email, ...mail });
   return true;

@@ -1,8 +1,7 @@
 import type { Deps } from '../deps';
-import { deriveRunStatus, type JobStatus, type RunStatus } from '../../shared/schemas/runs';
+import { deriveRunStatus, runSeconds, type JobStatus, type RunStatus } from '../../shared/schemas/runs';
 import { loadRunsConfig } from './queue-config';
 import { sendRunFinishedMail } from './run-mail';
-import { refundFailedRun } from './billing-runs';
 
 const TERMINAL: RunStatus[] = ['succeeded', 'partial', 'failed', 'cancelled'];
 
@@ -12,7 +11,7 @@ const TERMINAL: RunStatus[] = ['succeeded', 'partial', 'failed', 'cancelled'];
  * finished and took longer than RUN_MAIL_AFTER_SECONDS, notified_at is set in the same
  * transaction and the creator gets one e-mail (the guard makes it exactly one).
  */
-export async function refreshRunStatus(deps: Pick<Deps, 'db' | 'models' | 'mailer' | 'config' | 'logger'>, runId: number): Promise<RunStatus | null> {
+export async function refreshRunStatus(deps: Pick<Deps, 'db' | 'models' | 'mailer' | 'config' | 'logger' | 'runHooks'>, runId: number): Promise<RunStatus | null> {
   const { Run, RunJob } = deps.models;
   const mailAfter = loadRunsConfig().RUN_MAIL_AFTER_SECONDS;
   let mailDue = false;
@@ -27,7 +26,7 @@ export async function refreshRunStatus(deps: Pick<Deps, 'db' | 'models' | 'maile
     if (done && !run.get('finishedAt')) changes.finishedAt = now;
     if (!done) changes.finishedAt = null;
     if (done && !run.get('notifiedAt') && !run.get('deletedAt') && run.get('createdBy')) {
-      const seconds = (now.getTime() - (run.get('createdAt') as Date).getTime()) / 1000;
+      const seconds = runSeconds({ status: next, createdAt: run.get('createdAt') as Date, releasedAt: run.get('releasedAt') as Date | null, finishedAt: now }, now.getTime()) ?? 0;
       if (seconds >= mailAfter) {
         changes.notifiedAt = now;
         mailDue = true;
@@ -43,12 +42,12 @@ export async function refreshRunStatus(deps: Pick<Deps, 'db' | 'models' | 'maile
       deps.logger.warn({ err, runId }, 'run-finished e-mail could not be sent');
     }
   }
-  if (status === 'failed') {
-    // Billing: a paid run that failed gets its price back (once; a no-op for free runs).
+  if (status && TERMINAL.includes(status)) {
+    // Billing decides what a finished run means for its price (refund-rule.ts); a no-op for free runs.
     try {
-      await refundFailedRun(deps, runId);
+      await deps.runHooks.runFinished(runId, status);
     } catch (err) {
-      deps.logger.warn({ err, runId }, 'refund of a failed paid run did not go through; the billing page retries it');
+      deps.logger.warn({ err, runId }, 'billing after a finished run did not go through; the billing page retries refunds');
     }
   }
   return status;

@@ -19,7 +19,6 @@ import { assertQueueUp, enqueueJobs, removeEntries, requestCancel, type SolveJob
 import { loadRunsConfig } from './queue-config';
 import { refreshRunStatus } from './runs-status';
 import { quoteRun } from './pricing';
-import { recordRunCharge } from './billing-runs';
 
 type Registry = typeof import('../../shared/engine/solvers/registry');
 type Orchestrate = typeof import('../../shared/engine/solvers/orchestrate');
@@ -34,7 +33,7 @@ export interface RunActor {
   role: Role | null;
 }
 
-export type RunServiceDeps = Pick<Deps, 'db' | 'models' | 'redis' | 'mailer' | 'config' | 'logger'>;
+export type RunServiceDeps = Pick<Deps, 'db' | 'models' | 'redis' | 'mailer' | 'config' | 'logger' | 'runHooks'>;
 
 /** Solvers that simulate fewer qubits than the direct encoding (decomposition) say how many. */
 interface QubitAware {
@@ -202,7 +201,7 @@ export async function createRun(deps: RunServiceDeps, actor: RunActor, body: Cre
     const run = await deps.models.Run.create(
       {
         organisationId: actor.organisationId, networkId, versionId: body.versionId, createdBy: actor.userId, problem: JSON.stringify(body.problem),
-        status: held ? 'awaiting_payment' : 'queued', held, priority: price ? Math.min(limits.priority, runLimits(ceiling).priority) : limits.priority, seed: body.seed ?? 1, timeLimitSeconds: seconds, depotCount: problem.network.n,
+        status: held ? 'awaiting_payment' : 'queued', held, releasedAt: held ? null : now, priority: price ? Math.min(limits.priority, runLimits(ceiling).priority) : limits.priority, seed: body.seed ?? 1, timeLimitSeconds: seconds, depotCount: problem.network.n,
       },
       { transaction },
     );
@@ -213,7 +212,7 @@ export async function createRun(deps: RunServiceDeps, actor: RunActor, body: Cre
       })),
       { transaction },
     );
-    if (price) await recordRunCharge(deps, { runId, organisationId: actor.organisationId, price }, transaction);
+    if (price) await deps.runHooks.recordCharge({ runId, organisationId: actor.organisationId, price }, transaction);
     return { run, jobs };
   });
   const runId = run.get('id') as number;
@@ -222,7 +221,7 @@ export async function createRun(deps: RunServiceDeps, actor: RunActor, body: Cre
     try {
       await enqueueJobs(deps, entries, limits.priority);
     } catch (err) {
-      deps.logger.warn({ err, runId }, 'enqueue after commit failed; the reconciler will add the jobs');
+      deps.logger.warn({ err, runId }, "enqueue after commit failed; the workers' periodic reconciler will add the jobs");
     }
   }
   return { id: runId, status: held ? 'awaiting_payment' : 'queued', price };
@@ -230,7 +229,7 @@ export async function createRun(deps: RunServiceDeps, actor: RunActor, body: Cre
 
 /** Put a held run's jobs on the queue (billing calls this once payment is through). */
 export async function releaseRun(deps: RunServiceDeps, runId: number): Promise<boolean> {
-  const [changed] = await deps.models.Run.update({ held: false }, { where: { id: runId, held: true, deletedAt: null } });
+  const [changed] = await deps.models.Run.update({ held: false, releasedAt: new Date() }, { where: { id: runId, held: true, deletedAt: null } });
   if (!changed) return false;
   const run = (await deps.models.Run.findByPk(runId))!;
   const jobs = await deps.models.RunJob.findAll({ where: { runId, status: 'queued' } });
@@ -348,6 +347,7 @@ export async function getRun(deps: RunServiceDeps, organisationId: number, id: n
     seed: run.seed,
     createdBy: run.createdBy,
     createdAt: iso(run.createdAt)!,
+    releasedAt: iso(run.releasedAt),
     finishedAt: iso(run.finishedAt),
     jobs: jobs.map((j) => jobView(j.get({ plain: true }) as RunJobRow)),
   };
@@ -397,22 +397,32 @@ export async function cancelRun(deps: RunServiceDeps, organisationId: number, id
   return getRun(deps, organisationId, id);
 }
 
-/** Retry the failed and cancelled jobs of a run (each becomes a new generation on the queue). */
+/**
+ * Retry the failed and cancelled jobs of a run (each becomes a new generation on the queue). A
+ * run whose price was given back must be paid again first (billing's rerunNeedsPayment): it stays
+ * held, awaiting payment, with its jobs queued behind the payment.
+ */
 export async function retryRun(deps: RunServiceDeps, organisationId: number, id: number): Promise<RunView> {
-  const run = await findRun(deps, organisationId, id);
+  await findRun(deps, organisationId, id);
   await assertQueueUp(deps.redis);
-  const jobs = (await deps.models.RunJob.findAll({ where: { runId: id, status: ['failed', 'cancelled'] } })).map((j) => j.get({ plain: true }) as RunJobRow);
-  if (jobs.length === 0) throw conflict('Nothing to retry: no job of this run failed or was cancelled.');
-  const entries: SolveJobData[] = [];
-  for (const j of jobs) {
-    const [changed] = await deps.models.RunJob.update(
-      { status: 'queued', generation: j.generation + 1, progress: 0, live: null, result: null, error: null, startedAt: null, finishedAt: null, queuedAt: new Date(), worker: null },
-      { where: { id: j.id, status: j.status, generation: j.generation } },
-    );
-    if (changed) entries.push({ jobId: j.id, runId: id, organisationId, generation: j.generation + 1 });
-  }
+  const { entries, held, priority } = await deps.db.transaction(async (transaction) => {
+    const run = (await deps.models.Run.findOne({ where: { id, organisationId, deletedAt: null }, lock: transaction.LOCK.UPDATE, transaction }))!;
+    const jobs = (await deps.models.RunJob.findAll({ where: { runId: id, status: ['failed', 'cancelled'] }, transaction })).map((j) => j.get({ plain: true }) as RunJobRow);
+    if (jobs.length === 0) throw conflict('Nothing to retry: no job of this run failed or was cancelled.');
+    const held = (run.get('held') as boolean) || (await deps.runHooks.rerunNeedsPayment(id, transaction));
+    const entries: SolveJobData[] = [];
+    for (const j of jobs) {
+      const [changed] = await deps.models.RunJob.update(
+        { status: 'queued', generation: j.generation + 1, progress: 0, live: null, result: null, error: null, startedAt: null, finishedAt: null, queuedAt: new Date(), worker: null },
+        { where: { id: j.id, status: j.status, generation: j.generation }, transaction },
+      );
+      if (changed) entries.push({ jobId: j.id, runId: id, organisationId, generation: j.generation + 1 });
+    }
+    await run.update(held ? { held: true } : { releasedAt: new Date() }, { transaction });
+    return { entries, held, priority: run.get('priority') as number };
+  });
   await refreshRunStatus(deps, id);
-  if (!run.held) await enqueueJobs(deps, entries, run.priority);
+  if (!held) await enqueueJobs(deps, entries, priority);
   return getRun(deps, organisationId, id);
 }
 

@@ -32,6 +32,23 @@ export function deriveRunStatus(jobs: readonly JobStatus[], held: boolean): RunS
   return 'cancelled';
 }
 
+/**
+ * How long a run has taken (or took), in seconds: from its release to the queue — at creation,
+ * at payment for a paid run, at a retry — to its end or `now`. Time spent waiting for payment is
+ * not the run's time; null while it waits. (Rows from before `releasedAt` existed count from
+ * creation.) Never negative: browser and server clocks differ a little.
+ */
+export function runSeconds(
+  run: { status: RunStatus; createdAt: string | Date; releasedAt: string | Date | null; finishedAt: string | Date | null },
+  now: number,
+): number | null {
+  if (run.status === 'awaiting_payment') return null;
+  const ms = (d: string | Date) => (typeof d === 'string' ? Date.parse(d) : d.getTime());
+  const from = ms(run.releasedAt ?? run.createdAt);
+  const to = run.finishedAt ? ms(run.finishedAt) : now;
+  return Math.max(0, (to - from) / 1000);
+}
+
 export const MAX_SOLVERS_PER_RUN = 8;
 
 export const ProblemInputSchema = z.object({
@@ -136,6 +153,8 @@ export interface RunView {
   seed: number;
   createdBy: number | null;
   createdAt: string;
+  /** Last handed to the queue (creation, payment, retry); null while awaiting payment for the first time. */
+  releasedAt: string | null;
   finishedAt: string | null;
   jobs: JobView[];
 }

@@ -119,6 +119,54 @@ describe('webhook', () => {
     expect(payments.body.find((p: { id: number }) => p.id === bought.paymentId)).toMatchObject({ status: 'paid', amount: 2500, receiptSent: true, cardLast4: '4242' });
   });
 
+  test('a signed event stating another amount than the checkout is refused, logged in the audit trail, and credits nothing', async () => {
+    const checkout = await as(org.tokens.owner).post('/billing/checkout', { purpose: 'credits', quantity: 10 });
+    expect(checkout.status).toBe(201);
+    expect(checkout.body.amount).toBe(1000);
+    const session = await sdk.checkout.sessions.retrieve(checkout.body.sessionId);
+    const before = (await ledgerRows(org.organisationId)).length;
+    const send = (object: object, id: string) => {
+      const payload = JSON.stringify({ id, object: 'event', type: 'checkout.session.completed', data: { object } });
+      return request(t.app).post('/api/billing/webhook').set('content-type', 'application/json')
+        .set('stripe-signature', sdk.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET })).send(payload);
+    };
+    const inflated = await send({ ...session, payment_status: 'paid', status: 'complete', amount_total: 1_000_000 }, 'evt_inflated');
+    expect(inflated.status).toBe(400);
+    expect(inflated.body.code).toBe('amount_mismatch');
+    const otherCurrency = await send({ ...session, payment_status: 'paid', status: 'complete', currency: 'usd' }, 'evt_currency');
+    expect(otherCurrency.status).toBe(400);
+    expect((await ledgerRows(org.organisationId)).length).toBe(before);
+    expect((await t.deps.models.Payment.findByPk(checkout.body.paymentId))!.get({ plain: true })).toMatchObject({ status: 'open', amount: 1000 });
+    const audit = await t.deps.models.AuditEvent.findAll({ where: { organisationId: org.organisationId, action: 'billing.payment_event_refused', targetId: String(checkout.body.paymentId) } });
+    expect(audit).toHaveLength(2);
+    expect(JSON.parse(audit[0].get('detail') as string)).toMatchObject({ eventId: 'evt_inflated', stated: { amount: 1_000_000 }, recorded: { amount: 1000 } });
+    // The genuine payment still goes through, for the checkout's own amount.
+    const paid = await fake.submitCard(checkout.body.sessionId, TEST_CARDS.pays);
+    expect(paid.ok).toBe(true);
+    await fake.settled();
+    const entries = (await ledgerRows(org.organisationId)).filter((e) => e.paymentId === checkout.body.paymentId);
+    expect(entries.map((e) => [e.kind, e.amount])).toEqual([['credit_purchase', 1000]]);
+  });
+
+  test('a signed event with no usable object is a 400 (bad_event), not a server error', async () => {
+    const post = (event: object) => {
+      const payload = JSON.stringify(event);
+      return request(t.app).post('/api/billing/webhook').set('content-type', 'application/json')
+        .set('stripe-signature', sdk.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET })).send(payload);
+    };
+    for (const type of ['checkout.session.completed', 'payment_intent.payment_failed', 'checkout.session.expired']) {
+      const nullData = await post({ id: `evt_null_${type}`, object: 'event', type, data: null });
+      expect([nullData.status, nullData.body.code]).toEqual([400, 'bad_event']);
+      const noId = await post({ id: `evt_noid_${type}`, object: 'event', type, data: { object: { metadata: null } } });
+      expect([noId.status, noId.body.code]).toEqual([400, 'bad_event']);
+    }
+    expect((await post({ object: 'event', type: 'checkout.session.completed' })).status).toBe(400);
+    // Types billing does not handle are acknowledged whatever their data.
+    const other = await post({ id: 'evt_other', object: 'event', type: 'customer.created', data: null });
+    expect(other.status).toBe(200);
+    expect(other.body.outcome).toBe('ignored');
+  });
+
   test('concurrent deliveries of one event still write one entry', async () => {
     const bought = await buyCredits(org.tokens.owner, 5);
     const completed = fake.state.events.find((e) => e.type === 'checkout.session.completed' && (e.data.object as { id: string }).id === bought.sessionId)!;
@@ -242,6 +290,83 @@ describe('paid runs', () => {
     const refunds = [...fake.state.refunds.values()].filter((r) => r.payment_intent === intent);
     expect(refunds.map((r) => r.amount)).toEqual([PAID_RUN_CENTS]);
     expect((await as(org.tokens.dispatcher).get(`/billing/runs/${runId}`)).body.status).toBe('refunded');
+  });
+});
+
+describe('refund rule: only when no solver produced an answer; a refunded run is paid again before it runs again', () => {
+  /** A paid run released from credits (the organisation buys what it needs first). */
+  async function paidAndReleased(yard: Awaited<ReturnType<typeof orgWithTokens>>, versionId: number, solvers: object[]) {
+    const created = await as(yard.tokens.dispatcher).post('/runs', { versionId, problem: { kind: 'maxcut' }, solvers });
+    expect(created.status).toBe(201);
+    const runId = created.body.id as number;
+    const balance = (await as(yard.tokens.owner).get('/billing')).body.balance.amount as number;
+    if (balance < created.body.price.amount) await buyCredits(yard.tokens.owner, Math.ceil(created.body.price.amount / 100) + 5);
+    expect((await as(yard.tokens.admin).post(`/runs/${runId}/pay`)).status).toBe(200);
+    expect((await as(yard.tokens.viewer).get(`/runs/${runId}`)).body.status).toBe('queued');
+    const jobs = (await as(yard.tokens.viewer).get(`/runs/${runId}`)).body.jobs as { id: number; solver: string }[];
+    return { runId, jobs, price: created.body.price.amount as number };
+  }
+  const answer = (n: number) => JSON.stringify({ value: 7, assignment: Array.from({ length: n }, (_, i) => i % 2), bound: null, gap: null, energy: null, expectation: null, params: null, seconds: 1, evaluations: 10, shots: 0, provenOptimal: false });
+  const runLedger = async (organisationId: number, runId: number) => (await ledgerRows(organisationId)).filter((e) => e.runId === runId).map((e) => [e.kind, e.amount, e.sourceKey]);
+
+  test('one solver fails, the user cancels the other after it found an answer: no refund, the answer downloads, a retry of the failed solver is covered by the price paid', async () => {
+    const yard = await orgWithTokens(t.deps, 'Answer yard', 'free');
+    const net = await saveNetwork(t.app, yard.tokens.dispatcher, networkBody('Twenty', 20, randomEdges(20, 0.3, 5)));
+    const { runId, jobs, price } = await paidAndReleased(yard, net.versionId, [{ solver: 'qaoa' }, { solver: 'tabu' }]);
+    const [failing, stopped] = jobs;
+    // As the workers would write it: the first solver fails, the second is running…
+    await t.deps.models.RunJob.update({ status: 'failed', error: 'simulated solver failure', finishedAt: new Date() }, { where: { id: failing.id } });
+    await t.deps.models.RunJob.update({ status: 'running', startedAt: new Date() }, { where: { id: stopped.id } });
+    // …the user cancels it, and its worker stores the best answer found so far.
+    expect((await as(yard.tokens.dispatcher).post(`/runs/${runId}/cancel`)).status).toBe(200);
+    await t.deps.models.RunJob.update({ status: 'cancelled', result: answer(20), finishedAt: new Date() }, { where: { id: stopped.id } });
+    const { refreshRunStatus } = await import('../../server/services/runs-status');
+    expect(await refreshRunStatus(t.deps, runId)).toBe('failed');
+    await as(yard.tokens.admin).get('/billing/ledger'); // the billing pages' refund sweep agrees
+    expect((await as(yard.tokens.dispatcher).get(`/billing/runs/${runId}`)).body.status).toBe('paid');
+    expect(await runLedger(yard.organisationId, runId)).toEqual([['run_spend', -price, `run:${runId}:spend`]]);
+    const csv = await as(yard.tokens.viewer).get(`/runs/${runId}/assignment.csv`);
+    expect(csv.status).toBe(200);
+    expect(csv.text.split('\r\n')[1]).toBe('d1,Depot 1,0');
+    // The price was kept, so running the failed solver again needs no new payment.
+    const retried = await as(yard.tokens.dispatcher).post(`/runs/${runId}/retry`);
+    expect(retried.status).toBe(200);
+    expect(retried.body.status).toBe('queued');
+    expect(await runLedger(yard.organisationId, runId)).toEqual([['run_spend', -price, `run:${runId}:spend`]]);
+  });
+
+  test('a paid run that failed with no answer is refunded; Retry then waits for a new payment, which is a new ledger round', async () => {
+    const yard = await orgWithTokens(t.deps, 'Retry yard', 'free');
+    const net = await saveNetwork(t.app, yard.tokens.dispatcher, networkBody('Twenty', 20, randomEdges(20, 0.3, 5)));
+    const { runId, jobs, price } = await paidAndReleased(yard, net.versionId, [{ solver: 'qaoa' }]);
+    await t.deps.models.RunJob.update({ status: 'failed', error: 'simulated solver failure', finishedAt: new Date() }, { where: { id: jobs[0].id } });
+    const { refreshRunStatus } = await import('../../server/services/runs-status');
+    expect(await refreshRunStatus(t.deps, runId)).toBe('failed');
+    expect((await as(yard.tokens.dispatcher).get(`/billing/runs/${runId}`)).body.status).toBe('refunded');
+    const balanceAfterRefund = (await as(yard.tokens.owner).get('/billing')).body.balance.amount as number;
+
+    const retried = await as(yard.tokens.dispatcher).post(`/runs/${runId}/retry`);
+    expect(retried.status).toBe(200);
+    expect(retried.body.status).toBe('awaiting_payment');
+    expect((await as(yard.tokens.dispatcher).get(`/billing/runs/${runId}`)).body).toMatchObject({ status: 'awaiting', price: { amount: price }, paidWith: null, refundedAt: null });
+    // Nothing was queued for free: the new generation has no queue entry, and the balance is unchanged.
+    const { solveQueue, queueEntryId } = await import('../../server/services/queue');
+    expect(await solveQueue(t.deps).queue.getJob(queueEntryId(jobs[0].id, 1))).toBeUndefined();
+    expect((await as(yard.tokens.owner).get('/billing')).body.balance.amount).toBe(balanceAfterRefund);
+
+    expect((await as(yard.tokens.admin).post(`/runs/${runId}/pay`)).status).toBe(200);
+    expect((await as(yard.tokens.viewer).get(`/runs/${runId}`)).body.status).toBe('queued');
+    expect(await solveQueue(t.deps).queue.getJob(queueEntryId(jobs[0].id, 1))).toBeTruthy();
+    expect(await runLedger(yard.organisationId, runId)).toEqual([
+      ['run_spend', -price, `run:${runId}:spend`],
+      ['run_refund', price, `run:${runId}:refund`],
+      ['run_spend', -price, `run:${runId}:spend:2`],
+    ]);
+    // Failing again without an answer refunds the second round too, once.
+    await t.deps.models.RunJob.update({ status: 'failed', error: 'simulated solver failure', finishedAt: new Date() }, { where: { id: jobs[0].id } });
+    await refreshRunStatus(t.deps, runId);
+    await refreshRunStatus(t.deps, runId);
+    expect((await runLedger(yard.organisationId, runId)).slice(3)).toEqual([['run_refund', price, `run:${runId}:refund:2`]]);
   });
 });
 

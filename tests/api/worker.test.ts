@@ -226,3 +226,33 @@ describe('held runs and priorities', () => {
     }
   });
 });
+
+describe('lost queue entries', () => {
+  test('a release whose enqueue fails: the worker\'s periodic reconciler puts the jobs on the queue within one interval', async () => {
+    await Promise.allSettled(workers.map((w) => w.kill('SIGKILL')));
+    const { createRun, releaseRun } = await import('../../server/services/runs');
+    const { solveQueue, queueEntryId } = await import('../../server/services/queue');
+    const { Queue } = await import('bullmq');
+    const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Lost entry', 10, randomEdges(10, 0.5, 13)));
+    const actor = { organisationId: org.organisationId, userId: org.users.dispatcher.id, role: 'dispatcher' as const };
+    // The worker is up (and has done its start-up reconcile) before the entry gets lost.
+    const w = await startWorkerChild({ RUN_RECONCILE_MS: '1000' });
+    workers.push(w);
+    const held = await createRun(t.deps, actor, { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'exact' }] }, { hold: true });
+    const jobId = (await t.deps.models.RunJob.findOne({ where: { runId: held.id } }))!.get('id') as number;
+    const addBulk = jest.spyOn(Queue.prototype, 'addBulk').mockRejectedValueOnce(new Error('simulated: Redis dropped the connection'));
+    try {
+      await expect(releaseRun(t.deps, held.id)).rejects.toThrow(/simulated/);
+    } finally {
+      addBulk.mockRestore();
+    }
+    // Released in the database, but not on the queue.
+    expect((await t.deps.models.Run.findByPk(held.id))!.get('status')).toBe('queued');
+    expect(await solveQueue(t.deps).queue.getJob(queueEntryId(jobId, 0))).toBeUndefined();
+    // Recovered by the periodic pass (1 s here) of the worker that was already running — no restart;
+    // the 30 s allowance is the promise (RUN_RECONCILE_MS ≤ 30 s) plus this machine's slowness.
+    await waitFor('the reconciled run to finish', async () => (await t.deps.models.Run.findByPk(held.id))!.get('status') === 'succeeded', 30_000, 200);
+    expect(w.child.exitCode).toBeNull();
+    await w.kill('SIGTERM');
+  });
+});

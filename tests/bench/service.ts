@@ -59,7 +59,8 @@ async function main() {
   const admin = createDatabase({ ...loadConfig(), DB_NAME: 'mysql' });
   await admin.query(`CREATE DATABASE IF NOT EXISTS \`${BENCH_DB}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
   await admin.close();
-  const deps = createDeps(loadConfig());
+  const { billingRunHooks } = await import('../../server/services/billing-run-hooks');
+  const deps = createDeps(loadConfig(), { runHooks: billingRunHooks });
   await migrate(deps.db);
   const tag = uniqueTag();
   const org = await deps.models.Organisation.create({ name: `Bench ${tag}`, plan: 'fleet' });

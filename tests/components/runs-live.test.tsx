@@ -21,7 +21,7 @@ function runAt(step: number): RunDetail {
   const done = step >= 2;
   return {
     id: 9, status: done ? 'succeeded' : 'running', problem: { kind: 'maxcut' }, networkId: 1, versionId: 5, networkName: 'Triangle', depotCount: 3, timeLimitSeconds: 10, seed: 1, createdBy: 1,
-    createdAt: new Date(Date.now() - 2000).toISOString(), finishedAt: done ? new Date().toISOString() : null,
+    createdAt: new Date(Date.now() - 2000).toISOString(), releasedAt: new Date(Date.now() - 2000).toISOString(), finishedAt: done ? new Date().toISOString() : null,
     jobs: [{
       id: 1, position: 0, solver: 'exact', label: 'Exact enumeration', family: 'exact', settings: {}, attempt: 1,
       status: done ? 'succeeded' : 'running', progress: done ? 1 : step * 0.4, live: done ? null : { fraction: step * 0.4, bestValue: 1 },
@@ -63,3 +63,31 @@ test('the run screen polls about every second while a job runs, shows progress, 
   expect(runCalls()).toBe(afterDone); // no more polling once every job finished
   client.clear();
 }, 15_000);
+
+test('a paid run\'s time counts from its payment (release to the queue), not from the hour it waited for payment', async () => {
+  const finished = Date.parse('2026-12-01T12:00:00.000Z');
+  const paid: RunDetail = {
+    ...runAt(2),
+    id: 10,
+    createdAt: new Date(finished - 3600_000).toISOString(), // created, then waited an hour for its payment
+    releasedAt: new Date(finished - 5_000).toISOString(),
+    finishedAt: new Date(finished).toISOString(),
+  };
+  mockGet.mockImplementation(async (path: string) => {
+    if (path === '/runs/10') return paid;
+    if (path === '/solvers') return { solvers: [] };
+    if (path === '/networks/1/versions/5') return { id: 5, number: 3, document: doc };
+    if (path.startsWith('/billing/runs/')) return null;
+    throw new Error(`unexpected ${path}`);
+  });
+  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
+  render(
+    <SafeAreaProvider initialMetrics={{ frame: { x: 0, y: 0, width: 390, height: 844 }, insets: { top: 0, left: 0, right: 0, bottom: 0 } }}>
+      <QueryClientProvider client={client}>
+        <RunView id={10} role="dispatcher" />
+      </QueryClientProvider>
+    </SafeAreaProvider>,
+  );
+  await waitFor(() => expect(screen.getByTestId('run-elapsed').textContent).toBe('Took 5.00 s'));
+  client.clear();
+});

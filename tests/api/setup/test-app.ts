@@ -13,7 +13,8 @@ export async function createTestApp() {
   const { createDeps, closeDeps } = await import('../../../server/deps');
   const { createApp } = await import('../../../server/app');
   const { serverExtras } = await import('../../../server/bootstrap');
-  const deps = createDeps(loadConfig());
+  const { billingRunHooks } = await import('../../../server/services/billing-run-hooks');
+  const deps = createDeps(loadConfig(), { runHooks: billingRunHooks });
   const { app } = createApp(deps, serverExtras(deps));
   return { deps, app, close: () => closeDeps(deps) };
 }
