@@ -27,7 +27,7 @@ export function RunPaymentPanel(props: { runId: number; role: Role | null; await
       <Notice tone={c.status === 'paid' ? 'success' : 'info'} testID="run-payment-done">
         {c.status === 'paid'
           ? `Paid ${euros(c.price.amount, c.price.currency)} ${c.paidWith === 'card' ? 'by card' : 'from credits'} on ${shortDate(c.paidAt)}.`
-          : `This run failed, so its price (${euros(c.price.amount, c.price.currency)}) was given back${c.paidWith === 'card' ? ' to the card' : ' to the credits'}.`}
+          : `No solver of this run produced an answer, so its price (${euros(c.price.amount, c.price.currency)}) was given back${c.paidWith === 'card' ? ' to the card' : ' to the credits'}. Retrying it asks for the price again.`}
       </Notice>
     );
   }
