@@ -10,17 +10,24 @@ export const colors = {
   line: '#D6CFC0',
   signal: '#E8A33D',
   signalDeep: '#935700', // ≥ 4.5:1 on surfaceSunk too
-  focus: '#1F6FEB',
-  danger: '#B3261E',
-  dangerSoft: '#FBE9E7',
+  /** Selected rows (a pale signal). */
+  signalSoft: '#F6DDB2',
+  focus: '#2E67B8', // harbour blue; ≥ 3:1 on every background (SC 1.4.11)
+  danger: '#A93A2C', // brick red
+  dangerSoft: '#F3E0D6',
   success: '#1B7343', // ≥ 4.5:1 on surfaceSunk too (tests/unit/fuzz/contrast.test.ts)
   successSoft: '#E3F3E8',
   warnSoft: '#FFF4DC',
   onInk: '#F4F1EA',
 } as const;
 
-/** Region colours for drawn partitions (distinct under common colour-vision deficiencies). */
-export const regionColors = ['#2D6A9F', '#D0782A', '#4E9A6B', '#8E5BA8', '#C9A227', '#3A8C8C', '#B0476B', '#6B6F2A'] as const;
+/**
+ * Region colours for drawn partitions, our own set: harbour, amber, dusk violet, salmon, olive,
+ * aqua, rust brown, sky. Light and dark alternate so that every pair stays apart under protan
+ * and deutan vision too, and the first two (the two sides of a cut) are the furthest apart
+ * (tests/unit/fuzz/palette.test.ts measures both).
+ */
+export const regionColors = ['#1E5F74', '#E2A03F', '#564C9F', '#EAAC97', '#756B1D', '#4CC0CF', '#7F4E42', '#5F9EE6'] as const;
 
 export const space = { xs: 4, sm: 8, md: 12, lg: 16, xl: 24, xxl: 32 } as const;
 export const radius = { sm: 6, md: 10, lg: 16, pill: 999 } as const;

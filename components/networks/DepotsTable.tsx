@@ -75,7 +75,7 @@ export function DepotsTable(props: { depots: readonly Depot[]; lanes: readonly L
 export const tableStyles = StyleSheet.create({
   row: { flexDirection: 'row', alignItems: 'center', minHeight: TOUCH, borderBottomWidth: 1, borderBottomColor: colors.line, paddingHorizontal: space.sm, gap: space.sm },
   head: { minHeight: 32, borderBottomColor: colors.inkSoft },
-  selected: { backgroundColor: '#F6DDB2' },
+  selected: { backgroundColor: colors.signalSoft },
   cell: { paddingVertical: space.xs },
   grow: { flex: 2, minWidth: 0 },
   idCol: { flex: 1.2, minWidth: 0 },

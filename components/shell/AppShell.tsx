@@ -64,9 +64,9 @@ export function AppShell(props: { organisationName: string; role: Role | null; h
         {visible.map((d) => (
           <Link key={d.href} href={d.href} asChild>
             <Pressable accessibilityRole="link" accessibilityLabel={d.label} aria-current={isActive(d.href) ? 'page' : undefined} style={styles.barItem} testID={`nav-${d.glyph}`}>
-              <View style={[styles.barPill, isActive(d.href) && styles.barPillActive]}>
-                <Glyph name={d.glyph} color={isActive(d.href) ? colors.ink : colors.inkSoft} />
-              </View>
+              {/* The current destination lights a signal lamp on the bar's top edge. */}
+              <View style={[styles.barLamp, isActive(d.href) && styles.barLampOn]} testID={isActive(d.href) ? 'nav-lamp' : undefined} />
+              <Glyph name={d.glyph} color={isActive(d.href) ? colors.ink : colors.inkSoft} />
               <Text style={[styles.barText, isActive(d.href) && styles.barTextActive]}>{d.label}</Text>
             </Pressable>
           </Link>
@@ -91,10 +91,12 @@ const styles = StyleSheet.create({
   railItemActive: { backgroundColor: colors.signal },
   railText: { fontFamily: fonts.medium, fontSize: 15, color: colors.onInk },
   railTextActive: { color: colors.ink, fontFamily: fonts.semibold },
-  bar: { flexDirection: 'row', borderTopWidth: 1, borderTopColor: colors.line, backgroundColor: colors.surface, paddingTop: space.xs },
-  barItem: { flex: 1, minHeight: 56, alignItems: 'center', justifyContent: 'center', gap: 2 },
-  barPill: { paddingHorizontal: space.md, paddingVertical: 3, borderRadius: 999 },
-  barPillActive: { backgroundColor: '#F6DDB2' },
+  bar: { flexDirection: 'row', borderTopWidth: 1, borderTopColor: colors.line, backgroundColor: colors.surface },
+  barItem: { flex: 1, minHeight: 56, alignItems: 'center', justifyContent: 'center', gap: 2, paddingTop: space.xs },
+  // A squared strip over the bar's top border: ≥ 3:1 against the surface (SC 1.4.11), with the
+  // label's weight and aria-current it marks the current destination without relying on hue.
+  barLamp: { position: 'absolute', top: -1, left: space.md, right: space.md, height: 4 },
+  barLampOn: { backgroundColor: colors.signalDeep },
   barText: { fontFamily: fonts.medium, fontSize: 11, color: colors.inkSoft },
   barTextActive: { color: colors.ink, fontFamily: fonts.semibold },
 });

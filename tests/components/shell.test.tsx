@@ -39,6 +39,10 @@ describe('AppShell', () => {
     expect(navLabels()).toEqual(['Networks', 'Runs', 'Team', 'Account']);
     expect(screen.getByRole('link', { name: 'Runs' }).getAttribute('aria-current')).toBe('page');
     expect(screen.getByRole('link', { name: 'Networks' }).getAttribute('aria-current')).toBeNull();
+    // Our own active treatment: one signal lamp, on the current destination only.
+    const lamps = screen.getAllByTestId('nav-lamp');
+    expect(lamps).toHaveLength(1);
+    expect(screen.getByRole('link', { name: 'Runs' }).contains(lamps[0])).toBe(true);
   });
 
   test('wide screen (≥ 1024 px): a side rail instead of the bottom bar; admins see Billing', () => {

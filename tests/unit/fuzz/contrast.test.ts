@@ -1,22 +1,13 @@
 import { colors, type } from '../../../components/theme';
+import { contrast } from '../../support/colour';
 
 /**
  * Text contrast of the theme's colour pairs against WCAG 2.1 AA (W3C, "Web Content Accessibility
  * Guidelines (WCAG) 2.1", 2018, SC 1.4.3 Contrast (Minimum): 4.5:1 for body text, 3:1 for large
  * text ≥ 18.66 px bold / 24 px; SC 1.4.11 Non-text Contrast: 3:1 for focus rings and control
  * borders that identify a control). Relative luminance and contrast ratio per WCAG 2.1's
- * definitions ("relative luminance", "contrast ratio").
+ * definitions ("relative luminance", "contrast ratio"), in tests/support/colour.ts.
  */
-function luminance(hex: string): number {
-  const [r, g, b] = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16) / 255).map((c) => (c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4));
-  return 0.2126 * r + 0.7152 * g + 0.0722 * b;
-}
-
-export function contrast(a: string, b: string): number {
-  const [hi, lo] = [luminance(a), luminance(b)].sort((x, y) => y - x);
-  return (hi + 0.05) / (lo + 0.05);
-}
-
 test('the contrast formula matches WCAG reference values', () => {
   expect(contrast('#000000', '#FFFFFF')).toBeCloseTo(21, 5); // WCAG 2.1: maximum ratio 21:1
   expect(contrast('#FFFFFF', '#FFFFFF')).toBeCloseTo(1, 5);
@@ -39,6 +30,7 @@ describe('body text on page backgrounds ≥ 4.5:1', () => {
 describe('text on coloured fills ≥ 4.5:1 (buttons, notices)', () => {
   const pairs: [keyof typeof colors, keyof typeof colors][] = [
     ['onInk', 'ink'], ['onInk', 'inkSoft'], ['onInk', 'danger'], // primary/pressed/danger buttons
+    ['text', 'signalSoft'], // selected table rows
     ['text', 'dangerSoft'], ['danger', 'dangerSoft'], ['text', 'successSoft'], ['success', 'successSoft'], ['text', 'warnSoft'], ['signalDeep', 'warnSoft'], // notices
   ];
   for (const [fg, bg] of pairs) test(`${fg} on ${bg}`, () => expect(contrast(colors[fg], colors[bg])).toBeGreaterThanOrEqual(4.5));
