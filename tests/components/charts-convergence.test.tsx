@@ -1,5 +1,4 @@
 import { render, screen } from '@testing-library/react';
-import { scaleLinear } from 'd3-scale';
 import { ConvergenceChart } from '../../components/charts/ConvergenceChart';
 import { convergenceGeometry, DEFAULT_MARGIN } from '../../components/charts/convergence';
 import { histogramBars } from '../../components/charts/histogram';
@@ -23,36 +22,34 @@ const trace = [
 const frame = { width: 320, height: 180 };
 
 describe('convergenceGeometry', () => {
-  test('the line goes through every trace point, mapped by linear scales computed here independently', () => {
-    const m = DEFAULT_MARGIN;
-    const x = scaleLinear().domain([0, 20]).range([m.left, frame.width - m.right]);
-    // y domain covers energy ± standard error: [−3.95, −2.7].
-    const y = scaleLinear().domain([-3.9 - 0.05, -3.0 + 0.3]).range([frame.height - m.bottom, m.top]);
+  // Pixel positions worked by hand (not with a scale library): the plot spans
+  // x 52…308 (320 − 52 − 12 = 256 px for iterations 0…20, 12.8 px each) and y 152…10 (142 px for
+  // energies −3.95…−2.7, i.e. energy ± standard error over the trace; 113.6 px per unit, SVG y
+  // grows downwards).
+  const X = { 0: 52, 5: 116, 10: 180, 20: 308 } as Record<number, number>;
+  test('the line goes through every trace point at its hand-worked pixel position', () => {
     const g = convergenceGeometry(trace, frame);
+    expect(DEFAULT_MARGIN).toEqual({ left: 52, right: 12, top: 10, bottom: 28 }); // the margins the numbers assume
     const pts = pathPoints(g.line as string);
-    expect(pts).toHaveLength(trace.length);
-    trace.forEach((p, i) => {
-      expect(pts[i][0]).toBeCloseTo(x(p.iteration), 6);
-      expect(pts[i][1]).toBeCloseTo(y(p.energy), 6);
+    const expected: Array<[number, number]> = [[X[0], 44.08], [X[5], 89.52], [X[10], 134.96], [X[20], 146.32]];
+    expect(pts).toHaveLength(expected.length);
+    expected.forEach(([x, y], i) => {
+      expect(pts[i][0]).toBeCloseTo(x, 6);
+      expect(pts[i][1]).toBeCloseTo(y, 6);
     });
-    // SVG y grows downwards, so the falling energy is drawn lower on the page.
-    expect(pts[3][1]).toBeGreaterThan(pts[0][1]);
   });
 
   test('the band is energy + standard error forward, then energy − standard error backward', () => {
     const g = convergenceGeometry(trace, frame);
-    const m = DEFAULT_MARGIN;
-    const x = scaleLinear().domain([0, 20]).range([m.left, frame.width - m.right]);
-    const y = scaleLinear().domain([-3.95, -2.7]).range([frame.height - m.bottom, m.top]);
     const pts = pathPoints(g.band as string);
     // d3.area draws the y1 (upper) edge left to right, then the y0 edge right to left.
-    expect(pts).toHaveLength(2 * trace.length);
-    trace.forEach((p, i) => {
-      expect(pts[i][0]).toBeCloseTo(x(p.iteration), 6);
-      expect(pts[i][1]).toBeCloseTo(y(p.energy + p.stdError), 6);
-      const back = pts[2 * trace.length - 1 - i];
-      expect(back[0]).toBeCloseTo(x(p.iteration), 6);
-      expect(back[1]).toBeCloseTo(y(p.energy - p.stdError), 6);
+    const upper: Array<[number, number]> = [[X[0], 10], [X[5], 66.8], [X[10], 123.6], [X[20], 140.64]]; // −2.7, −3.2, −3.7, −3.85
+    const lower: Array<[number, number]> = [[X[20], 152], [X[10], 146.32], [X[5], 112.24], [X[0], 78.16]]; // −3.95, −3.9, −3.6, −3.3
+    const expected = [...upper, ...lower];
+    expect(pts).toHaveLength(expected.length);
+    expected.forEach(([x, y], i) => {
+      expect(pts[i][0]).toBeCloseTo(x, 6);
+      expect(pts[i][1]).toBeCloseTo(y, 6);
     });
   });
 
