@@ -38,6 +38,8 @@ function induced(g: PartGraph, members: Int32Array, pin: Int8Array): PartGraph {
 }
 
 export function kwayPartition(g: PartGraph, regionPin: Int32Array, k: number, limit: number, rng: Rng, opts: KwayOptions = kwayDefaults): Int8Array {
+  // Region ids live in an Int8Array (and refinement is O(n·k)): made for a handful of regions.
+  if (!(k >= 1 && k <= 127)) throw new RangeError(`kwayPartition makes 1…127 regions (got ${k}); use sizeLimitedBlocks for many small blocks`);
   const part = new Int8Array(g.n);
   let total = 0;
   for (let i = 0; i < g.n; i++) total += g.vw[i];
@@ -77,6 +79,43 @@ export function kwayPartition(g: PartGraph, regionPin: Int32Array, k: number, li
  * when that lowers the crossing weight and the region stays within the limit; first, repair
  * any overweight region by its cheapest moves. Returns the crossing weight.
  */
+/**
+ * Blocks of at most `maxSize` depots (depot weights ignored), any number of them: recursive
+ * multilevel bisection, each split giving the two sides ⌊c/2⌋ : ⌈c/2⌉ of the c blocks still
+ * needed (±3 % of the depots), until every piece fits. No k-way refinement: blocks only need
+ * few lanes between them, not balance. Returns the block id per depot, 0…B−1 (Int32Array).
+ */
+export function sizeLimitedBlocks(g: PartGraph, maxSize: number, rng: Rng, opts: KwayOptions = kwayDefaults): Int32Array {
+  if (!(maxSize >= 1)) throw new RangeError(`blocks need at least one depot each (got maxSize ${maxSize})`);
+  const block = new Int32Array(g.n);
+  let next = 0;
+  const split = (members: Int32Array): void => {
+    if (members.length <= maxSize) {
+      for (const v of members) block[v] = next;
+      next++;
+      return;
+    }
+    const count = Math.ceil(members.length / maxSize);
+    const k1 = count - Math.floor(count / 2);
+    const size = members.length;
+    const sub = induced(g, members, new Int8Array(size).fill(-1));
+    sub.vw.fill(1);
+    const target = (size * k1) / count, slack = Math.max(1, 0.03 * size);
+    const side = multilevelBisect(sub, { lo: Math.max(1, target - slack), hi: Math.min(size - 1, target + slack) }, rng, opts);
+    const m0: number[] = [], m1: number[] = [];
+    members.forEach((v, i) => (side[i] === 0 ? m0 : m1).push(v));
+    if (m0.length === 0 || m1.length === 0) { // a degenerate split: halve in order instead
+      split(members.slice(0, size >> 1));
+      split(members.slice(size >> 1));
+      return;
+    }
+    split(Int32Array.from(m0));
+    split(Int32Array.from(m1));
+  };
+  if (g.n > 0) split(Int32Array.from({ length: g.n }, (_, i) => i));
+  return block;
+}
+
 export function refineKway(g: PartGraph, part: Int8Array, regionPin: Int32Array, k: number, limit: number, passes: number): number {
   const { n, adjStart, adjIndex, adjWeight, vw } = g;
   const load = new Float64Array(k);

@@ -99,3 +99,21 @@ export function greedyMaxcut(problem: Problem): Int8Array {
 }
 
 export { createFlipState };
+
+/**
+ * Move the cheapest free depots off the heavy side until side-1 weight is inside the balance
+ * window (or no free depot is left there). Returns the number of moves.
+ */
+export function repairBalance(problem: Problem, st: FlipState, free: Int32Array): number {
+  const { lo, hi } = balanceWindow(problem);
+  let moves = 0;
+  for (let guard = 0; guard < problem.network.n && (st.weight1 > hi + 1e-9 || st.weight1 < lo - 1e-9); guard++) {
+    const from = st.weight1 > hi ? 1 : 0;
+    let pick = -1;
+    for (const v of free) if (st.side[v] === from && (pick < 0 || st.delta[v] < st.delta[pick])) pick = v;
+    if (pick < 0) break;
+    flipDepot(problem.network, st, pick);
+    moves++;
+  }
+  return moves;
+}

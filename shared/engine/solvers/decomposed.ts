@@ -57,7 +57,7 @@ export const qaoaBlocksSolver: SolverDefinition<QaoaBlocksSettings> & { simulate
     });
     const assignment = Array.from(outcome.assignment);
     const largest = outcome.blocks.reduce((q, b) => Math.max(q, b.qubits), 0);
-    const how = { exact: 'exact enumeration', qaoa: 'QAOA', local: 'greedy flips', single: 'none needed' }[outcome.merge.method];
+    const how = { exact: 'exact enumeration', rqaoa: 'recursive QAOA (level 1, closed form)', local: 'greedy flips', single: 'none needed' }[outcome.merge.method];
     const notes = [
       `${outcome.merge.blocks} block(s) of at most ${s.blockSize} depots (largest circuit ${largest} qubits); block orientations by ${how}${problem.kind === 'bisection' ? ' under the balance rule' : ''} (gain ${outcome.merge.gain})`,
       problem.kind === 'maxcut'

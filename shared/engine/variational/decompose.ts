@@ -7,7 +7,8 @@
  *  2. solve each block's own max-cut with QAOA (pins enter as fixed spins);
  *  3. choose each block's orientation t_b ∈ {±1}: with block spins s_u, the lanes between
  *     blocks contribute Σ_{a<b} w'_ab (1 − t_a t_b)/2 + const, w'_ab = Σ_{u∈a, v∈b} w_uv s_u s_v —
- *     itself a small max-cut over the blocks, solved exactly when small or by QAOA;
+ *     itself a max-cut over the blocks, solved exactly when small, else by recursive QAOA
+ *     (variational/rqaoa.ts), which needs no wide circuit at any number of blocks;
  *  4. improve: re-solve each block by QAOA with its surroundings fixed (our addition), and
  *     refine with 1-flip local search.
  * A heuristic: no optimality guarantee (the caller shows it next to the classical best and the bound).
@@ -15,10 +16,10 @@
 import { compactFromEdges } from '../network/build';
 import type { CompactNetwork } from '../network/types';
 import { encodeMaxCut } from '../encodings/maxcut';
-import { kwayPartition } from '../classical/kway';
+import { sizeLimitedBlocks } from '../classical/kway';
 import type { PartGraph } from '../classical/fm-bisection';
 import { createFlipState, flipDepot } from '../classical/flip-state';
-import { polishBisection, polishMaxcut } from '../classical/local-search';
+import { polishBisection, polishMaxcut, repairBalance } from '../classical/local-search';
 import { balanceWindow, randomBalancedSides } from '../classical/balance';
 import { encodeBisection } from '../encodings/bisection';
 import { isBalanced } from '../problem/evaluate';
@@ -27,6 +28,7 @@ import { crossingWeight } from '../problem/evaluate';
 import type { Problem } from '../problem/types';
 import type { Rng } from '../random';
 import { runQaoa, type VariationalTracePoint } from './qaoa-run';
+import { bitsOfSpins, defaultBatchFraction, RQAOA_MAX_REMAINDER, runRqaoa } from './rqaoa';
 
 export interface DecomposeOptions {
   /** Most depots per block (= qubits simulated at once). */
@@ -37,7 +39,7 @@ export interface DecomposeOptions {
   readoutShots: number;
   restarts: number;
   maxIterations: number;
-  /** Merge by exact enumeration when at most this many blocks are free, else by QAOA. */
+  /** Merge by exact enumeration when at most this many blocks are free, else by recursive QAOA (rqaoa.ts). */
   mergeExactLimit: number;
   /**
    * Improvement rounds after the merge: each block is solved again by QAOA with the depots
@@ -59,7 +61,7 @@ export interface DecomposeOutcome {
   blocks: BlockReport[];
   /** Block id per depot (the split). */
   blockOf: Int32Array;
-  merge: { method: 'single' | 'exact' | 'qaoa' | 'local'; blocks: number; gain: number };
+  merge: { method: 'single' | 'exact' | 'rqaoa' | 'local'; blocks: number; gain: number };
   /** Cut after merging, before the 1-flip refinement; and flips the refinement made. */
   mergedValue: number;
   /** Cut gained by the improvement rounds (block re-solves with fixed surroundings). */
@@ -79,15 +81,12 @@ export interface DecomposeControl {
 }
 
 /**
- * Split into blocks of at most `blockSize` depots: multilevel k-way partition on unit depot
- * weights with the size limit as the balance limit; a block still too large (the partitioner's
- * limit is soft when pins or odd shapes get in the way) is cut into consecutive chunks.
+ * Split into blocks of at most `blockSize` depots by recursive multilevel bisection on |w|
+ * (classical/kway.ts sizeLimitedBlocks): few lanes between blocks, any number of blocks.
  */
 export function splitIntoBlocks(network: CompactNetwork, blockSize: number, rng: Rng): Int32Array {
   const { n } = network;
-  const blockOf = new Int32Array(n);
-  if (n <= blockSize) return blockOf;
-  const parts = Math.ceil(n / blockSize);
+  if (n <= blockSize) return new Int32Array(n);
   const g: PartGraph = {
     n,
     adjStart: network.adjStart,
@@ -97,17 +96,7 @@ export function splitIntoBlocks(network: CompactNetwork, blockSize: number, rng:
     vw: new Float64Array(n).fill(1),
     pin: new Int8Array(n).fill(-1),
   };
-  const part = kwayPartition(g, new Int32Array(n).fill(-1), parts, blockSize, rng);
-  let next = 0;
-  const members: number[][] = Array.from({ length: parts }, () => []);
-  for (let i = 0; i < n; i++) members[part[i]].push(i);
-  for (const list of members) {
-    for (let start = 0; start < list.length; start += blockSize) {
-      for (const v of list.slice(start, start + blockSize)) blockOf[v] = next;
-      next++;
-    }
-  }
-  return blockOf;
+  return sizeLimitedBlocks(g, blockSize, rng);
 }
 
 /** The sub-problem of one block: its depots, the lanes among them, and the problem's pins. */
@@ -269,15 +258,15 @@ export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: R
       mergeMethod = 'exact';
       flip = exactSmallMaxcut(mergeProblem);
     } else {
-      mergeMethod = 'qaoa';
+      // Any number of blocks: recursive QAOA on the block graph (closed-form level 1, no
+      // statevector wider than mergeExactLimit), so the merge itself never needs a large circuit.
+      mergeMethod = 'rqaoa';
       const encoding = encodeMaxCut(mergeProblem);
-      const out = runQaoa({
-        encoding, layers: opts.layers, optimizer: 'nelder-mead', shots: 0, readoutShots: opts.readoutShots,
-        restarts: opts.restarts, maxIterations: opts.maxIterations, rng, shouldStop: () => control.shouldStop(),
+      const out = runRqaoa(encoding.operator, {
+        stopAt: Math.min(opts.mergeExactLimit, RQAOA_MAX_REMAINDER), batchFraction: defaultBatchFraction(encoding.numQubits), hurry: () => control.shouldStop(),
       });
       evaluations += out.evaluations;
-      shots += out.shotsUsed;
-      flip = out.best ? out.best.assignment : Int32Array.from(blockPins, (p) => Math.max(0, p));
+      flip = encoding.decode(bitsOfSpins(out.spins));
     }
     for (let i = 0; i < n; i++) if (flip[blockOf[i]] === 1) assignment[i] ^= 1;
   }
@@ -396,18 +385,6 @@ export function orientForBisection(
   return { flip: Uint8Array.from(t, (x) => (x < 0 ? 1 : 0)), method: 'local' };
 }
 
-/** Move the cheapest free depots off the heavy side until side-1 weight is inside the window. */
-function repairBalance(problem: Problem, st: ReturnType<typeof createFlipState>, free: Int32Array): void {
-  const { lo, hi } = balanceWindow(problem);
-  for (let guard = 0; guard < problem.network.n && (st.weight1 > hi + 1e-9 || st.weight1 < lo - 1e-9); guard++) {
-    const from = st.weight1 > hi ? 1 : 0;
-    let pick = -1;
-    for (const v of free) if (st.side[v] === from && (pick < 0 || st.delta[v] < st.delta[pick])) pick = v;
-    if (pick < 0) return;
-    flipDepot(problem.network, st, pick);
-  }
-}
-
 /**
  * Balanced bisection by blocks: each block bisected by QAOA (its own balance rule, penalty
  * encoding of encodings/bisection.ts), blocks oriented by orientForBisection under the global
@@ -472,7 +449,7 @@ export function decomposeBisection(problem: Problem, opts: DecomposeOptions, rng
     // The split found few lanes between blocks, so a block kept whole on one side is often
     // cheaper than the block's own bisection: try that per pair of free blocks (one whole on
     // each side keeps the balance), kept when the crossing weight drops inside the window.
-    wholeBlockMoves(problem, members, fixed, assignment);
+    wholeBlockMoves(problem, members, fixed, assignment, () => control.shouldStop());
   }
   const mergedValue = crossingWeight(problem, assignment);
   control.onStep?.(blockCount / (blockCount + 1), mergedValue);
@@ -499,35 +476,33 @@ export function decomposeBisection(problem: Problem, opts: DecomposeOptions, rng
 /**
  * Pair moves over blocks: put block a wholly on side 0 and block b wholly on side 1 (each either
  * bisected or whole before) when that lowers the crossing weight and keeps the balance window;
- * repeated until no pair helps. O(B² · lanes of a and b) per sweep.
+ * repeated until no pair helps. Each try flips the depots of a and b on a flip state and undoes
+ * them when the move does not help: O(lanes of a and b) per pair, O(B²·block lanes) per sweep,
+ * checked against `shouldStop` between blocks.
  */
-function wholeBlockMoves(problem: Problem, members: number[][], fixed: Uint8Array, assignment: Int32Array): number {
+function wholeBlockMoves(problem: Problem, members: number[][], fixed: Uint8Array, assignment: Int32Array, shouldStop: () => boolean): number {
   const { lo, hi } = balanceWindow(problem);
-  const dw = problem.network.depotWeight;
-  let value = crossingWeight(problem, assignment);
-  let w1 = 0;
-  for (let i = 0; i < assignment.length; i++) if (assignment[i] === 1) w1 += dw[i];
+  const net = problem.network;
+  const st = createFlipState(net, assignment);
   let moves = 0;
-  const trial = assignment.slice();
-  for (let improved = true, sweeps = 0; improved && sweeps < 20; sweeps++) {
+  const flipped: number[] = [];
+  for (let improved = true, sweeps = 0; improved && sweeps < 20 && !shouldStop(); sweeps++) {
     improved = false;
-    for (let a = 0; a < members.length; a++) {
+    for (let a = 0; a < members.length && !shouldStop(); a++) {
       if (fixed[a]) continue;
       for (let b = 0; b < members.length; b++) {
         if (b === a || fixed[b]) continue;
-        let nw1 = w1;
-        for (const v of members[a]) if (trial[v] === 1) { trial[v] = 0; nw1 -= dw[v]; }
-        for (const v of members[b]) if (trial[v] === 0) { trial[v] = 1; nw1 += dw[v]; }
-        const nv = nw1 >= lo - 1e-9 && nw1 <= hi + 1e-9 ? crossingWeight(problem, trial) : Infinity;
-        if (nv < value - 1e-12) {
-          assignment.set(trial);
-          value = nv;
-          w1 = nw1;
+        const before = st.cut;
+        flipped.length = 0;
+        for (const v of members[a]) if (st.side[v] === 1) { flipDepot(net, st, v); flipped.push(v); }
+        for (const v of members[b]) if (st.side[v] === 0) { flipDepot(net, st, v); flipped.push(v); }
+        if (flipped.length > 0 && st.cut < before - 1e-12 && st.weight1 >= lo - 1e-9 && st.weight1 <= hi + 1e-9) {
           moves++;
           improved = true;
-        } else trial.set(assignment);
+        } else for (let i = flipped.length - 1; i >= 0; i--) flipDepot(net, st, flipped[i]);
       }
     }
   }
+  for (let i = 0; i < assignment.length; i++) assignment[i] = st.side[i];
   return moves;
 }
