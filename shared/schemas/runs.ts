@@ -121,6 +121,10 @@ export interface JobResultView {
   circuit?: CircuitSummary;
   /** Variational jobs: what rebuilds the circuit (OpenQASM export, noise). */
   circuitSpec?: CircuitSpec;
+  /** Whether classical local search refined a variational answer, and the value before it. */
+  refinement?: { applied: boolean; unrefinedValue: number; unrefinedInfeasible: boolean; moves: number };
+  /** Recursive QAOA (rqaoa): rounds, exact remainder, eliminations (depot, the depot it follows, sign, correlation). */
+  recursion?: { rounds: number; remainder: number; eliminationsTotal: number; eliminations: { round: number; depot: string; follows: string | null; sign: 1 | -1; correlation: number }[] };
 }
 
 export interface JobView {

@@ -155,6 +155,8 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
       if (raw.samples) result.samples = raw.samples;
       if (raw.circuit) result.circuit = raw.circuit;
       if (raw.circuitSpec) result.circuitSpec = raw.circuitSpec;
+      if (raw.refinement) result.refinement = raw.refinement;
+      if (raw.recursion) result.recursion = raw.recursion;
       return result;
     },
   };

@@ -8,6 +8,7 @@ import { classicalSolvers } from './classical';
 import type { SolverDefinition } from './types';
 import { variationalSolvers } from './variational';
 import { qaoaBlocksSolver } from './decomposed';
+import { rqaoaSolver } from './rqaoa';
 
 // Settings types differ per solver; the registry only passes them through parseSettings.
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
@@ -61,6 +62,6 @@ export function createRegistry(definitions: readonly AnySolverDefinition[]): Sol
 }
 
 /** Every solver Spinyard offers: classical first (exact, bounds, heuristics), then variational. */
-export const solverRegistry: SolverRegistry = createRegistry([...classicalSolvers, ...variationalSolvers, qaoaBlocksSolver]);
+export const solverRegistry: SolverRegistry = createRegistry([...classicalSolvers, ...variationalSolvers, qaoaBlocksSolver, rqaoaSolver]);
 export const getSolver = (name: string): AnySolverDefinition => solverRegistry.getSolver(name);
 export const listSolvers = (kind?: ProblemKind): SolverListing[] => solverRegistry.listSolvers(kind);

@@ -52,6 +52,13 @@ export interface SolveResult {
   samples?: SampledAssignment[];
   /** True when the assignment violates the balance rule (reported, never hidden). */
   infeasible?: boolean;
+  /**
+   * Whether classical local search refined a variational answer (a setting), with the value
+   * before it, so a variational result is never credited with the classical polish.
+   */
+  refinement?: { applied: boolean; unrefinedValue: number; unrefinedInfeasible: boolean; moves: number };
+  /** Recursive QAOA: rounds, depots solved exactly at the end, and the eliminations in order. */
+  recursion?: RecursionReport;
   notes?: string[];
   /** Variational runs: qubits and gate counts per qubit layout (docs/runs.md, "Circuit resources"). */
   circuit?: CircuitSummary;
@@ -84,4 +91,23 @@ export interface SolverDefinition<Settings = Record<string, unknown>> {
   /** Null when the solver can take the problem, else the reason it refuses. */
   refuses(problem: Problem, settings: Settings): string | null;
   solve(problem: Problem, settings: Settings, ctx: SolveContext): Promise<SolveResult>;
+}
+
+/** One elimination of recursive QAOA as the run screen shows it. */
+export interface RecursionStep {
+  round: number;
+  depot: string;
+  /** The depot it follows, or null when its side was fixed. */
+  follows: string | null;
+  /** +1 same side as `follows` (side 0 when fixed), −1 the other. */
+  sign: 1 | -1;
+  correlation: number;
+}
+
+export interface RecursionReport {
+  rounds: number;
+  remainder: number;
+  /** Eliminations in order (at most the first 2,000; `eliminationsTotal` counts all). */
+  eliminations: RecursionStep[];
+  eliminationsTotal: number;
 }

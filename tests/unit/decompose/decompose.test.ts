@@ -120,10 +120,10 @@ describe('qaoa-blocks solver', () => {
     expect(blocks.notes.join(' ')).toMatch(/block\(s\) of at most 14 depots/);
   }, 60_000);
 
-  test('keeps pins and merges by QAOA when there are more free blocks than the exact limit', () => {
+  test('keeps pins and merges by recursive QAOA when there are more free blocks than the exact limit', () => {
     const problem = maxcut(40, randomGraph(40, 0.15, 21), { 0: 1, 39: 0 });
     const out = decomposeMaxcut(problem, { blockSize: 6, layers: 1, shots: 0, readoutShots: 256, restarts: 1, maxIterations: 40, mergeExactLimit: 3, rounds: 1 }, createRng(2), { shouldStop: () => false });
-    expect(out.merge.method).toBe('qaoa');
+    expect(out.merge.method).toBe('rqaoa');
     expect(out.assignment[0]).toBe(1);
     expect(out.assignment[39]).toBe(0);
     expect(Math.max(...out.blocks.map((b) => b.qubits))).toBeLessThanOrEqual(6);
@@ -174,4 +174,28 @@ describe('qaoa-blocks for balanced bisection', () => {
     expect(r.value).toBeGreaterThanOrEqual(r.bound!);
     expect(r.notes.join(' ')).toMatch(/under the balance rule/);
   }, 60_000);
+});
+
+describe('qaoa-blocks at sizes that used to crash', () => {
+  test('splitIntoBlocks: 2,000 depots into blocks of 14 — more than 127 blocks, every depot in one, none above 14', () => {
+    // Region ids used to live in an Int8Array: block 128 read as −128 and the split read an undefined block.
+    const network = compactFromEdges(2000, randomGraph(2000, 0.005, 31));
+    const blockOf = splitIntoBlocks(network, 14, createRng(1));
+    const count = Math.max(...blockOf) + 1;
+    expect(count).toBeGreaterThan(127);
+    const sizes = new Array(count).fill(0);
+    for (const b of blockOf) sizes[b]++;
+    expect(Math.min(...blockOf)).toBe(0);
+    expect(Math.max(...sizes)).toBeLessThanOrEqual(14);
+    expect(Math.min(...sizes)).toBeGreaterThan(0);
+  });
+
+  test('400 depots, 50 free blocks: the merge runs recursive QAOA instead of a 50-qubit circuit', () => {
+    const problem = maxcut(400, randomGraph(400, 0.015, 8), { 5: 1 });
+    const out = decomposeMaxcut(problem, { blockSize: 8, layers: 1, shots: 0, readoutShots: 64, restarts: 1, maxIterations: 15, mergeExactLimit: 16, rounds: 0 }, createRng(3), { shouldStop: () => false });
+    expect(out.merge.method).toBe('rqaoa');
+    expect(out.merge.blocks).toBeGreaterThan(16);
+    expect(out.assignment[5]).toBe(1);
+    expect(crossingWeight(problem, out.assignment)).toBeGreaterThanOrEqual(out.mergedValue);
+  });
 });
