@@ -142,7 +142,7 @@ function solveExactly(op: IsingOperator): Int8Array {
 export function runRqaoa(original: IsingOperator, opts: RqaoaOptions): RqaoaOutcome {
   if (!(opts.stopAt >= 1 && opts.stopAt <= RQAOA_MAX_REMAINDER)) throw new RangeError(`stopAt must be 1…${RQAOA_MAX_REMAINDER} spins (got ${opts.stopAt})`);
   let op = original;
-  let orig = Int32Array.from({ length: original.numQubits }, (_, i) => i); // current index → original
+  let orig: Int32Array = Int32Array.from({ length: original.numQubits }, (_, i) => i); // current index → original
   const eliminations: RqaoaElimination[] = [];
   let round = 0, evaluations = 0, gammaPrev: number | undefined;
   // The first round's angles on the whole operator are reported even when no round is needed.

@@ -26,7 +26,7 @@ describe('spin elimination (the reduction step of recursive QAOA)', () => {
     const { op: red, newIndex } = eliminateSpins(op, rel);
     expect(red.numQubits).toBe(6);
     for (let trial = 0; trial < 40; trial++) {
-      const s = Array.from({ length: 9 }, () => (rng.next() < 0.5 ? -1 : 1));
+      const s: number[] = Array.from({ length: 9 }, () => (rng.next() < 0.5 ? -1 : 1));
       for (const r of rel) s[r.qubit] = r.partner < 0 ? r.sign : r.sign * s[r.partner];
       const sr = new Array(6);
       for (let q = 0; q < 9; q++) if (newIndex[q] >= 0) sr[newIndex[q]] = s[q];
