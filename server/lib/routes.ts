@@ -114,6 +114,10 @@ export function errorBody(err: unknown): { status: number; body: Record<string, 
   if (err instanceof HttpError) return { status: err.status, body: { error: err.message, ...(err.details ?? {}) } };
   const e = err as { type?: string; status?: number; message?: string };
   if (e && e.type === 'entity.parse.failed') return { status: 400, body: { error: 'The request body is not valid JSON.' } };
-  if (e && e.type === 'entity.too.large') return { status: 413, body: { error: 'The request body is too large.' } };
+  if (e && e.type === 'entity.too.large') {
+    const limit = (e as { limit?: number }).limit;
+    const accepts = limit ? `the ${Math.round(limit / (1024 * 1024))} MB this request accepts` : 'what this request accepts';
+    return { status: 413, body: { error: `The request body is larger than ${accepts}.`, code: 'body_too_large' } };
+  }
   return { status: 500, body: { error: 'Something went wrong on our side. Try again; if it persists, contact support.' } };
 }

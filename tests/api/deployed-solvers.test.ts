@@ -101,6 +101,8 @@ test('every listed solver succeeds on every question it answers, through the API
       return false;
     }
   };
+  // The solvers that start worker threads of their own must be among those run with threads: 2.
+  expect(listed.body.solvers.map((s) => s.name).filter(hasThreads)).toEqual(expect.arrayContaining(['tabu', 'exact']));
   const problems = { maxcut: { kind: 'maxcut' }, bisection: { kind: 'bisection' }, kway: { kind: 'kway', k: 3 } } as const;
   const runIds: number[] = [];
   for (const [kind, problem] of Object.entries(problems)) {

@@ -64,6 +64,17 @@ describe('the largest networks inside the limits', () => {
   });
 });
 
+describe('a JSON body over the request limit', () => {
+  test('413 naming the limit (files up to 20 MB go through the import)', async () => {
+    const depots = Array.from({ length: 2000 }, (_, i) => ({ id: `D${i}`, name: 'Quillmere '.repeat(1400) }));
+    const body = JSON.stringify({ name: 'Too long', depots, lanes: [] });
+    expect(body.length).toBeGreaterThan(26 * 1024 * 1024);
+    const res = await request(api.app).post('/api/networks').set(as()).set('Authorization', 'Bearer stand-in').set('Content-Type', 'application/json').send(body);
+    expect(res.status).toBe(413);
+    expect(res.body).toEqual({ error: 'The request body is larger than the 25 MB this request accepts.', code: 'body_too_large' });
+  });
+});
+
 describe('numbers and names at the edges', () => {
   test('a lane volume of 1e300 is saved with its total', async () => {
     const res = await request(api.app).post('/api/networks').set(as()).send({ name: 'Heavy lane', depots: [{ id: 'A' }, { id: 'B' }, { id: 'C' }], lanes: [{ from: 'A', to: 'B', weight: 1e300 }, { from: 'B', to: 'C', weight: 2 }] });
