@@ -49,3 +49,15 @@ export const ROLE_LABELS: Record<Role, string> = {
 export function can(role: Role | null | undefined, permission: Permission): boolean {
   return !!role && ROLE_PERMISSIONS[role].has(permission);
 }
+
+/**
+ * Run fields reserved for `runs:advanced` (analysts and up), besides non-default solver settings:
+ * a fixed seed and a time limit other than the default. The API answers 403 when another role
+ * sets them; the app shows them only to roles that may.
+ */
+export const ADVANCED_RUN_FIELDS = ['seed', 'timeLimitSeconds'] as const;
+
+/** The advanced run fields a request body sets. */
+export function advancedRunFields(body: Partial<Record<(typeof ADVANCED_RUN_FIELDS)[number], unknown>>): string[] {
+  return ADVANCED_RUN_FIELDS.filter((f) => body[f] !== undefined);
+}

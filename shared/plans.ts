@@ -116,7 +116,8 @@ export interface RunSize {
   depots: number;
   /** Seconds each solver may use. */
   secondsPerSolver: number;
-  solvers: ReadonlyArray<{ family: string; qubits: number | null }>;
+  /** Per solver: its family and the qubits it says it will simulate (SolverDefinition.qubits; 0 classical). */
+  solvers: ReadonlyArray<{ name?: string; family: string; qubits: number | null }>;
   /** Runs the organisation already started this calendar month (for the allowance). */
   runsThisMonth?: number;
 }
@@ -130,11 +131,60 @@ export interface RunPrice extends Price {
   lines: RunPriceLine[];
 }
 
+/** Why a run of this size cannot start on this plan, even paid (the check runs before any price). */
+export interface RunSizeRefusal {
+  limit: 'depots' | 'seconds' | 'qubits';
+  /** The plan whose limits were exceeded (the paid ceiling: the next plan up). */
+  plan: PlanId;
+  message: string;
+}
+
+/**
+ * The one size rule: a run may go up to the paid ceiling's limits (paidRunPlan) — depots, seconds
+ * per solver, and the qubits each variational solver says it will simulate. Beyond them it is
+ * refused before launch, never priced.
+ */
+export function runSizeRefusal(plan: string | null | undefined, size: RunSize): RunSizeRefusal | null {
+  const ceiling = paidRunPlan(plan);
+  const limits = runLimits(ceiling);
+  const label = planLabel(ceiling);
+  const up = nextPlan(plan) === ceiling ? ` (a paid run on the ${planLabel(plan)} plan may go up to the ${label} plan's limits)` : '';
+  if (size.depots > limits.maxDepots) {
+    return { limit: 'depots', plan: ceiling, message: `The ${label} plan runs networks of up to ${limits.maxDepots} depots${up}; this one has ${size.depots}.` };
+  }
+  if (size.secondsPerSolver > limits.maxSecondsPerSolver) {
+    return { limit: 'seconds', plan: ceiling, message: `The ${label} plan gives each solver at most ${limits.maxSecondsPerSolver} s${up}; ${size.secondsPerSolver} s were asked for.` };
+  }
+  for (const [i, s] of size.solvers.entries()) {
+    if (s.family === 'variational' && s.qubits !== null && s.qubits > limits.maxQubits) {
+      return { limit: 'qubits', plan: ceiling, message: `${s.name ?? `Solver ${i + 1}`} would simulate ${s.qubits} qubits; the ${label} plan allows ${limits.maxQubits}${up}. Try the decomposition solver (qaoa-blocks) or a classical one.` };
+    }
+  }
+  return null;
+}
+
+/** Most solvers a price ceiling is stated for (the run schema's own limit is lower). */
+export const PRICED_SOLVERS_MAX = 20;
+
+/**
+ * The most a run can cost on this plan: the price of the largest run the paid ceiling allows
+ * (its depots and seconds, PRICED_SOLVERS_MAX variational solvers at its qubit limit). Every quote
+ * is at most this; runs beyond the ceiling are refused instead (runSizeRefusal).
+ */
+export function runPriceCeiling(plan: string | null | undefined): number {
+  const top = runLimits(paidRunPlan(plan));
+  const solvers = Array.from({ length: PRICED_SOLVERS_MAX }, () => ({ family: 'variational', qubits: top.maxQubits }));
+  return priceOfRun(plan, { depots: top.maxDepots, secondsPerSolver: top.maxSecondsPerSolver, solvers, runsThisMonth: Infinity })?.amount ?? 0;
+}
+
 /**
  * Price of one run, or null when it is free. The one pricing rule: the API stores it with the
- * run and the run-setup screen shows the same number.
+ * run and the run-setup screen shows the same number. A size beyond the paid ceiling has no
+ * price: callers check runSizeRefusal first, and this throws rather than quote it.
  */
 export function priceOfRun(plan: string | null | undefined, size: RunSize): RunPrice | null {
+  const refusal = runSizeRefusal(plan, size);
+  if (refusal) throw new RangeError(`no price for a run beyond the plan's ceiling: ${refusal.message}`);
   const included = runLimits(plan);
   const p = planPrices(plan);
   const lines: RunPriceLine[] = [];

@@ -3,11 +3,14 @@
  * on the y axis), each labelled with its business value. Pure, like convergence.ts.
  */
 import { scaleBand, scaleLinear } from 'd3-scale';
+import { better, bestOf, type Ranked } from '../../shared/engine/problem/compare';
 
 export interface HistogramSample {
   assignment: readonly number[];
   count: number;
   value: number;
+  /** Pins kept and balance met (results stored before samples carried it: unknown). */
+  feasible?: boolean;
 }
 
 export interface HistogramBar {
@@ -20,8 +23,9 @@ export interface HistogramBar {
   value: number;
   /** Share of all shots that gave this assignment. */
   share: number;
-  /** True for bars whose value equals the best value among the samples. */
+  /** True for the best sample by problem/compare.ts (feasible first, then value) and its equals. */
   best: boolean;
+  feasible: boolean;
 }
 
 /** The assignment written as a bit/region string, depot 0 first ("0110…"). */
@@ -37,7 +41,10 @@ export function histogramBars(
   const total = samples.reduce((s, x) => s + x.count, 0);
   const shown = [...samples].sort((a, b) => b.count - a.count || (opts.sense === 'max' ? b.value - a.value : a.value - b.value)).slice(0, opts.limit ?? 12);
   if (shown.length === 0 || total === 0) return [];
-  const bestValue = opts.sense === 'max' ? Math.max(...samples.map((s) => s.value)) : Math.min(...samples.map((s) => s.value));
+  // Unknown feasibility counts as feasible only where there is no balance rule to break (max-cut).
+  const rank = (s: HistogramSample): Ranked => ({ value: s.value, feasible: s.feasible ?? opts.sense === 'max' });
+  const bestSample = bestOf(opts.sense, samples.filter((s) => rank(s).feasible), rank);
+  const isBest = (s: HistogramSample) => bestSample !== null && rank(s).feasible && !better(opts.sense, rank(bestSample), rank(s));
   const x = scaleBand<string>().domain(shown.map((s, i) => `${i}`)).range([0, frame.width]).padding(0.2);
   const y = scaleLinear().domain([0, Math.max(...shown.map((s) => s.count))]).range([frame.height - bottom, top]);
   return shown.map((s, i) => ({
@@ -49,6 +56,7 @@ export function histogramBars(
     count: s.count,
     value: s.value,
     share: s.count / total,
-    best: s.value === bestValue,
+    best: isBest(s),
+    feasible: rank(s).feasible,
   }));
 }

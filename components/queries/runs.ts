@@ -81,9 +81,8 @@ export interface SolverDefaultsAnswer {
   defaults: string[];
   depots: number;
   lanes: number;
-  qubits: number | null;
-  /** Qubits the circuit solvers need with their default strategy (k-way: the first bisection). */
-  circuitQubits?: number | null;
+  /** Each solver's answer for this question with default settings (server/services/solver-defaults.ts). */
+  solvers?: { name: string; qubits: number; refusal: string | null }[];
 }
 
 /** The size-based default solver set (shared/runs/default-solvers.ts, evaluated by the API). */

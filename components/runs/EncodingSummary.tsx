@@ -57,6 +57,7 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
             {preview.price ? <Figure label="Price" value={money(preview.price)} testID="enc-price" /> : null}
           </View>
           <Small>Encoding: {enc.method}{enc.slackQubits ? ` (${enc.depotQubits} depot qubits + ${enc.slackQubits} slack qubits)` : ''}. {enc.rule}</Small>
+          {preview.circuit ? <Small testID="enc-circuit">Summarised: {preview.circuit}.</Small> : null}
           {enc.penalties.length > 0 ? (
             <View style={styles.list} testID="enc-penalties">
               <Label>Penalty weights</Label>
@@ -87,7 +88,19 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
           {preview.quote?.note ? <Small testID="enc-price-note">{preview.quote.note}</Small> : null}
         </View>
       ) : null}
+      {preview.solvers.some((s) => typeof s.qubits === 'number' && s.qubits > 0) ? (
+        <View style={styles.list} testID="enc-solver-qubits">
+          <Label>Qubits each solver will simulate</Label>
+          {preview.solvers.filter((s) => typeof s.qubits === 'number' && s.qubits > 0).map((s) => (
+            <Small key={s.solver}>{label(s.solver)}: {formatCount(s.qubits as number)}</Small>
+          ))}
+        </View>
+      ) : null}
+      {preview.quote?.ceiling && preview.price ? (
+        <Small testID="enc-price-ceiling">No run on the {preview.plan?.label ?? 'current'} plan costs more than {formatMoney(preview.quote.ceiling)}; larger runs are refused before they start.</Small>
+      ) : null}
       {preview.limitProblem ? <Notice tone="error">{preview.limitProblem}</Notice> : null}
+      {preview.forbidden ? <Notice tone="error">{preview.forbidden}</Notice> : null}
       {notAllowed.length > 0 ? <Notice tone="caution">Changed settings need the analyst role: {notAllowed.map((s) => label(s.solver)).join(', ')}.</Notice> : null}
       {preview.fields && Object.keys(preview.fields).length > 0 ? (
         <Notice tone="error">

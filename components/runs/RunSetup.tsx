@@ -3,7 +3,7 @@ import { StyleSheet, View, useWindowDimensions } from 'react-native';
 import { useRouter } from 'expo-router';
 import { can, type Role } from '../../shared/permissions';
 import { formatMoney } from '../../shared/plans';
-import { OPTIMIZER_NAMES } from '../../shared/engine/variational/optimize';
+import { OPTIMIZER_LABELS, OPTIMIZER_NAMES, type OptimizerName } from '../../shared/engine/variational/optimize';
 import { useRunCreateMutation, useRunPreviewQuery, useRunVersionQuery, useSolverDefaultsQuery, useSolversQuery } from '../queries/runs';
 import { space, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
@@ -17,7 +17,7 @@ import { CheckRow, ChoiceCard, Segmented } from './controls';
 import { EncodingSummary } from './EncodingSummary';
 import { KIND_HINTS, KIND_LABELS } from './format';
 import { PinPicker } from './PinPicker';
-import { createBody, DEFAULT_ADVANCED, initialSetup, partsOf, problemOf, refusedChosen, type SetupState } from './setup';
+import { createBody, DEFAULT_ADVANCED, initialSetup, partsOf, problemOf, refusedChosen, startBlockers, type SetupState } from './setup';
 import type { ProblemKind } from '../../shared/engine/problem/types';
 
 const KINDS: ProblemKind[] = ['maxcut', 'bisection', 'kway'];
@@ -60,8 +60,20 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
   };
   // The API refuses the whole run when one chosen solver cannot take the problem: say which before the tap, and no price for a run that cannot start.
   const refused = refusedChosen(preview.data?.solvers ?? [], chosen);
+  // Start follows the server's preview of exactly this body: any blocker (refusal, rights, plan size) keeps it disabled.
+  const gate = startBlockers(preview.data, chosen, !!preview.data && !preview.isPlaceholderData && !preview.isFetching);
   const launch = () =>
     create.mutate(body, { onSuccess: (r) => router.push(`/runs/${r.id}`) });
+  // What each solver said about this question (the API asked it): qubits it would simulate, refusal.
+  const answerOf = (name: string) => preview.data?.solvers.find((x) => x.solver === name) ?? defaults.data?.solvers?.find((x) => x.name === name);
+  const solverQubits = (name: string) => {
+    const q = answerOf(name)?.qubits;
+    return typeof q === 'number' && q > 0 ? ` · ${q} qubits` : '';
+  };
+  const solverHint = (name: string, guarantee: string) => {
+    const refusal = answerOf(name)?.refusal;
+    return refusal ? `Will not run here: ${refusal}` : guarantee;
+  };
   const adv = s.advanced ?? DEFAULT_ADVANCED;
   const setAdv = (patch: Partial<typeof adv>) => set({ advanced: { ...adv, ...patch } });
 
@@ -92,13 +104,13 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
       <Heading>Solvers</Heading>
       <Small>
         {defaults.data
-          ? `Chosen for ${defaults.data.depots} depots${(defaults.data.circuitQubits ?? defaults.data.qubits) !== null ? ` and ${defaults.data.circuitQubits ?? defaults.data.qubits} qubits` : ''}: exact when small enough, the strongest classical heuristic, and quantum solvers when the qubits fit.`
+          ? `Chosen for ${defaults.data.depots} depots: exact when small enough, the strongest classical heuristic, and quantum solvers when the qubits each would simulate fit your plan.`
           : 'Choosing defaults for this size…'}
       </Small>
       {offered
         .filter((o) => allSolvers || chosen.includes(o.name) || defaults.data?.defaults.includes(o.name))
         .map((o) => (
-          <CheckRow key={o.name} title={`${o.label} · ${FAMILY_WORDS[o.family]}`} hint={o.guarantee} checked={chosen.includes(o.name)} onPress={() => toggle(o.name)} testID={`solver-${o.name}`} />
+          <CheckRow key={o.name} title={`${o.label} · ${FAMILY_WORDS[o.family]}${solverQubits(o.name)}`} hint={solverHint(o.name, o.guarantee)} checked={chosen.includes(o.name)} onPress={() => toggle(o.name)} testID={`solver-${o.name}`} />
         ))}
       <Button
         label={allSolvers ? 'Show only the suggested solvers' : `Show all ${offered.length} solvers`}
@@ -116,6 +128,7 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
           <TextField label="Circuit layers (QAOA p, VQE depth)" value={adv.layers} onChangeText={(t) => setAdv({ layers: t })} keyboardType="numeric" />
           <Segmented label="VQE ansatz" options={['ladder', 'alternating'] as const} value={adv.ansatz} onChange={(a) => setAdv({ ansatz: a })} />
           <Segmented label="Optimizer" options={['auto', ...OPTIMIZER_NAMES] as string[]} value={adv.optimizer} onChange={(o) => setAdv({ optimizer: o })} />
+          <Small testID="optimizer-label">{adv.optimizer === 'auto' ? 'auto: SPSA with shots, else the Nelder–Mead simplex' : OPTIMIZER_LABELS[adv.optimizer as OptimizerName]}</Small>
           <TextField label="Shots per energy estimate (0 = exact expectation)" value={adv.shots} onChangeText={(t) => setAdv({ shots: t })} keyboardType="numeric" />
           <TextField label="Seed (blank = random)" value={adv.seed} onChangeText={(t) => setAdv({ seed: t })} keyboardType="numeric" />
           <TextField label="Time limit per solver (seconds)" value={adv.timeLimitSeconds} onChangeText={(t) => setAdv({ timeLimitSeconds: t })} keyboardType="numeric" />
@@ -134,6 +147,13 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
         </EncodingSummary>
       ) : null}
       {preview.isError ? <Notice tone="error">{preview.error.message}</Notice> : null}
+      {!gate.pending && gate.reasons.length > 0 ? (
+        <Notice tone="error">
+          <View style={styles.stack} testID="start-blockers">
+            {gate.reasons.map((r) => <Small key={r}>{r}</Small>)}
+          </View>
+        </Notice>
+      ) : null}
       {preview.isFetching && !preview.data ? <Small>Building the encoding summary…</Small> : null}
       {create.isError ? <Notice tone="error">{create.error.message}</Notice> : null}
       {mayStart ? (
@@ -143,9 +163,13 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
               ? 'Choose at least one solver'
               : refused.length
                 ? `Untick ${refused.join(' and ')} to start: ${refused.length > 1 ? 'they cannot' : 'it cannot'} take this problem`
-                : `Start run with ${chosen.length} solver${chosen.length > 1 ? 's' : ''}${preview.data?.price ? ` (paid run: ${preview.data.price.label ?? formatMoney(preview.data.price)}, pay next)` : ''}`
+                : gate.pending
+                  ? 'Checking the run with the server…'
+                  : gate.reasons.length
+                    ? 'Cannot start: see the reasons above'
+                    : `Start run with ${chosen.length} solver${chosen.length > 1 ? 's' : ''}${preview.data?.price ? ` (paid run: ${preview.data.price.label ?? formatMoney(preview.data.price)}, pay next)` : ''}`
           }
-          onPress={launch} busy={create.isPending} disabled={chosen.length === 0 || refused.length > 0} testID="start-run" />
+          onPress={launch} busy={create.isPending} disabled={chosen.length === 0 || refused.length > 0 || gate.pending || gate.reasons.length > 0} testID="start-run" />
       ) : (
         <Notice>Your role can read runs but not start them. Ask a dispatcher or analyst.</Notice>
       )}

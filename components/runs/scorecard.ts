@@ -4,7 +4,7 @@
  * The sense comes from the question: max-cut wants the highest cut; bisection and k-way want the
  * lowest crossing weight among balanced answers (an unbalanced answer is shown, never best).
  */
-import { gapOf } from '../../shared/engine/problem/evaluate';
+import { better, bestOf, gapOfKind, tighter } from '../../shared/engine/problem/compare';
 import { senseOf, type Sense } from '../../shared/engine/problem/types';
 import type { JobStatus, ScorableRun } from './types';
 
@@ -18,7 +18,7 @@ export interface ScoreRow {
   bound: number | null;
   /** value/bound for max, bound/value for min: 1 is optimal, lower is worse. */
   ratio: number | null;
-  /** Certified gap against the best bound (gapOf's definition). */
+  /** Certified gap against the best bound (problem/compare.ts gap; null for an infeasible answer). */
   gap: number | null;
   provenOptimal: boolean;
   balanced: boolean;
@@ -37,10 +37,6 @@ export interface Scorecard {
   bestJobId: number | null;
 }
 
-/** Relative tolerance under which two values count as equal (float sums of lane weights). */
-const TIE = 1e-9;
-const same = (a: number, b: number) => Math.abs(a - b) <= TIE * Math.max(1, Math.abs(a), Math.abs(b));
-
 /** The tightest proven bound: the lowest upper bound (max) or the highest lower bound (min). */
 export function bestBound(run: ScorableRun): number | null {
   const sense = senseOf(run.problem.kind);
@@ -54,7 +50,7 @@ export function bestBound(run: ScorableRun): number | null {
     if (r.provenOptimal && !r.infeasible) bounds.push(r.value);
   }
   if (bounds.length === 0) return null;
-  return sense === 'max' ? Math.min(...bounds) : Math.max(...bounds);
+  return bounds.reduce((a, b) => (tighter(sense, b, a) ? b : a));
 }
 
 /** Ratio of a value to the bound, oriented so that 1 is optimal for both senses. */
@@ -83,7 +79,7 @@ export function buildScorecard(run: ScorableRun, labels: Record<string, string> 
       value: r ? r.value : null,
       bound,
       ratio: r ? ratioToBound(sense, r.value, bound) : null,
-      gap: r ? gapOf(kind, r.value, bound) : null,
+      gap: r && !r.infeasible ? gapOfKind(kind, r.value, bound) : null,
       provenOptimal: !!r?.provenOptimal,
       balanced,
       seconds: r ? r.seconds : null,
@@ -93,13 +89,11 @@ export function buildScorecard(run: ScorableRun, labels: Record<string, string> 
       error: job.error,
     };
   });
-  const candidates = rows.filter((row) => row.value !== null && (sense === 'max' || row.balanced));
-  let bestJobId: number | null = null;
-  if (candidates.length > 0) {
-    const values = candidates.map((row) => row.value as number);
-    const best = sense === 'max' ? Math.max(...values) : Math.min(...values);
-    for (const row of candidates) if (same(row.value as number, best)) row.isBest = true;
-    bestJobId = candidates.find((row) => row.isBest)?.jobId ?? null;
-  }
+  // problem/compare.ts decides; an answer that breaks the pins or the balance rule is shown, never best.
+  const rank = (row: ScoreRow) => ({ value: row.value as number, feasible: row.balanced });
+  const candidates = rows.filter((row) => row.value !== null && row.balanced);
+  const top = bestOf(sense, candidates, rank);
+  for (const row of candidates) if (top && !better(sense, rank(top), rank(row))) row.isBest = true;
+  const bestJobId = top?.jobId ?? null;
   return { sense, rows, bound, bestJobId };
 }

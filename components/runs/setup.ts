@@ -92,6 +92,29 @@ export function createBody(versionId: number, s: SetupState, names: readonly str
 }
 
 /**
+ * Every reason the run would not start, from the server's preview for exactly this body (its
+ * blockers: settings, solver refusals, the role's rights, the plan's size rule), plus chosen solvers
+ * the preview says refuse. Empty = Start may be pressed. While the preview for this body is not
+ * there yet (loading, or still the previous body's), `pending` is true and Start stays disabled.
+ */
+export function startBlockers(
+  preview: { blockers?: string[]; solvers: readonly { solver: string; label?: string; refusal?: string | null; allowed?: boolean }[] } | undefined,
+  chosen: readonly string[],
+  current: boolean,
+): { pending: boolean; reasons: string[] } {
+  if (chosen.length === 0) return { pending: false, reasons: ['Choose at least one solver.'] };
+  if (!preview || !current) return { pending: true, reasons: [] };
+  const reasons = [...(preview.blockers ?? [])];
+  for (const s of preview.solvers) {
+    if (!chosen.includes(s.solver)) continue;
+    const said = `${s.solver} refuses this problem: ${s.refusal}`;
+    if (s.refusal && !reasons.some((r) => r.includes(said))) reasons.push(said);
+    if (s.allowed === false && !reasons.some((r) => r.includes('runs:advanced'))) reasons.push(`${s.label ?? s.solver}: changed settings need the analyst role (runs:advanced).`);
+  }
+  return { pending: false, reasons };
+}
+
+/**
  * Labels of the chosen solvers the preview says will not run. The API refuses the whole run when
  * any chosen solver refuses, so the start button names them instead of offering a run that fails.
  */

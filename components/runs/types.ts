@@ -77,6 +77,12 @@ export interface RunPreview {
   encodingNote?: string | null;
   /** The plan limit this run would exceed, in words, when so. */
   limitProblem?: string | null;
+  /** Which circuit the encoding summary describes (k regions: the first split of the recursive bisection). */
+  circuit?: string;
+  /** Every reason the API would not start this run (fields, refusals, rights, plan size); empty = startable. */
+  blockers?: string[];
+  /** Role may not set these (seed, time limit, non-default settings), in words. */
+  forbidden?: string | null;
   /** Settings errors per field, when some entry's settings are out of range. */
   fields?: Record<string, string[]> | null;
   plan?: { id: string; label: string } | null;
@@ -85,7 +91,7 @@ export interface RunPreview {
   /** Present only for paid runs (billing). */
   price?: Price | null;
   /** Billing's quote: whether the organisation's credits cover the price, in words (server/services/pricing.ts). */
-  quote?: { affordable: boolean; note: string; balance: { amount: number; currency: string } } | null;
+  quote?: { affordable: boolean; note: string; balance: { amount: number; currency: string }; refusal?: string | null; ceiling?: { amount: number; currency: string } } | null;
 }
 
 /** A solver as the app lists it (the registry's listing). */

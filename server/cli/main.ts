@@ -95,7 +95,10 @@ async function solveCommand(flags: Flags, positionals: string[], io: CliIo, sign
   const warningText = warnings.map(formatIssue);
   warn(io, warningText);
   const problem = problemFrom(network, { problem: flags.problem, k: flags.k, tolerance: flags.tolerance, pins: flags.pin });
-  const { solveProblem, qubitsFor } = orchestrate();
+  const { solveProblem } = orchestrate();
+  // The solver says how many qubits it simulates (0 for classical): the same figure the API prices.
+  const definition = registry().getSolver(flags.solver);
+  const qubits = definition.qubits(problem, definition.parseSettings(settings));
 
   const cancel = { cancelled: false };
   signals.onInterrupt = () => {
@@ -116,7 +119,7 @@ async function solveCommand(flags: Flags, positionals: string[], io: CliIo, sign
   };
   const result = await solveProblem(problem, flags.solver, settings, { seed, timeLimitSeconds, cancel, onProgress }, { bounds: !flags['no-bounds'] });
   signals.onInterrupt = null;
-  const report = solveReport(file, problem, result, { qubits: qubitsFor(problem), seed, timeLimitSeconds, cancelled: cancel.cancelled, warnings: warningText });
+  const report = solveReport(file, problem, result, { qubits, seed, timeLimitSeconds, cancelled: cancel.cancelled, warnings: warningText });
   if (qasm) writeQasm(qasm, problem, result, io);
   if (result.circuitSpec && result.params) {
     const { analyseRun } = require('../../shared/engine/circuits/run-analysis') as typeof import('../../shared/engine/circuits/run-analysis');

@@ -1,13 +1,12 @@
 import { Op, type WhereOptions } from 'sequelize';
 import type { Deps } from '../deps';
-import { HttpError, badRequest, conflict, forbidden, notFound } from '../lib/http-error';
-import { can, type Role } from '../../shared/permissions';
-import { formatMoney, nextPlan, paidRunPlan, planLabel, runLimits, type PlanRunLimits, type RunPrice } from '../../shared/plans';
-import { buildCompactNetwork } from '../../shared/engine/network/build';
-import { bindProblem } from '../../shared/engine/problem/bind';
-import type { NetworkDocument } from '../../shared/engine/network/types';
-import type { Problem, ProblemSpec } from '../../shared/engine/problem/types';
-import type { AnySolverDefinition } from '../../shared/engine/solvers/registry';
+import { HttpError, conflict, notFound } from '../lib/http-error';
+import { can } from '../../shared/permissions';
+import { formatMoney, planLabel, runLimits, type RunPrice } from '../../shared/plans';
+import { bestOf } from '../../shared/engine/problem/compare';
+import { senseOf } from '../../shared/engine/problem/types';
+import { getSolver } from '../../shared/engine/solvers/registry';
+import { describeEncoding, estimatedPauliTerms } from '../../shared/engine/solvers/orchestrate';
 import {
   deriveRunStatus, type CreateRunBody, type JobStatus, type JobView, type PreviewBody, type ProblemInput, type RunListItem, type RunListQuery, type RunStatus, type RunView,
 } from '../../shared/schemas/runs';
@@ -16,29 +15,13 @@ import type { RunJobRow } from '../models/run-job';
 import { getVersionDocument } from './networks';
 import { writeCsvTable } from '../../shared/formats/csv-cells';
 import { assertQueueUp, enqueueJobs, removeEntries, requestCancel, type SolveJobData } from './queue';
-import { loadRunsConfig } from './queue-config';
 import { refreshRunStatus } from './runs-status';
-import { quoteRun } from './pricing';
+import { assertStartable, effectivePlan, planLimitError, planRun, type RunActor } from './runs/planning';
 
-type Registry = typeof import('../../shared/engine/solvers/registry');
-type Orchestrate = typeof import('../../shared/engine/solvers/orchestrate');
-// Loaded on first use: the API starts without loading every solver (as the CLI does).
-const registry = (): Registry => require('../../shared/engine/solvers/registry');
-const orchestrate = (): Orchestrate => require('../../shared/engine/solvers/orchestrate');
-
-/** Who asks: the organisation every query is scoped to, the user, and the role for `runs:advanced`. */
-export interface RunActor {
-  organisationId: number;
-  userId: number | null;
-  role: Role | null;
-}
+/** Who asks (see runs/planning.ts). */
+export type { RunActor } from './runs/planning';
 
 export type RunServiceDeps = Pick<Deps, 'db' | 'models' | 'redis' | 'mailer' | 'config' | 'logger' | 'runHooks'>;
-
-/** Solvers that simulate fewer qubits than the direct encoding (decomposition) say how many. */
-interface QubitAware {
-  simulatedQubits?: (problem: Problem, settings: unknown) => number;
-}
 
 const iso = (d: Date | null | undefined): string | null => (d ? new Date(d).toISOString() : null);
 const parseJson = <T>(text: string | null | undefined, fallback: T): T => {
@@ -50,145 +33,21 @@ const parseJson = <T>(text: string | null | undefined, fallback: T): T => {
   }
 };
 
-/** Key-order independent JSON, to compare settings with the defaults. */
-function stable(value: unknown): string {
-  if (Array.isArray(value)) return `[${value.map(stable).join(',')}]`;
-  if (value && typeof value === 'object') {
-    return `{${Object.keys(value as object).sort().map((k) => `${JSON.stringify(k)}:${stable((value as Record<string, unknown>)[k])}`).join(',')}}`;
-  }
-  return JSON.stringify(value ?? null);
-}
-
-async function planOf(deps: RunServiceDeps, organisationId: number): Promise<string> {
-  const org = await deps.models.Organisation.findByPk(organisationId);
-  return org?.plan ?? 'free';
-}
-
-function planLimit(plan: string, message: string, limit: string): HttpError {
-  const up = nextPlan(plan);
-  const todo = up ? `Upgrade to the ${planLabel(up)} plan (Billing) or make the run smaller.` : 'Make the run smaller.';
-  return new HttpError(402, `${message} ${todo}`, { code: 'plan_limit', limit, plan });
-}
-
-interface CheckedEntry {
-  definition: AnySolverDefinition;
-  /** Settings as given (stored; the worker parses them again). */
-  settings: Record<string, unknown>;
-  isDefault: boolean;
-  refusal: string | null;
-  qubits: number | null;
-}
-
-/**
- * Qubits of the direct encoding. Building the operator is cheap for small networks; beyond
- * DIRECT_QUBITS_EXACT free depots every encoding needs at least one qubit per free depot, which is
- * over every plan's limit anyway, so the API thread never builds a large operator just to refuse it.
- */
-const DIRECT_QUBITS_EXACT = 40;
-function directQubits(problem: Problem): number {
-  let free = 0;
-  for (let i = 0; i < problem.pins.length; i++) if (problem.pins[i] < 0) free++;
-  return free > DIRECT_QUBITS_EXACT ? free : orchestrate().qubitsFor(problem) ?? free;
-}
-
 /** Above this many estimated Pauli terms the preview does not build the operator in the API process. */
 const PREVIEW_MAX_TERMS = 300_000;
 
-/** Field errors of the solver entries: unknown names, kinds, settings out of range. */
-function checkEntries(problem: Problem, entries: CreateRunBody['solvers']): { checked: CheckedEntry[]; fields: Record<string, string[]> } {
-  const { getSolver } = registry();
-  const fields: Record<string, string[]> = {};
-  const checked: CheckedEntry[] = [];
-  entries.forEach((entry, i) => {
-    let definition: AnySolverDefinition;
-    try {
-      definition = getSolver(entry.solver);
-    } catch (e) {
-      fields[`solvers.${i}.solver`] = [(e as Error).message];
-      return;
-    }
-    if (!definition.kinds.includes(problem.kind)) {
-      fields[`solvers.${i}.solver`] = [`${definition.name} answers ${definition.kinds.join(', ')}, not ${problem.kind}; choose another solver`];
-      return;
-    }
-    let parsed: unknown;
-    try {
-      parsed = definition.parseSettings(entry.settings ?? {});
-    } catch (e) {
-      const f = (e as { fields?: Record<string, string> }).fields;
-      if (f) for (const [k, v] of Object.entries(f)) fields[`solvers.${i}.settings.${k}`] = [v];
-      else fields[`solvers.${i}.settings`] = [(e as Error).message];
-      return;
-    }
-    const isDefault = entry.settings === undefined || stable(parsed) === stable(definition.parseSettings({}));
-    const refusal = definition.refuses(problem, parsed);
-    let qubits: number | null = null;
-    const aware = definition as AnySolverDefinition & QubitAware;
-    if (aware.simulatedQubits) qubits = aware.simulatedQubits(problem, parsed);
-    else if (definition.family === 'variational') qubits = directQubits(problem);
-    checked.push({ definition, settings: entry.settings ?? {}, isDefault, refusal, qubits });
-  });
-  return { checked, fields };
-}
-
-async function loadProblem(deps: RunServiceDeps, organisationId: number, versionId: number, spec: ProblemInput) {
-  const version = await deps.models.NetworkVersion.findOne({ where: { id: versionId, organisationId }, attributes: ['id', 'networkId', 'depotCount'] });
-  if (!version) throw notFound('Network version');
-  const document: NetworkDocument = await getVersionDocument(deps as Deps, organisationId, versionId);
-  let problem: Problem;
-  try {
-    problem = bindProblem(buildCompactNetwork(document), spec as ProblemSpec);
-  } catch (e) {
-    throw badRequest((e as Error).message, { problem: [(e as Error).message] });
-  }
-  return { problem, networkId: version.get('networkId') as number, document };
-}
-
-function checkLimits(limits: PlanRunLimits, plan: string, problem: Problem, checked: CheckedEntry[], seconds: number): void {
-  const label = planLabel(plan);
-  if (problem.network.n > limits.maxDepots) {
-    throw planLimit(plan, `The ${label} plan runs networks of up to ${limits.maxDepots} depots; this one has ${problem.network.n}.`, 'depots');
-  }
-  if (seconds > limits.maxSecondsPerSolver) {
-    throw planLimit(plan, `The ${label} plan gives each solver at most ${limits.maxSecondsPerSolver} s; ${seconds} s were asked for.`, 'seconds');
-  }
-  for (const c of checked) {
-    if (c.qubits !== null && c.qubits > limits.maxQubits && c.refusal === null) {
-      throw planLimit(plan, `${c.definition.name} would simulate ${c.qubits} qubits; the ${label} plan allows ${limits.maxQubits}. Try the decomposition solver (qaoa-blocks) or a classical one.`, 'qubits');
-    }
-  }
-}
-
-/** What the price depends on (billing's priceOfRun): size, time, and each solver's family and qubits. */
-function runSizeOf(problem: Problem, checked: CheckedEntry[], seconds: number) {
-  return { depots: problem.network.n, secondsPerSolver: seconds, solvers: checked.map((c) => ({ family: c.definition.family, qubits: c.qubits })) };
-}
-
 /**
- * Create a run: check the version, the problem, every solver entry (settings, refusals, the
- * role's right to non-default settings) and the plan's limits; write the run and its jobs in one
- * transaction; put the jobs on the queue after commit (the reconciler re-adds any that did not
- * make it). `hold` creates it awaiting payment (off the queue until releaseRun).
+ * Create a run: plan it (runs/planning.ts: problem, solvers, rights, size and price — the same
+ * planning the preview shows), write the run and its jobs in one transaction, and put the jobs
+ * on the queue after commit (the reconciler re-adds any that did not make it). A priced run, or
+ * `hold`, is created awaiting payment (off the queue until releaseRun).
  */
 export async function createRun(deps: RunServiceDeps, actor: RunActor, body: CreateRunBody, opts: { hold?: boolean } = {}): Promise<{ id: number; status: RunStatus; price: RunPrice | null }> {
-  const rc = loadRunsConfig();
-  const { problem, networkId } = await loadProblem(deps, actor.organisationId, body.versionId, body.problem);
-  const { checked, fields } = checkEntries(problem, body.solvers);
-  if (Object.keys(fields).length > 0) throw badRequest('Some solver choices are not valid.', fields);
-  const refusals: Record<string, string[]> = {};
-  checked.forEach((c, i) => { if (c.refusal !== null) refusals[`solvers.${i}.solver`] = [`${c.definition.name} refuses this problem: ${c.refusal}`]; });
-  if (Object.keys(refusals).length > 0) throw badRequest('Some solvers cannot take this problem.', refusals);
-  if (!can(actor.role, 'runs:advanced') && checked.some((c) => !c.isDefault)) {
-    throw forbidden(`Your role (${actor.role ?? 'none'}) may start runs with the default solver settings only; remove the custom settings or ask an analyst or admin (runs:advanced).`);
-  }
-  const plan = await planOf(deps, actor.organisationId);
-  const limits = runLimits(plan);
-  const seconds = body.timeLimitSeconds ?? Math.min(rc.RUN_DEFAULT_SECONDS, limits.maxSecondsPerSolver);
-  // Billing: above the plan's included size a run is priced (up to the paid ceiling) and held until paid.
-  // A paid run may go up to the next plan's limits.
-  const { price } = await quoteRun(deps, actor.organisationId, runSizeOf(problem, checked, seconds));
-  const ceiling = price ? paidRunPlan(plan) : plan;
-  checkLimits(runLimits(ceiling), ceiling, problem, checked, seconds);
+  const planned = await planRun(deps, actor, body);
+  assertStartable(planned);
+  const { problem, networkId, solvers, limits, seconds, plan } = planned;
+  const price = planned.quote.price;
+  const ceiling = effectivePlan(planned);
   const active = await deps.models.Run.count({ where: { organisationId: actor.organisationId, status: ['queued', 'running'], deletedAt: null } });
   if (active >= limits.maxActiveRuns) {
     throw new HttpError(429, `Your organisation already has ${active} runs waiting or running (the ${planLabel(plan)} plan allows ${limits.maxActiveRuns} at once). Wait for some to finish or cancel one.`, { code: 'too_many_runs' });
@@ -207,7 +66,7 @@ export async function createRun(deps: RunServiceDeps, actor: RunActor, body: Cre
     );
     const runId = run.get('id') as number;
     const jobs = await deps.models.RunJob.bulkCreate(
-      checked.map((c, position) => ({
+      solvers.map((c, position) => ({
         runId, organisationId: actor.organisationId, position, solver: c.definition.name, settings: JSON.stringify(c.settings), status: 'queued' as JobStatus, queuedAt: now,
       })),
       { transaction },
@@ -238,45 +97,53 @@ export async function releaseRun(deps: RunServiceDeps, runId: number): Promise<b
   return true;
 }
 
-/** The encoding summary, per-solver refusals and time budgets — nothing is written. */
+/**
+ * The preview: the same planning as createRun (nothing is written) shown per solver — qubits,
+ * refusal, whether the role may use its settings — plus the encoding summary of the widest circuit
+ * a chosen solver simulates, the price or the size refusal, and `blockers`: every reason the run
+ * would not start (the app disables Start while there is one).
+ */
 export async function previewRun(deps: RunServiceDeps, actor: RunActor, body: PreviewBody) {
-  const rc = loadRunsConfig();
-  const { problem } = await loadProblem(deps, actor.organisationId, body.versionId, body.problem);
-  const { checked, fields } = checkEntries(problem, body.solvers);
-  const plan = await planOf(deps, actor.organisationId);
-  const limits = runLimits(plan);
-  const seconds = body.timeLimitSeconds ?? Math.min(rc.RUN_DEFAULT_SECONDS, limits.maxSecondsPerSolver);
-  let encoding: ReturnType<Orchestrate['describeEncoding']> | null = null;
+  const planned = await planRun(deps, actor, body);
+  const { problem, solvers, plan, limits, seconds, quote } = planned;
+  // Describe what a chosen solver will simulate (k regions: the first split), else the direct encoding.
+  const chosen = solvers.map((c) => c.definition.circuit(problem, c.parsed)).find((c) => c !== null) ?? null;
+  const target = chosen ?? { problem, options: {}, what: `the direct ${problem.kind === 'kway' ? 'one-hot k-way' : problem.kind} encoding (no chosen solver simulates a circuit)` };
+  let encoding: ReturnType<typeof describeEncoding> | null = null;
   let encodingNote: string | null = null;
   try {
-    const terms = orchestrate().estimatedPauliTerms(problem);
-    if (terms > PREVIEW_MAX_TERMS) throw new Error(`the direct ${problem.kind} operator would have about ${Math.round(terms).toLocaleString('en')} Pauli terms; too large to summarise here (the variational solvers would refuse it; qaoa-blocks splits it into blocks)`);
-    encoding = orchestrate().describeEncoding(problem, body.precision !== undefined ? { precision: body.precision } : {});
+    const terms = estimatedPauliTerms(target.problem);
+    if (terms > PREVIEW_MAX_TERMS) throw new Error(`the ${problem.kind} operator would have about ${Math.round(terms).toLocaleString('en')} Pauli terms; too large to summarise here (the variational solvers would refuse it; qaoa-blocks splits it into blocks)`);
+    encoding = describeEncoding(target.problem, { ...target.options, ...(body.precision !== undefined ? { precision: body.precision } : {}) });
   } catch (e) {
     encodingNote = (e as Error).message;
   }
-  const quote = await quoteRun(deps, actor.organisationId, runSizeOf(problem, checked, seconds));
-  let limitProblem: string | null = null;
-  try {
-    const ceiling = quote.price ? paidRunPlan(plan) : plan;
-    checkLimits(runLimits(ceiling), ceiling, problem, checked, seconds);
-  } catch (e) {
-    limitProblem = (e as Error).message;
-  }
+  const limitProblem = planned.limitRefusal ? planLimitError(plan, planned.limitRefusal).message : null;
+  const blockers = [
+    ...Object.values(planned.fields).flat(),
+    ...Object.values(planned.refusals).flat(),
+    ...(planned.forbidden ? [planned.forbidden] : []),
+    ...(limitProblem ? [limitProblem] : []),
+  ];
   // Each solver may use its time limit, then the orchestrator spends up to min(10 s, limit/5) on bounds.
   const boundSeconds = Math.min(10, Math.max(0.5, seconds / 5));
   return {
     depots: problem.network.n,
     lanes: problem.network.m,
     encoding,
+    /** Which circuit the encoding summary describes, in words. */
+    circuit: target.what,
     encodingNote,
     plan: { id: plan, label: planLabel(plan), limits },
     limitProblem,
-    /** Billing: the price when this is a paid run (null = free), and whether the credits cover it. */
+    /** Billing: the price when this is a paid run (null = free or refused), and whether the credits cover it. */
     price: quote.price ? { ...quote.price, label: formatMoney(quote.price) } : null,
     quote,
-    fields,
-    solvers: checked.map((c) => ({
+    fields: planned.fields,
+    forbidden: planned.forbidden,
+    blockers,
+    startable: blockers.length === 0,
+    solvers: solvers.map((c) => ({
       solver: c.definition.name,
       label: c.definition.label,
       family: c.definition.family,
@@ -294,7 +161,7 @@ export async function previewRun(deps: RunServiceDeps, actor: RunActor, body: Pr
 function jobView(row: RunJobRow): JobView {
   let label = row.solver, family = 'unknown';
   try {
-    const d = registry().getSolver(row.solver);
+    const d = getSolver(row.solver);
     label = d.label;
     family = d.family;
   } catch {
@@ -447,12 +314,10 @@ function pickJob(view: RunView, jobId?: number): JobView {
     if (!j.result) throw conflict(`Job ${jobId} has no result yet (status ${j.status}).`);
     return j;
   }
-  const max = view.problem.kind === 'maxcut';
   const withResult = view.jobs.filter((j) => j.result !== null);
   if (withResult.length === 0) throw conflict('This run has no result yet; download it once a solver has finished.');
-  const feasible = withResult.filter((j) => !j.result!.infeasible);
-  const pool = feasible.length > 0 ? feasible : withResult;
-  return pool.reduce((best, j) => ((max ? j.result!.value > best.result!.value : j.result!.value < best.result!.value) ? j : best));
+  // problem/compare.ts: a feasible answer first, then the better value.
+  return bestOf(senseOf(view.problem.kind), withResult, (j) => ({ value: j.result!.value, feasible: !j.result!.infeasible }))!;
 }
 
 /** CSV: depot id, name, side (max-cut, bisection) or region (k-way) of the chosen job. */

@@ -5,31 +5,34 @@ import { buildCompactNetwork } from '../../shared/engine/network/build';
 import { bindProblem } from '../../shared/engine/problem/bind';
 import type { Problem } from '../../shared/engine/problem/types';
 import type { ProblemInput } from '../../shared/schemas/runs';
-import { getSolver, listSolvers } from '../../shared/engine/solvers/registry';
-import { qubitsFor } from '../../shared/engine/solvers/orchestrate';
+import { askSolver, getSolver, listSolvers } from '../../shared/engine/solvers/registry';
+import { runLimits, runSizeRefusal } from '../../shared/plans';
 import { defaultSolvers } from '../../shared/runs/default-solvers';
+import { loadRunsConfig } from './queue-config';
+import { planOf } from './runs/planning';
+
+/** One solver's answer for this question with its default settings. */
+export interface SolverAnswerView {
+  name: string;
+  /** Qubits it would simulate (0 for classical). */
+  qubits: number;
+  /** Why the solver, or the plan, refuses it; null when it can run. */
+  refusal: string | null;
+}
 
 export interface SolverDefaults {
   defaults: string[];
   depots: number;
   lanes: number;
-  /** Qubits of the direct encoding, or null when it would be too large to build. */
-  qubits: number | null;
-  /** Qubits the circuit solvers need with their default strategy (k-way: its first bisection). */
-  circuitQubits: number | null;
+  /** Every solver that answers this kind of question, as it answered (the app shows these figures). */
+  solvers: SolverAnswerView[];
 }
 
-/** A solver that would refuse the problem with default settings is never a default. */
-function accepts(name: string, problem: Problem): boolean {
-  try {
-    const d = getSolver(name);
-    return d.refuses(problem, d.parseSettings({})) === null;
-  } catch {
-    return false;
-  }
-}
-
-/** The default solver set for a question on one network version (the app's run setup reads it). */
+/**
+ * The default solver set for a question on one network version (the app's run setup reads it).
+ * Every solver is asked with default settings; one that refuses, or that the plan's size rule
+ * refuses, is never a default, and circuits stay within the plan's included qubits.
+ */
 export async function solverDefaultsFor(deps: Deps, organisationId: number, versionId: number, problem: ProblemInput): Promise<SolverDefaults> {
   const doc = await getVersionDocument(deps, organisationId, versionId);
   let bound: Problem;
@@ -38,12 +41,16 @@ export async function solverDefaultsFor(deps: Deps, organisationId: number, vers
   } catch (err) {
     throw badRequest((err as Error).message);
   }
-  const qubits = qubitsFor(bound);
-  // The variational solvers split k regions by recursive bisection by default, so their circuits
-  // are as wide as the first bisection, not the one-hot k-way operator.
-  const circuitQubits = problem.kind === 'kway' ? qubitsFor(bindProblem(bound.network, { kind: 'bisection', tolerance: problem.tolerance })) : qubits;
+  const plan = await planOf(deps, organisationId);
+  const limits = runLimits(plan);
+  const seconds = Math.min(loadRunsConfig().RUN_DEFAULT_SECONDS, limits.maxSecondsPerSolver);
+  const listing = listSolvers(problem.kind).map((s) => {
+    const answer = askSolver(getSolver(s.name), bound, {});
+    const planRefusal = runSizeRefusal(plan, { depots: bound.network.n, secondsPerSolver: seconds, solvers: [{ name: s.name, family: s.family, qubits: answer.qubits }] });
+    return { ...s, qubits: answer.qubits, refusal: answer.refusal ?? planRefusal?.message ?? null };
+  });
   const pinned = Array.from(bound.pins).filter((p) => p >= 0).length;
-  const size = { kind: problem.kind, depots: bound.network.n, k: bound.k, pinned, qubits: circuitQubits };
-  const defaults = defaultSolvers(size, listSolvers()).filter((name) => accepts(name, bound));
-  return { defaults, depots: bound.network.n, lanes: bound.network.m, qubits, circuitQubits };
+  const size = { kind: problem.kind, depots: bound.network.n, k: bound.k, pinned };
+  const defaults = defaultSolvers(size, listing.map((s) => ({ ...s, refused: s.refusal !== null })), { maxQubits: limits.maxQubits });
+  return { defaults, depots: bound.network.n, lanes: bound.network.m, solvers: listing.map((s) => ({ name: s.name, qubits: s.qubits, refusal: s.refusal })) };
 }

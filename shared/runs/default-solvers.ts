@@ -1,7 +1,8 @@
 /**
  * Which solvers a new run starts with, chosen from the question's size — one function so the
- * API, the app and the CLI agree. Pure: it reads only the listing it is given (the registry's
- * `listSolvers()`), so it never offers a solver that does not exist.
+ * API, the app and the CLI agree. Pure: it reads only the listing it is given, where each solver
+ * has already answered for this problem (SolverDefinition.qubits / refuses, and the plan's size
+ * rule), so it never offers a solver that does not exist, refuses, or that the plan refuses.
  */
 import type { ProblemKind } from '../engine/problem/types';
 
@@ -13,15 +14,22 @@ export interface ProblemSize {
   k?: number;
   /** Depots already pinned to a side or region (exact enumeration skips them). */
   pinned?: number;
-  /** Qubits of the direct encoding (describeEncoding / qubitsFor), or null when too large to build. */
-  qubits: number | null;
 }
 
-/** Just what the choice needs from a registry listing. */
+/** What the choice needs from a listing, plus each solver's answer for this problem (default settings). */
 export interface ListedSolver {
   name: string;
   family: 'exact' | 'bound' | 'heuristic' | 'variational';
   kinds: readonly ProblemKind[];
+  /** Qubits the solver says it would simulate here (0 or absent for classical). */
+  qubits?: number;
+  /** True when the solver or the plan refuses this problem. */
+  refused?: boolean;
+}
+
+export interface DefaultOptions {
+  /** Most qubits a default variational solver may simulate (the plan's included qubits). */
+  maxQubits?: number;
 }
 
 /** Exact enumeration is offered up to this many assignments (k^free depots): seconds on one core. */
@@ -48,20 +56,22 @@ export function exactLog2Assignments(size: ProblemSize): number {
 
 /**
  * The default solver names for a question of this size, in the order the scorecard shows them:
- * exact (when small enough), the strongest classical heuristic, then QAOA and VQE when their
- * qubits fit — or the decomposition solver when they do not.
+ * exact (when small enough), the strongest classical heuristic, then QAOA and VQE when the
+ * qubits each says it simulates fit — or the decomposition solver when they do not.
  */
-export function defaultSolvers(size: ProblemSize, listing: readonly ListedSolver[]): string[] {
-  const offered = (name: string) => listing.some((s) => s.name === name && s.kinds.includes(size.kind));
+export function defaultSolvers(size: ProblemSize, listing: readonly ListedSolver[], opts: DefaultOptions = {}): string[] {
+  const find = (name: string) => listing.find((s) => s.name === name && s.kinds.includes(size.kind) && !s.refused);
+  const offered = (name: string) => find(name) !== undefined;
+  const qubitLimit = Math.min(VARIATIONAL_MAX_QUBITS, opts.maxQubits ?? Infinity);
+  const fits = (name: string) => (find(name)?.qubits ?? 0) <= qubitLimit;
   const picks: string[] = [];
   if (offered('exact') && exactLog2Assignments(size) <= Math.log2(EXACT_MAX_ASSIGNMENTS)) picks.push('exact');
   const heuristic = HEURISTIC_PREFERENCE[size.kind].find(offered);
   if (heuristic) picks.push(heuristic);
-  const fits = size.qubits !== null && size.qubits <= VARIATIONAL_MAX_QUBITS;
-  if (fits) {
-    for (const name of ['qaoa', 'vqe']) if (offered(name)) picks.push(name);
-  } else {
-    const decomposition = DECOMPOSITION_NAMES.find(offered);
+  const circuits = ['qaoa', 'vqe'].filter((name) => offered(name) && fits(name));
+  if (circuits.length > 0) picks.push(...circuits);
+  else {
+    const decomposition = DECOMPOSITION_NAMES.find((name) => offered(name) && fits(name));
     if (decomposition) picks.push(decomposition);
   }
   return picks;

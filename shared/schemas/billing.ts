@@ -23,7 +23,7 @@ export const LedgerQuerySchema = z.object({ limit: z.coerce.number().int().min(1
 export const QuoteBodySchema = z.object({
   depots: z.number().int().min(0),
   secondsPerSolver: z.number().min(0),
-  solvers: z.array(z.object({ family: z.string(), qubits: z.number().int().min(0).nullable() })).max(20),
+  solvers: z.array(z.object({ name: z.string().max(40).optional(), family: z.string(), qubits: z.number().int().min(0).nullable() })).max(20),
 });
 export type QuoteBody = z.infer<typeof QuoteBodySchema>;
 
@@ -47,6 +47,10 @@ export interface RunQuote {
   runsThisMonth: number;
   monthlyFreeRuns: number;
   note: string;
+  /** Why no run of this size can start on this plan (then `price` is null), or null. */
+  refusal: string | null;
+  /** The most any run can cost on this plan (runPriceCeiling); every price is at most this. */
+  ceiling: Price;
 }
 
 export interface RunChargeView {

@@ -53,7 +53,10 @@ test('the listing is the engine registry: names, labels, families, questions, gu
 test('small max-cut (12 depots, 12 qubits): exact, tabu, QAOA and VQE', async () => {
   const versionId = await versionOf('Small ring', 12);
   const res = await viewer.post('/solvers/defaults', { versionId, problem: { kind: 'maxcut' } }).expect(200);
-  expect(res.body).toEqual({ defaults: ['exact', 'tabu', 'qaoa', 'vqe'], depots: 12, lanes: 24, qubits: 12, circuitQubits: 12 });
+  expect(res.body).toMatchObject({ defaults: ['exact', 'tabu', 'qaoa', 'vqe'], depots: 12, lanes: 24 });
+  // Each solver answered for itself: one qubit per depot for the circuits, none for classical solvers.
+  const q = Object.fromEntries(res.body.solvers.map((s: { name: string; qubits: number }) => [s.name, s.qubits]));
+  expect(q).toMatchObject({ exact: 0, tabu: 0, qaoa: 12, vqe: 12 });
 });
 
 test('balanced split with a pinned depot: exact, then FM as the heuristic', async () => {
@@ -65,17 +68,19 @@ test('balanced split with a pinned depot: exact, then FM as the heuristic', asyn
 test('three regions on 12 depots: exact (3^12 assignments), FM, and the circuits sized by their first bisection', async () => {
   const versionId = await versionOf('Region ring', 12);
   const res = await viewer.post('/solvers/defaults', { versionId, problem: { kind: 'kway', k: 3, tolerance: 0.1 } }).expect(200);
-  // The one-hot operator needs at least n·k = 36 qubits (plus balance slack); the recursive
-  // split's first bisection far fewer.
-  expect(res.body.qubits).toBeGreaterThanOrEqual(36);
-  expect(res.body.circuitQubits).toBeLessThanOrEqual(20);
+  // The one-hot operator would need at least n·k = 36 qubits; the solvers run recursive bisection,
+  // whose widest circuit is the first split: 12 depot qubits plus a few slack qubits.
+  const qaoa = res.body.solvers.find((s: { name: string }) => s.name === 'qaoa');
+  expect(qaoa.qubits).toBeGreaterThanOrEqual(12);
+  expect(qaoa.qubits).toBeLessThanOrEqual(16); // within the free plan's included qubits, so a default
   expect(res.body.defaults).toEqual(['exact', 'fm', 'qaoa', 'vqe']);
 });
 
 test('large max-cut (60 depots): no exact enumeration (2^60), decomposition instead of direct circuits', async () => {
   const versionId = await versionOf('Large ring', 60);
   const res = await viewer.post('/solvers/defaults', { versionId, problem: { kind: 'maxcut' } }).expect(200);
-  expect(res.body.qubits).toBe(60);
+  const q = Object.fromEntries(res.body.solvers.map((s: { name: string; qubits: number }) => [s.name, s.qubits]));
+  expect(q).toMatchObject({ qaoa: 60, 'qaoa-blocks': 14 }); // blocks of 14 depots: the widest circuit
   expect(res.body.defaults).toEqual(['tabu', 'qaoa-blocks']);
 });
 

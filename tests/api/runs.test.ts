@@ -252,6 +252,20 @@ describe('who may do what', () => {
     expect(refused.status).toBe(400);
   });
 
+  test('seed and time limit need the analysts\' permission: a dispatcher gets a 403 that says so', async () => {
+    for (const extra of [{ seed: 7 }, { timeLimitSeconds: 5 }]) {
+      const dispatcher = await as(org.tokens.dispatcher).post('/runs', { ...body(), ...extra });
+      expect(dispatcher.status).toBe(403);
+      expect(dispatcher.body.error).toMatch(/reserved for analysts and admins \(runs:advanced\)/);
+      expect(dispatcher.body.error).toMatch('seed' in extra ? /fixed seed/ : /time limit/);
+      const preview = await as(org.tokens.dispatcher).post('/runs/preview', { ...body(), ...extra });
+      expect(preview.status).toBe(200);
+      expect(preview.body.startable).toBe(false); // the app's Start stays disabled with the same reason
+      expect(preview.body.forbidden).toMatch(/runs:advanced/);
+      expect((await as(org.tokens.analyst).post('/runs', { ...body(), ...extra })).status).toBe(201);
+    }
+  });
+
   test('over the included size a run is priced and held (billing); beyond the paid ceiling 402 with what to do', async () => {
     const free = await orgWithTokens(t.deps, 'Free yard', 'free');
     const mid = await saveNetwork(t.app, free.tokens.dispatcher, networkBody('Twenty', 20, randomEdges(20, 0.3, 5)));
@@ -268,7 +282,7 @@ describe('who may do what', () => {
     const blocks = await as(free.tokens.dispatcher).post('/runs', { versionId: mid.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa-blocks' }] });
     expect(blocks.status).toBe(201); // 14-qubit blocks fit the free plan
     expect(blocks.body.price).toBeNull();
-    const time = await as(free.tokens.dispatcher).post('/runs', { versionId: mid.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 900 });
+    const time = await as(free.tokens.analyst).post('/runs', { versionId: mid.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 900 });
     expect(time.status).toBe(402);
     expect(time.body.limit).toBe('seconds');
   });

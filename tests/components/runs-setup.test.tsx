@@ -41,26 +41,35 @@ describe('run setup rules', () => {
 });
 
 describe('defaultSolvers (shared by API and app)', () => {
-  const listing = [
+  // Each solver has answered for the problem: the qubits it would simulate, whether it (or the plan) refuses.
+  const listing = (qubits: number, extra: Record<string, { qubits?: number; refused?: boolean }> = {}) => [
     { name: 'exact', family: 'exact' as const, kinds: ['maxcut', 'bisection', 'kway'] as const },
     { name: 'tabu', family: 'heuristic' as const, kinds: ['maxcut', 'bisection'] as const },
     { name: 'fm', family: 'heuristic' as const, kinds: ['bisection', 'kway'] as const },
-    { name: 'qaoa', family: 'variational' as const, kinds: ['maxcut', 'bisection', 'kway'] as const },
-    { name: 'vqe', family: 'variational' as const, kinds: ['maxcut', 'bisection', 'kway'] as const },
-    { name: 'decomposed', family: 'variational' as const, kinds: ['maxcut'] as const },
-  ];
+    { name: 'qaoa', family: 'variational' as const, kinds: ['maxcut', 'bisection', 'kway'] as const, qubits },
+    { name: 'vqe', family: 'variational' as const, kinds: ['maxcut', 'bisection', 'kway'] as const, qubits },
+    { name: 'decomposed', family: 'variational' as const, kinds: ['maxcut'] as const, qubits: 14 },
+  ].map((s) => ({ ...s, ...extra[s.name] }));
   test('small max-cut: exact, tabu, QAOA and VQE', () => {
-    expect(defaultSolvers({ kind: 'maxcut', depots: 12, qubits: 12 }, listing)).toEqual(['exact', 'tabu', 'qaoa', 'vqe']);
+    expect(defaultSolvers({ kind: 'maxcut', depots: 12 }, listing(12))).toEqual(['exact', 'tabu', 'qaoa', 'vqe']);
   });
   test('bisection uses FM as its heuristic', () => {
-    expect(defaultSolvers({ kind: 'bisection', depots: 12, qubits: 16 }, listing)).toEqual(['exact', 'fm', 'qaoa', 'vqe']);
+    expect(defaultSolvers({ kind: 'bisection', depots: 12 }, listing(16))).toEqual(['exact', 'fm', 'qaoa', 'vqe']);
   });
   test('large max-cut: no exact enumeration (2^200 assignments), decomposition instead of direct circuits', () => {
-    expect(defaultSolvers({ kind: 'maxcut', depots: 200, qubits: 200 }, listing)).toEqual(['tabu', 'decomposed']);
-    expect(defaultSolvers({ kind: 'maxcut', depots: 30, qubits: VARIATIONAL_MAX_QUBITS + 1 }, listing)).toEqual(['tabu', 'decomposed']);
+    expect(defaultSolvers({ kind: 'maxcut', depots: 200 }, listing(200))).toEqual(['tabu', 'decomposed']);
+    expect(defaultSolvers({ kind: 'maxcut', depots: 30 }, listing(VARIATIONAL_MAX_QUBITS + 1))).toEqual(['tabu', 'decomposed']);
   });
   test('pinned depots shrink the exact search (30 depots, 10 pinned: 2^20 assignments)', () => {
-    expect(defaultSolvers({ kind: 'maxcut', depots: 30, pinned: 10, qubits: 30 }, listing)[0]).toBe('exact');
+    expect(defaultSolvers({ kind: 'maxcut', depots: 30, pinned: 10 }, listing(20))[0]).toBe('exact');
+  });
+  test('k regions: the qubits the solvers simulate decide (15 for the first split), not the one-hot count', () => {
+    expect(defaultSolvers({ kind: 'kway', depots: 12, k: 3 }, listing(15))).toEqual(['exact', 'fm', 'qaoa', 'vqe']);
+  });
+  test('never a solver that refuses or that the plan refuses, and circuits stay within the plan\'s qubits', () => {
+    expect(defaultSolvers({ kind: 'maxcut', depots: 12 }, listing(12, { qaoa: { refused: true } }))).toEqual(['exact', 'tabu', 'vqe']);
+    expect(defaultSolvers({ kind: 'maxcut', depots: 18 }, listing(18), { maxQubits: 16 })).toEqual(['exact', 'tabu', 'decomposed']);
+    expect(defaultSolvers({ kind: 'maxcut', depots: 200 }, listing(200, { decomposed: { refused: true } }))).toEqual(['tabu']);
   });
 });
 

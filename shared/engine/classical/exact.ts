@@ -1,5 +1,6 @@
 import { maxPartWeight } from '../problem/evaluate';
-import type { Problem } from '../problem/types';
+import { better } from '../problem/compare';
+import { senseOf, type Problem } from '../problem/types';
 
 /**
  * Exact enumeration for max-cut and balanced bisection (two sides).
@@ -222,7 +223,8 @@ export function betterExact(problem: Problem, a: ExactBest, b: ExactBest): Exact
   const complete = a.complete && b.complete;
   if (a.assignment === null) return { ...b, states, complete };
   if (b.assignment === null) return { ...a, states, complete };
-  const takeB = problem.kind === 'maxcut' ? b.value > a.value : b.value < a.value;
+  // Both walks keep balanced states only: the shared rule then compares values.
+  const takeB = better(senseOf(problem.kind), { value: b.value, feasible: true }, { value: a.value, feasible: true });
   return { ...(takeB ? b : a), states, complete };
 }
 

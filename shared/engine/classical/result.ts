@@ -1,4 +1,6 @@
-import { crossingWeight, gapOf, isBalanced, respectsPins } from '../problem/evaluate';
+import { crossingWeight, isBalanced, respectsPins } from '../problem/evaluate';
+import { gapOfKind, meets } from '../problem/compare';
+import { senseOf } from '../problem/types';
 import type { Problem } from '../problem/types';
 import type { SolveResult } from '../solvers/types';
 
@@ -27,9 +29,9 @@ export function classicalResult(problem: Problem, outcome: ClassicalOutcome): So
     value,
     assignment,
     bound,
-    gap: gapOf(problem.kind, value, bound),
+    gap: infeasible ? null : gapOfKind(problem.kind, value, bound),
     // Proven when the solver says so or when its own bound meets the recomputed value.
-    provenOptimal: ((outcome.provenOptimal ?? false) || meetsBound(problem.kind, value, bound)) && !infeasible,
+    provenOptimal: ((outcome.provenOptimal ?? false) || meets(senseOf(problem.kind), value, bound)) && !infeasible,
     energy: null,
     expectation: null,
     params: null,
@@ -41,11 +43,6 @@ export function classicalResult(problem: Problem, outcome: ClassicalOutcome): So
   };
 }
 
-function meetsBound(kind: Problem['kind'], value: number, bound: number | null): boolean {
-  if (bound === null) return false;
-  const tol = 1e-9 * Math.max(1, Math.abs(value));
-  return kind === 'maxcut' ? value >= bound - tol : value <= bound + tol;
-}
 
 /** Indices of free (unpinned) depots, in input order. */
 export function freeDepots(pins: Int32Array): Int32Array {

@@ -49,13 +49,8 @@ export function respectsPins(problem: Problem, assignment: ArrayLike<number>): b
   return true;
 }
 
-/** Gap between a value and a proven bound, in the direction of the problem's sense. */
-export function gapOf(kind: Problem['kind'], value: number, bound: number | null): number | null {
-  if (bound === null || !Number.isFinite(bound)) return null;
-  if (kind === 'maxcut') {
-    if (bound <= 0) return value >= bound ? 0 : null;
-    return Math.max(0, (bound - value) / bound);
-  }
-  if (value <= 0) return value <= bound ? 0 : null;
-  return Math.max(0, (value - bound) / value);
+
+/** Pins kept and balance rule met: the feasibility that problem/compare.ts ranks first. */
+export function isFeasible(problem: Problem, assignment: ArrayLike<number>): boolean {
+  return respectsPins(problem, assignment) && isBalanced(problem, assignment);
 }

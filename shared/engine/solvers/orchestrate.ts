@@ -8,13 +8,14 @@
 import { encodeProblem, type EncodingOptions, type PenaltyTerm } from '../encodings';
 import { groupQubitWise } from '../operators/grouping';
 import { isingToPauliSum } from '../operators/pauli';
-import { crossingWeight, gapOf, isBalanced, respectsPins } from '../problem/evaluate';
+import { contradicts, gap as gapOf, meets, sameValue, tighter } from '../problem/compare';
+import { crossingWeight, isBalanced, isFeasible, respectsPins } from '../problem/evaluate';
 import { senseOf, type Problem, type Sense } from '../problem/types';
-import { computeBounds } from './classical';
+import { computeBounds } from './bounds';
 import { getSolver, type AnySolverDefinition } from './registry';
 import type { SolveContext, SolveResult } from './types';
 
-/** What a bound provider returns (shared/engine/solvers/classical.ts computeBounds). */
+/** What a bound provider returns (shared/engine/solvers/bounds.ts computeBounds). */
 export interface BoundReport {
   bound: number | null;
   source: string;
@@ -56,10 +57,7 @@ export interface Orchestrator {
   solveProblem(problem: Problem, solverName: string, settings: unknown, ctx: SolveContext, options?: RunOptions): Promise<RunResult>;
 }
 
-/** Relative tolerance for "the bound meets the value". */
-export const OPTIMALITY_TOLERANCE = 1e-9;
-
-const close = (a: number, b: number) => Math.abs(a - b) <= OPTIMALITY_TOLERANCE * Math.max(1, Math.abs(a), Math.abs(b));
+const close = sameValue;
 
 /**
  * With integer lane weights every crossing weight is an integer, so an upper bound may be
@@ -76,9 +74,6 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
   return {
     async solveProblem(problem, solverName, settingsInput, ctx, options = {}) {
       const solver = lookup(solverName);
-      if (!solver.kinds.includes(problem.kind)) {
-        throw new SolverRefusedError(solver.name, `it answers ${solver.kinds.join(', ')}, not ${problem.kind}`);
-      }
       const settings = solver.parseSettings(settingsInput ?? {});
       const reason = solver.refuses(problem, settings);
       if (reason !== null) throw new SolverRefusedError(solver.name, reason);
@@ -119,18 +114,17 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
       let bound: number | null = null, boundSource: string | null = null;
       for (const c of candidates) {
         const b = roundBound(problem, sense, c.bound);
-        const contradicts = !infeasible && (sense === 'max' ? b < value && !close(b, value) : b > value && !close(b, value));
-        if (contradicts) {
+        if (!infeasible && contradicts(sense, value, b)) {
           notes.push(`bound ${c.bound} from ${c.source} contradicts the value found (${value}) and was discarded`);
           continue;
         }
-        if (bound === null || (sense === 'max' ? b < bound : b > bound)) {
+        if (bound === null || tighter(sense, b, bound)) {
           bound = b;
           boundSource = b === c.bound ? c.source : `${c.source}, rounded to integer weights`;
         }
       }
-      const gap = infeasible ? null : gapOf(problem.kind, value, bound);
-      const provenOptimal = !infeasible && bound !== null && close(bound, value);
+      const gap = infeasible ? null : gapOf(sense, value, bound);
+      const provenOptimal = !infeasible && meets(sense, value, bound);
       if (raw.provenOptimal && !provenOptimal) notes.push('the solver claimed optimality but no bound confirms it');
 
       const result: RunResult = {
@@ -152,7 +146,8 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
         notes,
       };
       if (raw.trace) result.trace = raw.trace;
-      if (raw.samples) result.samples = raw.samples;
+      // Every sample says whether it is feasible (recomputed here), so lists and charts rank it the same way.
+      if (raw.samples) result.samples = raw.samples.map((x) => ({ ...x, feasible: isFeasible(problem, x.assignment) }));
       if (raw.circuit) result.circuit = raw.circuit;
       if (raw.circuitSpec) result.circuitSpec = raw.circuitSpec;
       if (raw.refinement) result.refinement = raw.refinement;
@@ -263,9 +258,3 @@ export function describeEncoding(problem: Problem, opts: DescribeOptions = {}): 
 }
 
 const fmt = (x: number) => (Number.isInteger(x) ? String(x) : x.toPrecision(6));
-
-/** Qubits of the direct encoding, or null when the operator would be too large to build. */
-export function qubitsFor(problem: Problem, opts: EncodingOptions = {}): number | null {
-  if (estimatedPauliTerms(problem) > MAX_DESCRIBED_TERMS) return null;
-  return encodeProblem(problem, opts).numQubits;
-}

@@ -5,59 +5,47 @@
  * statevector wider than the exact remainder (stopAt spins) is ever built.
  */
 import { z } from 'zod';
-import { SettingsError } from '../classical/settings';
 import type { Problem } from '../problem/types';
 import { defaultBatchFraction, RQAOA_MAX_REMAINDER } from '../variational/rqaoa';
 import { rqaoaOnProblem, rqaoaRefusal } from '../variational/rqaoa-problem';
-import type { SolverDefinition } from './types';
+import { defineSolver } from './define';
+import { booleanField, intField, settingsObject } from './settings';
 
-const got = (x: unknown) => JSON.stringify(x);
-const schema = z.object({
-  stopAt: z.number({ error: (i) => `must be a number (got ${got(i.input)})` }).int({ error: (i) => `must be a whole number (got ${got(i.input)})` })
-    .min(1, { error: (i) => `must lie in 1…${RQAOA_MAX_REMAINDER} (got ${got(i.input)})` }).max(RQAOA_MAX_REMAINDER, { error: (i) => `must lie in 1…${RQAOA_MAX_REMAINDER} (got ${got(i.input)})` }).default(16),
-  batch: z.union([z.literal('auto'), z.number().min(0).max(0.5)]).default('auto'),
-  refine: z.boolean({ error: (i) => `must be true or false (got ${got(i.input)})` }).default(true),
-}).strict();
+const settings = settingsObject({
+  stopAt: intField(16, 1, RQAOA_MAX_REMAINDER),
+  batch: z.union([z.literal('auto'), z.number().min(0).max(0.5)], { error: (i) => `give 'auto' or a share of the spins per round in 0…0.5 (0 = one per round; got ${JSON.stringify(i.input)})` }).default('auto'),
+  refine: booleanField(true),
+});
 
-export type RqaoaSettings = z.infer<typeof schema>;
+export type RqaoaSettings = z.output<typeof settings>;
 
-export function parseRqaoaSettings(input: unknown): RqaoaSettings {
-  const r = schema.safeParse(input ?? {});
-  if (r.success) return r.data;
-  const fields: Record<string, string> = {};
-  for (const issue of r.error.issues) {
-    if (issue.code === 'unrecognized_keys') for (const k of issue.keys) fields[k] = `unknown setting; allowed: ${Object.keys(schema.shape).join(', ')}`;
-    else if (issue.path[0] === 'batch') fields.batch = `give 'auto' or a share of the spins per round in 0…0.5 (0 = one per round; got ${got((input as Record<string, unknown>).batch)})`;
-    else fields[issue.path.join('.') || 'settings'] = issue.message;
-  }
-  throw new SettingsError(fields);
-}
+const freeSpins = (problem: Problem) => {
+  let free = 0;
+  for (let i = 0; i < problem.pins.length; i++) if (problem.pins[i] < 0) free++;
+  return free;
+};
 
 /** Share of the time limit after which later rounds take every candidate the cone rule allows… and more. */
 const HURRY_AT = 0.6;
 
-export const rqaoaSolver: SolverDefinition<RqaoaSettings> & { simulatedQubits(problem: Problem, settings: RqaoaSettings): number } = {
+export const rqaoaSolver = defineSolver({
   name: 'rqaoa',
   label: 'Recursive QAOA (level 1, any size)',
   family: 'variational',
   kinds: ['maxcut', 'bisection'],
   guarantee: 'Heuristic, no optimality guarantee: one-layer QAOA correlations (exact closed form) fix depots round by round, the last few are solved exactly; optional classical refinement is reported with the value before it.',
-  parseSettings: parseRqaoaSettings,
-  refuses: (problem: Problem) => rqaoaRefusal(problem),
+  otherwise: 'qaoa (recursive bisection) on small networks, or fm / milp',
+  settings,
+  refuses: (problem) => rqaoaRefusal(problem),
   /**
    * The widest state handled at once is the exact remainder (stopAt spins); the level-1 rounds
    * read an n-qubit circuit's expectations from the closed form without building its state.
    */
-  simulatedQubits: (problem, settings) => {
-    let free = 0;
-    for (let i = 0; i < problem.pins.length; i++) if (problem.pins[i] < 0) free++;
-    return Math.min(settings.stopAt, free);
-  },
+  qubits: (problem, s) => Math.min(s.stopAt, freeSpins(problem)),
   async solve(problem, s, ctx) {
     const started = performance.now();
     const elapsed = () => (performance.now() - started) / 1000;
-    let spins = 0;
-    for (let i = 0; i < problem.pins.length; i++) if (problem.pins[i] < 0) spins++;
+    const spins = freeSpins(problem);
     const out = rqaoaOnProblem(problem, {
       stopAt: s.stopAt,
       batchFraction: s.batch === 'auto' ? defaultBatchFraction(spins) : s.batch,
@@ -89,4 +77,4 @@ export const rqaoaSolver: SolverDefinition<RqaoaSettings> & { simulatedQubits(pr
       recursion: { rounds: out.rounds, remainder: out.remainder, eliminations: out.steps.slice(0, 2000), eliminationsTotal: out.steps.length },
     };
   },
-};
+});

@@ -1,6 +1,15 @@
+import type { ZodType } from 'zod';
 import type { CircuitSpec } from '../circuits/of-run';
 import type { CircuitSummary } from '../circuits/summary';
+import type { EncodingOptions } from '../encodings';
 import type { Problem, ProblemKind } from '../problem/types';
+
+/** A circuit a solver simulates: the problem it encodes and the encoding options, in words. */
+export interface CircuitTarget {
+  problem: Problem;
+  options: EncodingOptions;
+  what: string;
+}
 
 /** Progress reported while a solver runs (published by workers, printed by the CLI). */
 export interface SolveProgress {
@@ -27,6 +36,8 @@ export interface SampledAssignment {
   assignment: number[];
   count: number;
   value: number;
+  /** Pins respected and balance rule met (problem/compare.ts ranks feasible samples first). */
+  feasible: boolean;
 }
 
 /** What every solver returns; field names match `spinyard solve --json`. */
@@ -78,17 +89,37 @@ export interface SolveContext {
   onProgress?: (progress: SolveProgress) => void;
 }
 
+export type SolverFamily = 'exact' | 'bound' | 'heuristic' | 'variational';
+
+/**
+ * A solver as the rest of Spinyard sees it. Built only by `defineSolver` (define.ts), so every
+ * solver answers the same questions the same way: run creation, the preview, prices, plan
+ * refusals, size-based defaults, the CLI and `/api/solvers` all ask it.
+ */
 export interface SolverDefinition<Settings = Record<string, unknown>> {
   name: string;
-  /** Plain-words label for the UI. */
+  /** Plain-words label for the UI; "-style" where our version simplifies a published method. */
   label: string;
-  family: 'exact' | 'bound' | 'heuristic' | 'variational';
+  family: SolverFamily;
   kinds: ProblemKind[];
   /** What the solver guarantees, in one sentence (README, UI and CLI read this). */
   guarantee: string;
+  /** The settings schema (zod; the same object validates in the app, the API, the worker and the CLI). */
+  settingsSchema: ZodType<Settings>;
   /** Parse and default the settings; throws a SettingsError with field messages on bad input. */
   parseSettings(input: unknown): Settings;
-  /** Null when the solver can take the problem, else the reason it refuses. */
+  /**
+   * Qubits of the widest circuit the solver would simulate on this problem with these settings
+   * (k-way QAOA/VQE: the first split of the recursive bisection; qaoa-blocks: one block); 0 for
+   * classical solvers. The one qubit count: prices, plan limits, defaults and the app read it.
+   */
+  qubits(problem: Problem, settings: Settings): number;
+  /**
+   * The widest circuit as a problem and encoding options (the preview's encoding summary
+   * describes it), or null when the solver simulates no single fixed circuit (classical; blocks).
+   */
+  circuit(problem: Problem, settings: Settings): CircuitTarget | null;
+  /** Null when the solver can take the problem, else the reason it refuses (wrong kind, too large, …). */
   refuses(problem: Problem, settings: Settings): string | null;
   solve(problem: Problem, settings: Settings, ctx: SolveContext): Promise<SolveResult>;
 }

@@ -12,6 +12,15 @@ import type { StateVector } from '../statevector/state';
 export type OptimizerName = 'nelder-mead' | 'cobyla' | 'spsa' | 'adam';
 export const OPTIMIZER_NAMES: OptimizerName[] = ['nelder-mead', 'cobyla', 'spsa', 'adam'];
 
+/** What the app and docs call each optimizer: "-style" where ours simplifies the published method. */
+export const OPTIMIZER_LABELS: Record<OptimizerName, string> = {
+  'nelder-mead': 'Nelder–Mead simplex (adaptive coefficients)',
+  // optimizers/cobyla.ts: Powell's linear-model trust region without constraints, a simplified reading.
+  cobyla: 'COBYLA-style (linear models, no constraints)',
+  spsa: 'SPSA',
+  adam: 'Adam',
+};
+
 export interface VariationalLoopOptions {
   ansatz: Ansatz;
   /** Energy of a prepared state (exact or from shots). */

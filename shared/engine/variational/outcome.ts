@@ -4,8 +4,39 @@ import type { Rng } from '../random';
 import { expectationOfDiagonal, isingDiagonal } from '../statevector/diagonal';
 import type { StateOptions } from '../statevector/state';
 import type { VariationalLoopResult } from './optimize';
-import type { VariationalOutcome, VariationalTracePoint } from './qaoa-run';
-import { readOut } from './samples';
+import { readOut, type DecodedSample } from './samples';
+
+export interface VariationalTracePoint {
+  iteration: number;
+  energy: number;
+  stdError: number;
+  seconds: number;
+}
+
+/** What a VQE or QAOA run returns (the solver definitions map it onto SolveResult). */
+export interface VariationalOutcome {
+  params: number[];
+  paramNames: string[];
+  /** Exact ⟨H⟩ at the returned parameters (statevector, no shot noise). */
+  energy: number;
+  /** The optimizer's best objective value (a shot estimate when shots > 0) and its error. */
+  objective: number;
+  stdError: number;
+  /** Exact expected business value at the returned parameters (null for custom operators). */
+  expectation: number | null;
+  evaluations: number;
+  iterations: number;
+  restarts: number;
+  /** Shots spent on energy estimates plus the final read-out. */
+  shotsUsed: number;
+  trace: VariationalTracePoint[];
+  samples: DecodedSample[];
+  best: DecodedSample | null;
+  /** Share of read-out shots whose decoded assignment meets the balance rule. */
+  feasibleShare: number | null;
+  stopped: boolean;
+}
+
 
 /**
  * The common end of a QAOA or VQE run on an encoding: the exact expected business value at the

@@ -9,38 +9,11 @@ import { createDiagonalEstimator } from './estimate';
 import { couplingScale, restartStarts, transferredAngles } from './initial-angles';
 import { optimizeAnsatz, type OptimizerName } from './optimize';
 import { finishEncodingRun } from './outcome';
-import type { DecodedSample } from './samples';
 
-export interface VariationalTracePoint {
-  iteration: number;
-  energy: number;
-  stdError: number;
-  seconds: number;
-}
+import type { VariationalOutcome, VariationalTracePoint } from './outcome';
 
-/** What a VQE or QAOA run returns (the solver definitions map it onto SolveResult). */
-export interface VariationalOutcome {
-  params: number[];
-  paramNames: string[];
-  /** Exact ⟨H⟩ at the returned parameters (statevector, no shot noise). */
-  energy: number;
-  /** The optimizer's best objective value (a shot estimate when shots > 0) and its error. */
-  objective: number;
-  stdError: number;
-  /** Exact expected business value at the returned parameters (null for custom operators). */
-  expectation: number | null;
-  evaluations: number;
-  iterations: number;
-  restarts: number;
-  /** Shots spent on energy estimates plus the final read-out. */
-  shotsUsed: number;
-  trace: VariationalTracePoint[];
-  samples: DecodedSample[];
-  best: DecodedSample | null;
-  /** Share of read-out shots whose decoded assignment meets the balance rule. */
-  feasibleShare: number | null;
-  stopped: boolean;
-}
+export type { VariationalOutcome, VariationalTracePoint };
+
 
 export interface QaoaRunOptions {
   encoding: Encoding;

@@ -1,4 +1,6 @@
 import type { Encoding } from '../encodings/types';
+import { better } from '../problem/compare';
+import { senseOf } from '../problem/types';
 import type { Rng } from '../random';
 import { sampleBasisStates } from '../statevector/sample';
 import type { StateVector } from '../statevector/state';
@@ -33,15 +35,10 @@ export function readOut(encoding: Encoding, state: StateVector, shots: number, r
   return { samples, best, feasibleShare: feasibleShots / Math.max(1, shots) };
 }
 
-/** The best of decoded samples: feasible first, then value (max-cut highest, else lowest), then count. */
+/** The best of decoded samples by problem/compare.ts (feasible first, then value); of equals the most frequent. */
 export function bestSample(kind: Encoding['kind'], decoded: DecodedSample[]): DecodedSample {
-  const maximise = kind === 'maxcut';
-  const better = (a: DecodedSample, b: DecodedSample) => {
-    if (a.feasible !== b.feasible) return a.feasible;
-    if (a.value !== b.value) return maximise ? a.value > b.value : a.value < b.value;
-    return a.count > b.count;
-  };
+  const sense = senseOf(kind);
   let best = decoded[0];
-  for (const d of decoded) if (better(d, best)) best = d;
+  for (const d of decoded) if (better(sense, d, best) || (!better(sense, best, d) && d.count > best.count)) best = d;
   return best;
 }

@@ -1,4 +1,5 @@
-import { bestSolver, exactSolver } from '../../../shared/engine/solvers/classical';
+import { bestSolver } from '../../../shared/engine/solvers/best';
+import { exactSolver } from '../../../shared/engine/solvers/exact';
 import { isBalanced, respectsPins } from '../../../shared/engine/problem/evaluate';
 import { ctx, pinsOf, problemOf, randomGraph } from './helpers';
 

@@ -1,4 +1,6 @@
-import { computeBounds, gwSolver, tabuSolver } from '../../../shared/engine/solvers/classical';
+import { computeBounds } from '../../../shared/engine/solvers/bounds';
+import { gwSolver } from '../../../shared/engine/solvers/gw';
+import { tabuSolver } from '../../../shared/engine/solvers/tabu';
 import { maxcutEigenBound } from '../../../shared/engine/classical/bounds';
 import { ctx, problemOf } from './helpers';
 import { biqmacRow, readInstance } from '../../data/load';

@@ -1,4 +1,9 @@
-import { annealSolver, exactSolver, fmSolver, gwSolver, milpSolver, tabuSolver } from '../../../shared/engine/solvers/classical';
+import { annealSolver } from '../../../shared/engine/solvers/anneal';
+import { exactSolver } from '../../../shared/engine/solvers/exact';
+import { fmSolver } from '../../../shared/engine/solvers/fm';
+import { gwSolver } from '../../../shared/engine/solvers/gw';
+import { milpSolver } from '../../../shared/engine/solvers/milp';
+import { tabuSolver } from '../../../shared/engine/solvers/tabu';
 import type { SolveProgress, SolverDefinition } from '../../../shared/engine/solvers/types';
 import { problemOf, randomGraph } from './helpers';
 

@@ -1,4 +1,4 @@
-import { exactSolver } from '../../../shared/engine/solvers/classical';
+import { exactSolver } from '../../../shared/engine/solvers/exact';
 import { bruteForce, complete, ctx, cycle, grid, path, petersen, pinsOf, problemOf, randomGraph, type Edge } from './helpers';
 
 const exact = (n: number, edges: Edge[], spec: Record<string, unknown> = {}, weights?: number[], threads = 1) =>

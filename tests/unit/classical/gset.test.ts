@@ -1,4 +1,5 @@
-import { computeBounds, tabuSolver } from '../../../shared/engine/solvers/classical';
+import { computeBounds } from '../../../shared/engine/solvers/bounds';
+import { tabuSolver } from '../../../shared/engine/solvers/tabu';
 import { ctx, problemOf } from './helpers';
 import { gsetRow, readInstance } from '../../data/load';
 

@@ -1,4 +1,9 @@
-import { annealSolver, exactSolver, fmSolver, greedySolver, gwSolver, tabuSolver } from '../../../shared/engine/solvers/classical';
+import { annealSolver } from '../../../shared/engine/solvers/anneal';
+import { exactSolver } from '../../../shared/engine/solvers/exact';
+import { fmSolver } from '../../../shared/engine/solvers/fm';
+import { greedySolver } from '../../../shared/engine/solvers/greedy';
+import { gwSolver } from '../../../shared/engine/solvers/gw';
+import { tabuSolver } from '../../../shared/engine/solvers/tabu';
 import { isBalanced, respectsPins, crossingWeight } from '../../../shared/engine/problem/evaluate';
 import type { Problem } from '../../../shared/engine/problem/types';
 import type { SolverDefinition } from '../../../shared/engine/solvers/types';

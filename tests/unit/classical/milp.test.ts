@@ -1,4 +1,5 @@
-import { exactSolver, milpSolver } from '../../../shared/engine/solvers/classical';
+import { exactSolver } from '../../../shared/engine/solvers/exact';
+import { milpSolver } from '../../../shared/engine/solvers/milp';
 import { isBalanced, respectsPins } from '../../../shared/engine/problem/evaluate';
 import { ctx, pinsOf, problemOf, randomGraph } from './helpers';
 

@@ -1,4 +1,5 @@
-import { exactSolver, fmSolver } from '../../../shared/engine/solvers/classical';
+import { exactSolver } from '../../../shared/engine/solvers/exact';
+import { fmSolver } from '../../../shared/engine/solvers/fm';
 import { isBalanced, maxPartWeight, partWeights, respectsPins } from '../../../shared/engine/problem/evaluate';
 import { ctx, cycle, grid, path as pathGraph, pinsOf, problemOf, randomGraph } from './helpers';
 import { readInstance } from '../../data/load';

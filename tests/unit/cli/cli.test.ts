@@ -95,7 +95,7 @@ describe('spinyard CLI: solving', () => {
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout); // progress never reaches stdout
     for (const key of ['problem', 'solver', 'n', 'qubits', 'sense', 'value', 'assignment', 'energy', 'expectation', 'params', 'bound', 'gap', 'provenOptimal', 'seconds', 'evaluations', 'shots']) expect(out).toHaveProperty(key);
-    expect(out).toMatchObject({ problem: 'maxcut', solver: 'exact', n: 6, qubits: 6, sense: 'max', energy: null, expectation: null });
+    expect(out).toMatchObject({ problem: 'maxcut', solver: 'exact', n: 6, qubits: 0, sense: 'max', energy: null, expectation: null }); // exact simulates no circuit
     expect(out.assignment).toHaveLength(6);
     expect(out.value).toBe(crossing(LANES, out.depots, out.assignment));
     // Max-cut of two triangles joined by a lane: 2 per triangle (odd cycle, n − 1) + the 5 lane.

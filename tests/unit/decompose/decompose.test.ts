@@ -11,7 +11,7 @@ import { balanceWindow } from '../../../shared/engine/classical/balance';
 import type { Problem } from '../../../shared/engine/problem/types';
 import { createRng } from '../../../shared/engine/random';
 import { blockCouplings, decomposeMaxcut, exactSmallMaxcut, orientForBisection, splitIntoBlocks } from '../../../shared/engine/variational/decompose';
-import { qaoaBlocksSolver } from '../../../shared/engine/solvers/decomposed';
+import { qaoaBlocksSolver } from '../../../shared/engine/solvers/qaoa-blocks';
 import { solveProblem } from '../../../shared/engine/solvers/orchestrate';
 import { getSolver } from '../../../shared/engine/solvers/registry';
 import { complete, cycle, petersen, type Edge } from '../classical/helpers';
@@ -98,7 +98,7 @@ describe('qaoa-blocks solver', () => {
     expect(d.refuses(kway, d.parseSettings({}))).toMatch(/max-cut and balanced bisection/);
     expect(d.refuses(bindProblem(compactFromEdges(4, cycle(4)), { kind: 'bisection' }), d.parseSettings({}))).toBeNull();
     expect(() => d.parseSettings({ blockSize: 30 })).toThrow(/blockSize/);
-    expect(qaoaBlocksSolver.simulatedQubits(maxcut(60, randomGraph(60, 0.1, 7)), d.parseSettings({}))).toBe(14);
+    expect(qaoaBlocksSolver.qubits(maxcut(60, randomGraph(60, 0.1, 7)), d.parseSettings({}))).toBe(14);
   });
 
   test('60-depot seeded random graph G(60, 0.1): within 5 % of the classical tabu search, 1-flip optimal, below the bound', async () => {

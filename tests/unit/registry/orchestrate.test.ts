@@ -8,6 +8,8 @@ import type { Problem, ProblemKind } from '../../../shared/engine/problem/types'
 import type { SolveResult, SolverDefinition } from '../../../shared/engine/solvers/types';
 
 
+import { defineSolver } from '../../../shared/engine/solvers/define';
+import { intField, settingsObject } from '../../../shared/engine/solvers/settings';
 import { createRegistry, UnknownSolverError } from '../../../shared/engine/solvers/registry';
 import { createOrchestrator, SolverRefusedError, type BoundsProvider } from '../../../shared/engine/solvers/orchestrate';
 
@@ -39,13 +41,9 @@ function bruteForce(problem: Problem, feasibleOnly: boolean): { best: number[]; 
   return { best, value: sense * bestValue };
 }
 
-const solver = (name: string, kinds: ProblemKind[], solve: (p: Problem) => SolveResult, refuses: (p: Problem) => string | null = () => null): SolverDefinition<{ level: number }> => ({
+const solver = (name: string, kinds: ProblemKind[], solve: (p: Problem) => SolveResult, refuses: (p: Problem) => string | null = () => null): SolverDefinition<{ level: number }> => defineSolver({
   name, label: name, family: 'exact', kinds, guarantee: `test solver ${name}`,
-  parseSettings: (input) => {
-    const level = (input as { level?: unknown }).level ?? 1;
-    if (typeof level !== 'number') throw Object.assign(new Error('level: must be a number'), { name: 'SettingsError' });
-    return { level };
-  },
+  settings: settingsObject({ level: intField(1, 0, 10) }),
   refuses: (p) => refuses(p),
   solve: async (p) => solve(p),
 });
@@ -86,7 +84,7 @@ const petersen = compactFromEdges(10, [
 describe('solver registry', () => {
   test('lists name, label, family, kinds and guarantee; filters by kind', () => {
     expect(registry.listSolvers()).toEqual([
-      { name: 'brute', label: 'brute', family: 'exact', kinds: ['maxcut', 'bisection', 'kway'], guarantee: 'test solver brute' },
+      { name: 'brute', label: 'brute', family: 'exact', kinds: ['maxcut', 'bisection', 'kway'], guarantee: 'test solver brute', defaults: { level: 1 } },
       expect.objectContaining({ name: 'boastful' }),
       expect.objectContaining({ name: 'careless' }),
     ]);
@@ -165,7 +163,7 @@ describe('solveProblem checks every answer', () => {
     const big = bindProblem(cycle(14), { kind: 'maxcut' });
     await expect(orchestrator.solveProblem(big, 'brute', {}, ctx)).rejects.toThrow(SolverRefusedError);
     await expect(orchestrator.solveProblem(big, 'brute', {}, ctx)).rejects.toThrow('too many for exhaustive search');
-    await expect(orchestrator.solveProblem(bindProblem(cycle(6), { kind: 'kway', k: 3 }), 'careless', {}, ctx)).rejects.toThrow('answers bisection, not kway');
+    await expect(orchestrator.solveProblem(bindProblem(cycle(6), { kind: 'kway', k: 3 }), 'careless', {}, ctx)).rejects.toThrow('handles balanced bisection, not k-way regions');
     await expect(orchestrator.solveProblem(bindProblem(cycle(6), { kind: 'maxcut' }), 'brute', { level: 'x' }, ctx)).rejects.toThrow('level: must be a number');
   });
 });

@@ -1,4 +1,6 @@
-import { qaoaSolver, variationalSolvers, vqeSolver } from '../../../shared/engine/solvers/variational';
+import { qaoaSolver } from '../../../shared/engine/solvers/qaoa';
+import { listSolvers } from '../../../shared/engine/solvers/registry';
+import { vqeSolver } from '../../../shared/engine/solvers/vqe';
 import { SettingsError } from '../../../shared/engine/classical/settings';
 import { crossingWeight, isBalanced, respectsPins } from '../../../shared/engine/problem/evaluate';
 import type { SolveContext } from '../../../shared/engine/solvers/types';
@@ -29,8 +31,8 @@ describe('settings', () => {
     }
     expect(() => vqeSolver.parseSettings({ ansatz: 'brick' })).toThrow(/ansatz/);
   });
-  test('both solvers are exported for the registry', () => {
-    expect(variationalSolvers.map((s) => s.name).sort()).toEqual(['qaoa', 'vqe']);
+  test('both solvers are registered as variational', () => {
+    expect(listSolvers().filter((s) => s.family === 'variational').map((s) => s.name).sort()).toEqual(['qaoa', 'qaoa-blocks', 'vqe']);
   });
 });
 

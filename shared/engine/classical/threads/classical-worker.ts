@@ -4,12 +4,13 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { runClassicalTask, type ClassicalTask } from './tasks';
-import { classicalSolvers } from '../../solvers/classical';
+import { solverRegistry } from '../../solvers/registry';
 
 async function main(): Promise<void> {
   const task = workerData as ClassicalTask;
   try {
-    const result = await runClassicalTask(task, (name) => classicalSolvers.find((d) => d.name === name));
+    // Classical solvers only: a worker thread never runs a circuit.
+    const result = await runClassicalTask(task, (name) => (solverRegistry.names.includes(name) && solverRegistry.getSolver(name).family !== 'variational' ? solverRegistry.getSolver(name) : undefined));
     parentPort!.postMessage({ ok: true, result });
   } catch (err) {
     parentPort!.postMessage({ ok: false, error: err instanceof Error ? err.message : String(err) });

@@ -6,7 +6,7 @@
 import { Worker } from 'node:worker_threads';
 import * as path from 'node:path';
 import type { CancelToken } from '../../solvers/types';
-import type { ClassicalTask, ClassicalTaskResult } from './tasks';
+import type { ClassicalTask, ClassicalTaskResult } from './task-types';
 
 export interface WorkerRunOptions {
   cancel?: CancelToken;

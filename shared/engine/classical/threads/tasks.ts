@@ -1,25 +1,17 @@
 /**
- * The tasks a classical worker thread can run. Plain data in (the Problem travels by
- * structured clone: typed arrays and strings), plain data out.
+ * Worker-thread side: run one classical task (types in task-types.ts). A 'solve' task finds its
+ * solver through the lookup the thread entry gives (classical-worker.ts), so this file does not
+ * import the solvers that start it.
  */
-import type { Problem } from '../../problem/types';
-import type { SolveResult, SolverDefinition } from '../../solvers/types';
-import { enumerateChunks, type ExactBest, type ExactPlan } from '../exact';
+import type { SolverDefinition } from '../../solvers/types';
+import { enumerateChunks } from '../exact';
 import { buildMilp } from '../milp-model';
-import { runMilp, type MilpRunResult } from './milp-run';
+import { runMilp } from './milp-run';
+import type { ClassicalTask } from './task-types';
 
-export type ClassicalTask =
-  | { task: 'exact'; problem: Problem; plan: ExactPlan; chunks: number[]; deadlineMs: number }
-  | { task: 'milp'; problem: Problem; timeLimitSeconds: number; seed: number; start?: number[] | null }
-  | { task: 'solve'; solver: string; problem: Problem; settings: unknown; seed: number; timeLimitSeconds: number };
+export type { ClassicalTask, ClassicalTaskResult } from './task-types';
 
-export type ClassicalTaskResult<T extends ClassicalTask> = T extends { task: 'exact' }
-  ? ExactBest
-  : T extends { task: 'milp' }
-    ? MilpRunResult
-    : SolveResult;
-
-/** Finds a classical solver by name (given by the thread entry, so this file does not import the solvers that start it). */
+/** Finds a classical solver by name (undefined when there is none). */
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export type ClassicalLookup = (name: string) => SolverDefinition<any> | undefined;
 

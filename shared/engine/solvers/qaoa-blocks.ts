@@ -1,42 +1,47 @@
 /**
- * `qaoa-blocks`: variational max-cut for networks beyond the statevector limit, by
- * decomposition into blocks of ≤ 20 depots, QAOA per block and a small orientation problem
- * over the blocks (Zhou, Du, Tian, Tao, arXiv:2205.11762 (2022); see variational/decompose.ts).
+ * `qaoa-blocks`: variational max-cut and bisection for networks beyond the statevector limit, by
+ * decomposition into blocks of ≤ blockSize depots, QAOA per block and a small orientation problem
+ * over the blocks (after Zhou, Du, Tian, Tao, arXiv:2205.11762 (2022); see variational/decompose.ts).
  */
-import { parseNumberSettings, type NumberSchema } from '../classical/settings';
 import { freeDepots } from '../classical/result';
 import { crossingWeight } from '../problem/evaluate';
-import type { Problem } from '../problem/types';
 import { createRng } from '../random';
 import { decomposeBisection, decomposeMaxcut } from '../variational/decompose';
-import type { SolverDefinition, TracePoint } from './types';
+import { defineSolver } from './define';
+import { intField, settingsObject } from './settings';
+import type { TracePoint } from './types';
 
-const schema = {
-  blockSize: { default: 14, min: 2, max: 20, integer: true },
-  layers: { default: 2, min: 1, max: 6, integer: true },
-  shots: { default: 0, min: 0, max: 100_000, integer: true },
-  readoutShots: { default: 1024, min: 1, max: 100_000, integer: true },
-  restarts: { default: 1, min: 1, max: 10, integer: true },
-  maxIterations: { default: 150, min: 1, max: 5000, integer: true },
-  mergeExactLimit: { default: 16, min: 1, max: 20, integer: true },
-  rounds: { default: 3, min: 0, max: 20, integer: true },
-} satisfies NumberSchema;
+const settings = settingsObject({
+  blockSize: intField(14, 2, 20),
+  layers: intField(2, 1, 6),
+  shots: intField(0, 0, 100_000),
+  readoutShots: intField(1024, 1, 100_000),
+  restarts: intField(1, 1, 10),
+  maxIterations: intField(150, 1, 5000),
+  mergeExactLimit: intField(16, 1, 20),
+  rounds: intField(3, 0, 20),
+});
 
-export type QaoaBlocksSettings = { [K in keyof typeof schema]: number };
+/** Most slack qubits a block's bisection encoding adds (encodings/bisection.ts maxSlackBits default). */
+const BLOCK_SLACK_QUBITS = 5;
 
-export const qaoaBlocksSolver: SolverDefinition<QaoaBlocksSettings> & { simulatedQubits(problem: Problem, settings: QaoaBlocksSettings): number } = {
+export const qaoaBlocksSolver = defineSolver({
   name: 'qaoa-blocks',
   label: 'QAOA by blocks (decomposition for large networks)',
   family: 'variational',
   kinds: ['maxcut', 'bisection'],
   guarantee: 'Heuristic, no optimality guarantee: QAOA on blocks of at most blockSize depots, block orientations from a second small problem over the blocks, then local refinement; compare it with the classical best and the bound.',
-  parseSettings: (input) => parseNumberSettings(input, schema),
-  refuses(problem) {
-    if (problem.kind === 'kway') return 'qaoa-blocks answers max-cut and balanced bisection; for k regions use qaoa (recursive bisection) on small networks, or fm / milp';
-    return null;
+  otherwise: 'qaoa (recursive bisection) on small networks, or fm / milp',
+  settings,
+  /**
+   * The widest circuit: one block (bisection: plus its slack qubits, at most), never the whole
+   * network; the block orientations use exact enumeration or level-1 recursive QAOA from its
+   * closed form, which simulates no wider state.
+   */
+  qubits(problem, s) {
+    const block = Math.min(s.blockSize, freeDepots(problem.pins).length);
+    return block > 0 && problem.kind === 'bisection' ? block + BLOCK_SLACK_QUBITS : block;
   },
-  /** Qubits simulated at once: one block (bisection: plus at most 5 slack qubits), never the whole network. */
-  simulatedQubits: (problem, settings) => Math.min(settings.blockSize, freeDepots(problem.pins).length) + (problem.kind === 'bisection' ? 5 : 0),
   async solve(problem, s, ctx) {
     const started = performance.now();
     const elapsed = () => (performance.now() - started) / 1000;
@@ -82,4 +87,4 @@ export const qaoaBlocksSolver: SolverDefinition<QaoaBlocksSettings> & { simulate
       notes,
     };
   },
-};
+});

@@ -1,0 +1,40 @@
+/** `qaoa`: a p-layer QAOA circuit on the CPU statevector, optimised, then read out (k regions: recursive bisection by default). */
+import { warmProbabilities } from '../circuits/warm';
+import { createRng } from '../random';
+import { runQaoa } from '../variational/qaoa-run';
+import { widestCircuit } from './circuit-qubits';
+import { defineSolver } from './define';
+import { booleanField, numberField, settingsObject } from './settings';
+import { circuitQubits, commonFields, refuseWide, resolveOptimizer, solveVariational, warmStartFrom } from './variational-common';
+
+const settings = settingsObject({
+  ...commonFields,
+  warmStart: booleanField(false),
+  warmStartEpsilon: numberField(0.25, 0, 0.5),
+}).transform(resolveOptimizer);
+
+export type QaoaSettings = ReturnType<typeof qaoaSolver.parseSettings>;
+
+export const qaoaSolver = defineSolver({
+  name: 'qaoa',
+  label: 'QAOA (simulated quantum circuit)',
+  family: 'variational',
+  kinds: ['maxcut', 'bisection', 'kway'],
+  guarantee: 'No optimality guarantee: returns the best sampled answer of an optimised p-layer QAOA circuit on an exact CPU statevector; balance is checked, never assumed.',
+  settings,
+  qubits: circuitQubits,
+  circuit: widestCircuit,
+  refuses: refuseWide,
+  async solve(problem, s, ctx) {
+    const rng = createRng(ctx.seed);
+    return solveVariational(problem, s, ctx, {
+      spec: (encoding, warm) => ({ ansatz: 'qaoa', layers: s.layers, ...(warm ? { warmStart: { probabilities: warmProbabilities(encoding, warm), epsilon: s.warmStartEpsilon } } : {}) }),
+      run: (encoding, warm, shouldStop, onIteration) => runQaoa({
+        encoding, layers: s.layers, optimizer: s.optimizer, shots: s.shots, readoutShots: s.readoutShots,
+        restarts: s.restarts, maxIterations: s.maxIterations, rng, shouldStop, onIteration,
+        warmStart: warm ? { assignment: warm, epsilon: s.warmStartEpsilon } : undefined,
+        stateOptions: { maxQubits: s.maxQubits },
+      }),
+    }, s.warmStart ? () => warmStartFrom(problem, rng) : null);
+  },
+});

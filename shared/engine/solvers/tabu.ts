@@ -1,0 +1,53 @@
+/**
+ * `tabu`: breakout-style tabu search for max-cut (after Benlic & Hao 2013, simplified: our own
+ * perturbation schedule), swap-based tabu search for bisection; extra copies on worker threads.
+ */
+import { classicalResult } from '../classical/result';
+import { createRunControl } from '../classical/run-control';
+import { tabuBisection, tabuBisectionDefaults } from '../classical/tabu-bisection';
+import { tabuMaxcut, tabuMaxcutDefaults } from '../classical/tabu-maxcut';
+import { createRng } from '../random';
+import { pickBest, startSides, threadsField, workerCopies } from './classical-common';
+import { defineSolver } from './define';
+import { intField, numberField, settingsObject } from './settings';
+
+const d = tabuMaxcutDefaults;
+const settings = settingsObject({
+  threads: threadsField(),
+  tenureMin: intField(d.tenureMin, 1, 1000),
+  tenureShare: numberField(d.tenureShare, 0, 0.5),
+  jumpShare: numberField(d.jumpShare, 0, 0.5),
+  strongJumpShare: numberField(d.strongJumpShare, 0, 1),
+  stagnation: intField(d.stagnation, 1, 1e6),
+  directedFloor: numberField(d.directedFloor, 0, 1),
+  recencyShare: numberField(d.recencyShare, 0, 1),
+  epochMoves: numberField(d.epochMoves, 0, 1e6),
+  walkTenureMin: intField(d.walkTenureMin, 1, 1000),
+  walkStagnation: numberField(d.walkStagnation, 1, 1e6),
+  /** Stop early once this value is reached (0 = never; for max-cut benchmarks). */
+  target: numberField(0, -1e15, 1e15),
+});
+
+export const tabuSolver = defineSolver({
+  name: 'tabu',
+  label: 'Tabu search (breakout-style)',
+  family: 'heuristic',
+  kinds: ['maxcut', 'bisection'],
+  otherwise: 'fm (recursive bisection) or milp for k-way regions',
+  guarantee: 'No optimality guarantee: tabu search with breakout-style perturbations (after Benlic & Hao 2013, simplified) for max-cut, swap-based tabu search for bisection; best found within the time limit.',
+  settings,
+  async solve(problem, s, ctx) {
+    const rng = createRng(ctx.seed);
+    const extra = workerCopies('tabu', problem, { ...s, threads: 1 }, ctx, s.threads - 1, rng);
+    const control = createRunControl(ctx);
+    const start = startSides(problem, rng);
+    let side: Int8Array, moves: number, bestAt: number;
+    if (problem.kind === 'maxcut') {
+      ({ side, moves, bestAt } = await tabuMaxcut(problem, start, { ...tabuMaxcutDefaults, ...s }, rng, control, s.target !== 0 ? s.target : Infinity));
+    } else {
+      ({ side, moves, bestAt } = await tabuBisection(problem, start, { ...tabuBisectionDefaults, tenureMin: s.tenureMin }, rng, control));
+    }
+    const mine = classicalResult(problem, { assignment: side, seconds: control.elapsed(), evaluations: moves, notes: [`best found after ${bestAt.toFixed(2)} s`] });
+    return pickBest(problem, [mine, ...(await extra)]);
+  },
+});
