@@ -27,7 +27,7 @@ export interface SolverSpec<Settings> {
   solve: (problem: Problem, settings: Settings, ctx: SolveContext) => Promise<SolveResult>;
 }
 
-export const KIND_WORDS: Record<ProblemKind, string> = { maxcut: 'max-cut', bisection: 'balanced bisection', kway: 'k-way regions' };
+export const KIND_WORDS: Record<ProblemKind, string> = { maxcut: 'max-cut', bisection: 'balanced bisection', kway: 'k-way (k regions)' };
 
 export function defineSolver<Settings>(spec: SolverSpec<Settings>): SolverDefinition<Settings> {
   if (spec.family === 'variational' && !spec.qubits) throw new Error(`solver "${spec.name}" is variational and must say how many qubits it simulates`);

@@ -78,7 +78,6 @@ export function createRegistry(definitions: readonly AnySolverDefinition[]): Sol
 }
 
 /** Every solver Spinyard offers: classical first (exact, bounds, heuristics), then variational. */
-import { rqaoaSolver } from './rqaoa';
 export const solverRegistry: SolverRegistry = createRegistry([
   exactSolver, milpSolver, greedySolver, tabuSolver, annealSolver, gwSolver, fmSolver, bestSolver,
   vqeSolver, qaoaSolver, qaoaBlocksSolver, rqaoaSolver,

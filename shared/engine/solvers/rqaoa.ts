@@ -11,9 +11,11 @@ import { rqaoaOnProblem, rqaoaRefusal } from '../variational/rqaoa-problem';
 import { defineSolver } from './define';
 import { booleanField, intField, settingsObject } from './settings';
 
+const batchMessage = (i: { input?: unknown }) => `give 'auto' or a share of the spins per round in 0…0.5 (0 = one per round; got ${JSON.stringify(i.input)})`;
+
 const settings = settingsObject({
   stopAt: intField(16, 1, RQAOA_MAX_REMAINDER),
-  batch: z.union([z.literal('auto'), z.number().min(0).max(0.5)], { error: (i) => `give 'auto' or a share of the spins per round in 0…0.5 (0 = one per round; got ${JSON.stringify(i.input)})` }).default('auto'),
+  batch: z.union([z.literal('auto'), z.number({ error: batchMessage }).min(0, { error: batchMessage }).max(0.5, { error: batchMessage })], { error: batchMessage }).default('auto'),
   refine: booleanField(true),
 });
 

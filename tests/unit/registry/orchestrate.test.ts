@@ -163,7 +163,7 @@ describe('solveProblem checks every answer', () => {
     const big = bindProblem(cycle(14), { kind: 'maxcut' });
     await expect(orchestrator.solveProblem(big, 'brute', {}, ctx)).rejects.toThrow(SolverRefusedError);
     await expect(orchestrator.solveProblem(big, 'brute', {}, ctx)).rejects.toThrow('too many for exhaustive search');
-    await expect(orchestrator.solveProblem(bindProblem(cycle(6), { kind: 'kway', k: 3 }), 'careless', {}, ctx)).rejects.toThrow('handles balanced bisection, not k-way regions');
+    await expect(orchestrator.solveProblem(bindProblem(cycle(6), { kind: 'kway', k: 3 }), 'careless', {}, ctx)).rejects.toThrow('handles balanced bisection, not k-way (k regions)');
     await expect(orchestrator.solveProblem(bindProblem(cycle(6), { kind: 'maxcut' }), 'brute', { level: 'x' }, ctx)).rejects.toThrow('level: must be a number');
   });
 });
