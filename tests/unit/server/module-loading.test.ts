@@ -81,6 +81,12 @@ describe('module loading as deployed', () => {
     }, 120_000); // a fresh thread compiles the engine first; slow on a shared machine
   });
 
+  test('the statevector thread runner under tsx gives the single-thread amplitudes', () => {
+    const r = spawnSync(path.join(ROOT, 'node_modules/.bin/tsx'), ['tests/support/threads/parallel-layers-check.ts'], { cwd: ROOT, encoding: 'utf8', timeout: 90_000 });
+    expect(r.stderr).toBe('');
+    expect(JSON.parse(r.stdout)).toEqual({ differ: 0, values: 2 * 2 ** 13 });
+  }, 120_000);
+
   test('the CLI as a child process runs milp', () => {
     const dir = mkdtempSync(path.join(os.tmpdir(), 'spinyard-load-'));
     writeFileSync(path.join(dir, 'lanes.csv'), `from,to,weight\n${DOC.lanes.map((l) => `${l.from},${l.to},${l.weight}`).join('\n')}\n`);
