@@ -4,6 +4,7 @@ import { FullScreenStatus } from '../../components/shell/FullScreenStatus';
 import { useMeQuery } from '../../components/queries/auth';
 import { rememberRequestedPage } from '../../components/auth/next';
 import { OrgSwitcher } from '../../components/account/OrgSwitcher';
+import { NoOrganisation } from '../../components/account/NoOrganisation';
 
 /** Signed-in area: everything under it needs a session; the shell shows the current organisation. */
 export default function SignedInLayout() {
@@ -19,7 +20,8 @@ export default function SignedInLayout() {
   }
   return (
     <AppShell organisationName={me.data.current?.name ?? 'No organisation'} role={me.data.current?.role ?? null} headerRight={<OrgSwitcher me={me.data} />}>
-      <Slot />
+      {/* Without an organisation only the account page has something to show; elsewhere, the way forward. */}
+      {me.data.current || pathname.startsWith('/account') ? <Slot /> : <NoOrganisation me={me.data} />}
     </AppShell>
   );
 }

@@ -4,6 +4,10 @@ import { colors, fonts, space, WIDE_BREAKPOINT } from '../theme';
 import { Card } from '../ui/Card';
 import { Body, Heading, Label, Small } from '../ui/Text';
 import { LEDGER_KIND_LABELS, euros, shortDate, signedEuros } from './format';
+import { ledgerLines, type LedgerLine } from './ledger-lines';
+
+/** A card payment that went straight to a run did not move the balance: no sign. */
+const amountText = (l: LedgerLine) => (l.byCard !== null ? `${euros(l.byCard, l.currency)} by card` : signedEuros(l.amount, l.currency));
 
 /** The credits ledger: cards on a phone, a table on a wide screen; newest first. */
 export function LedgerHistory(props: { entries: LedgerEntryView[] }) {
@@ -20,22 +24,22 @@ export function LedgerHistory(props: { entries: LedgerEntryView[] }) {
           <Label style={[styles.cMoney, styles.right]}>Balance</Label>
         </View>
       ) : null}
-      {props.entries.map((e) =>
+      {ledgerLines(props.entries).map((e) =>
         wide ? (
-          <View key={e.id} style={styles.tr} testID={`ledger-${e.id}`}>
+          <View key={e.key} style={styles.tr} testID={`ledger-${e.key}`}>
             <Body style={styles.cDate}>{shortDate(e.createdAt)}</Body>
             <View style={styles.cWhat}>
               <Body>{LEDGER_KIND_LABELS[e.kind] ?? e.kind}</Body>
               {e.note ? <Small>{e.note}</Small> : null}
             </View>
-            <Body style={[styles.cMoney, styles.right, e.amount < 0 ? styles.minus : styles.plus]}>{signedEuros(e.amount, e.currency)}</Body>
+            <Body style={[styles.cMoney, styles.right, e.amount <= 0 ? styles.minus : styles.plus]}>{amountText(e)}</Body>
             <Body style={[styles.cMoney, styles.right]}>{euros(e.balanceAfter, e.currency)}</Body>
           </View>
         ) : (
-          <View key={e.id} style={styles.item} testID={`ledger-${e.id}`}>
+          <View key={e.key} style={styles.item} testID={`ledger-${e.key}`}>
             <View style={styles.itemTop}>
               <Body style={styles.itemWhat}>{LEDGER_KIND_LABELS[e.kind] ?? e.kind}</Body>
-              <Body style={e.amount < 0 ? styles.minus : styles.plus}>{signedEuros(e.amount, e.currency)}</Body>
+              <Body style={e.amount <= 0 ? styles.minus : styles.plus}>{amountText(e)}</Body>
             </View>
             <Small>{`${shortDate(e.createdAt)} · balance ${euros(e.balanceAfter, e.currency)}${e.note ? ` · ${e.note}` : ''}`}</Small>
           </View>

@@ -10,6 +10,17 @@ import { Body, Heading, Small } from '../ui/Text';
 import { euros, shortDate } from './format';
 
 /**
+ * The one message about the last card payment while the run still waits: coming back from a
+ * successful payment page means "confirming" — an earlier attempt's decline is history then —
+ * else a decline, else a payment page left without paying.
+ */
+export function paymentNotice(returned: string | undefined, failureMessage: string | null): 'confirming' | 'failed' | 'cancelled' | null {
+  if (returned === 'success') return 'confirming';
+  if (failureMessage) return 'failed';
+  return returned === 'cancelled' ? 'cancelled' : null;
+}
+
+/**
  * The price of a held (paid) run on the run screen: what it costs and why, whether the credits
  * cover it, pay by card (anyone who may start runs) or from the credits (admins and owners).
  * Renders nothing for free runs.
@@ -33,6 +44,7 @@ export function RunPaymentPanel(props: { runId: number; role: Role | null; await
   }
   if (!props.awaiting) return null;
   const error = checkout.error ?? pay.error;
+  const notice = paymentNotice(payment, c.failureMessage);
   return (
     <Card testID="run-payment">
       <Heading>Payment needed</Heading>
@@ -43,14 +55,14 @@ export function RunPaymentPanel(props: { runId: number; role: Role | null; await
         ))}
       </View>
       <Small>This run is larger than your plan includes. It is queued once it is paid.</Small>
-      {payment === 'success' ? (
+      {notice === 'confirming' ? (
         <View style={styles.confirm} testID="run-payment-confirming">
           <ActivityIndicator color={colors.ink} accessibilityLabel="Confirming the payment" />
           <Small>Confirming the payment…</Small>
         </View>
       ) : null}
-      {payment === 'cancelled' && !c.failureMessage ? <Notice tone="caution">The payment was not completed; nothing was charged.</Notice> : null}
-      {c.failureMessage ? <Notice tone="error" testID="run-payment-failed">{`${c.failureMessage} Try another card${c.affordable ? ', or pay from the credits' : ''}.`}</Notice> : null}
+      {notice === 'cancelled' ? <Notice tone="caution">The payment was not completed; nothing was charged.</Notice> : null}
+      {notice === 'failed' ? <Notice tone="error" testID="run-payment-failed">{`${c.failureMessage} Try another card${c.affordable ? ', or pay from the credits' : ''}.`}</Notice> : null}
       <Small testID="run-credits">
         {c.affordable
           ? `The organisation's credits (${euros(c.balance.amount)}) cover it${can(props.role, 'billing:manage') ? '.' : ' — an admin or the owner can confirm paying from them.'}`

@@ -9,6 +9,7 @@ export const signedEuros = (amount: number, currency = 'eur') => `${amount < 0 ?
 export const LEDGER_KIND_LABELS: Record<string, string> = {
   credit_purchase: 'Credits bought',
   run_payment: 'Card payment for a run',
+  run_card: 'Run paid by card',
   run_spend: 'Run paid',
   run_refund: 'Failed run given back',
   card_refund: 'Refunded to card',
@@ -18,5 +19,5 @@ export const PURPOSE_LABELS: Record<string, string> = { credits: 'Credits', run:
 
 export const STATUS_LABELS: Record<string, string> = { open: 'Not paid yet', paid: 'Paid', failed: 'Declined', expired: 'Closed', refunded: 'Refunded' };
 
-/** "1 Dec 2026" — the same date style as the team and audit screens, whatever the browser's locale. */
-export const shortDate = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString('en-GB', { year: 'numeric', month: 'short', day: 'numeric' }) : '—');
+/** "1 Dec 2026", as everywhere in the app (components/ui/dates.ts). */
+export { formatDate as shortDate } from '../ui/dates';

@@ -167,6 +167,10 @@ export function NetworkEditor(props: {
         else if (now.kind === 'connect') setPending({ from: now.depot, x: wx, y: wy });
       },
       onPanResponderRelease: (e) => {
+        // A finger's release is followed by the browser's emulated click at the same spot; by
+        // then a dialog opened here covers that spot and would take the click (closing itself or
+        // pressing its button). Cancelling the touchend's default stops that click.
+        if (Platform.OS === 'web' && (e.nativeEvent as unknown as { type?: string }).type === 'touchend') e.preventDefault();
         const g = gesture.current;
         gesture.current = { kind: 'none' };
         const { draft: d, transform: t, selection: sel, props: p } = live.current;

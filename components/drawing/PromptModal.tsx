@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { KeyboardAvoidingView, Modal, Platform, Pressable, StyleSheet, View } from 'react-native';
 import { colors, radius, space } from '../theme';
 import { Button } from '../ui/Button';
+import { Notice } from '../ui/Notice';
 import { Heading, Small } from '../ui/Text';
 import { TextField } from '../ui/TextField';
 
@@ -70,7 +71,7 @@ function PromptBody(props: PromptProps) {
 }
 
 /** A yes/no question in the app (leaving with unsaved changes, deleting). */
-export function ConfirmModal(props: { visible: boolean; title: string; message: string; confirmLabel: string; cancelLabel?: string; danger?: boolean; onConfirm: () => void; onCancel: () => void }) {
+export function ConfirmModal(props: { visible: boolean; title: string; message: string; confirmLabel: string; cancelLabel?: string; danger?: boolean; busy?: boolean; error?: string | null; onConfirm: () => void; onCancel: () => void }) {
   return (
     <Modal visible={props.visible} transparent animationType="fade" onRequestClose={props.onCancel}>
       <View style={styles.backdrop}>
@@ -78,9 +79,10 @@ export function ConfirmModal(props: { visible: boolean; title: string; message: 
         <View style={styles.card} accessibilityViewIsModal>
           <Heading>{props.title}</Heading>
           <Small style={{ color: colors.text }}>{props.message}</Small>
+          {props.error ? <Notice tone="error">{props.error}</Notice> : null}
           <View style={styles.row}>
             <Button label={props.cancelLabel ?? 'Cancel'} tone="secondary" onPress={props.onCancel} />
-            <Button label={props.confirmLabel} tone={props.danger ? 'danger' : 'primary'} onPress={props.onConfirm} />
+            <Button label={props.confirmLabel} tone={props.danger ? 'danger' : 'primary'} onPress={props.onConfirm} busy={props.busy} />
           </View>
         </View>
       </View>

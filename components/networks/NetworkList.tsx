@@ -107,17 +107,19 @@ function NetworkCards(props: { items: NetworkListItem[] }) {
   return (
     <View style={styles.cards} accessibilityRole="list" testID="networks-list">
       {props.items.map((n) => (
-        <Link key={n.id} href={`/networks/${n.id}`} asChild>
-          <Pressable accessibilityRole="link" accessibilityLabel={`Open ${n.name}`}>
-          <Card>
-            <Label style={styles.name}>{n.name}</Label>
-            <Small>
-              {formatVolume(n.summary.depots)} depots · {formatVolume(n.summary.lanes)} lanes · volume {formatVolume(n.summary.totalVolume)}
-            </Small>
-            <Small>Version {n.latestVersion} · updated {formatWhen(n.updatedAt)}</Small>
-          </Card>
-          </Pressable>
-        </Link>
+        <View key={n.id} role="listitem">
+          <Link href={`/networks/${n.id}`} asChild>
+            <Pressable accessibilityRole="link" accessibilityLabel={`Open ${n.name}`}>
+              <Card>
+                <Label style={styles.name}>{n.name}</Label>
+                <Small>
+                  {formatVolume(n.summary.depots)} depots · {formatVolume(n.summary.lanes)} lanes · volume {formatVolume(n.summary.totalVolume)}
+                </Small>
+                <Small>Version {n.latestVersion} · updated {formatWhen(n.updatedAt)}</Small>
+              </Card>
+            </Pressable>
+          </Link>
+        </View>
       ))}
     </View>
   );
@@ -126,25 +128,35 @@ function NetworkCards(props: { items: NetworkListItem[] }) {
 function NetworkTable(props: { items: NetworkListItem[] }) {
   const head = ['Name', 'Depots', 'Lanes', 'Total volume', 'Version', 'Updated'];
   return (
-    <Card style={styles.table} accessibilityRole="list" testID="networks-table">
-      <View style={[styles.tr, styles.th]}>
+    <Card style={styles.table} testID="networks-table">
+      <View style={[styles.tr, styles.th]} aria-hidden>
         {head.map((h, k) => (
           <Small key={h} style={[styles.td, k === 0 ? styles.nameCol : styles.numCol, k === head.length - 1 ? styles.whenCol : null]}>{h}</Small>
         ))}
       </View>
-      {props.items.map((n) => (
-        // A real link, so Enter opens the row from the keyboard (react-native-web ignores Enter on role=link without href).
-        <Link key={n.id} href={`/networks/${n.id}`} asChild>
-        <Pressable accessibilityRole="link" accessibilityLabel={`Open ${n.name}`} style={(state) => [styles.tr, (state as { hovered?: boolean }).hovered ? styles.hover : null]}>
-          <Body style={[styles.td, styles.nameCol, styles.nameText]} numberOfLines={1}>{n.name}</Body>
-          <Body style={[styles.td, styles.numCol]}>{formatVolume(n.summary.depots)}</Body>
-          <Body style={[styles.td, styles.numCol]}>{formatVolume(n.summary.lanes)}</Body>
-          <Body style={[styles.td, styles.numCol]}>{formatVolume(n.summary.totalVolume)}</Body>
-          <Body style={[styles.td, styles.numCol]}>{n.latestVersion}</Body>
-          <Body style={[styles.td, styles.numCol, styles.whenCol]}>{formatWhen(n.updatedAt)}</Body>
-        </Pressable>
-        </Link>
-      ))}
+      <View accessibilityRole="list">
+        {props.items.map((n) => (
+          // The row's layout lives on a plain View inside the link: a Link with asChild passes its
+          // child's props through a slot that drops a style given as a function, and the cells stacked.
+          <View key={n.id} role="listitem" testID={`network-row-${n.id}`}>
+            {/* A real link, so Enter opens the row from the keyboard (react-native-web ignores Enter on role=link without href). */}
+            <Link href={`/networks/${n.id}`} asChild>
+              <Pressable accessibilityRole="link" accessibilityLabel={`Open ${n.name}: ${formatVolume(n.summary.depots)} depots, ${formatVolume(n.summary.lanes)} lanes, version ${n.latestVersion}, updated ${formatWhen(n.updatedAt)}`}>
+                {(state) => (
+                  <View style={[styles.tr, (state as { hovered?: boolean }).hovered ? styles.hover : null]}>
+                    <Body style={[styles.td, styles.nameCol, styles.nameText]} numberOfLines={1}>{n.name}</Body>
+                    <Body style={[styles.td, styles.numCol]}>{formatVolume(n.summary.depots)}</Body>
+                    <Body style={[styles.td, styles.numCol]}>{formatVolume(n.summary.lanes)}</Body>
+                    <Body style={[styles.td, styles.numCol]}>{formatVolume(n.summary.totalVolume)}</Body>
+                    <Body style={[styles.td, styles.numCol]}>{n.latestVersion}</Body>
+                    <Body style={[styles.td, styles.numCol, styles.whenCol]}>{formatWhen(n.updatedAt)}</Body>
+                  </View>
+                )}
+              </Pressable>
+            </Link>
+          </View>
+        ))}
+      </View>
     </Card>
   );
 }

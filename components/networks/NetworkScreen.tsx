@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import { StyleSheet, View, useWindowDimensions } from 'react-native';
 import { useRouter } from 'expo-router';
 import { can } from '../../shared/permissions';
@@ -36,6 +36,14 @@ export function NetworkScreen(props: { id: number }) {
   const [more, setMore] = useState(false);
   const [asking, setAsking] = useState<null | 'delete' | 'rename' | { open: number } | { leaveTo: string }>(null);
   useLeaveGuard(dirty, (path) => setAsking({ leaveTo: path }));
+  // The editing workspace belongs to one latest version: when another version becomes the latest
+  // (a duplicate, an import, someone else's save) it starts afresh from that version's data. Only
+  // the version this workspace saved itself continues it, so a save keeps drawing and undo history.
+  const ownSave = useRef(false);
+  const workspace = useRef({ latestId: 0, key: 'latest-0' });
+  if (latestId && workspace.current.latestId !== latestId) {
+    workspace.current = { latestId, key: ownSave.current ? workspace.current.key : `latest-${latestId}` };
+  }
 
   if (network.isPending) return <Screen title="Network"><Body>Loading the network…</Body></Screen>;
   if (network.isError) {
@@ -83,13 +91,18 @@ export function NetworkScreen(props: { id: number }) {
         <NetworkWorkspace
           // A new workspace (fresh layout and history) only when another version is opened;
           // saving keeps the drawing exactly as the user left it.
-          key={viewingOlder ? `v${version.id}` : 'latest'}
+          key={viewingOlder ? `v${version.id}` : workspace.current.key}
           document={version.document}
           readOnly={!canWrite || viewingOlder}
           knownXy={layouts.get(version.id)}
           onSave={async (doc, xy) => {
-            const r = await save.mutateAsync({ depots: doc.depots, lanes: doc.lanes });
-            layouts.set(r.versionId, xy);
+            ownSave.current = true;
+            try {
+              const r = await save.mutateAsync({ depots: doc.depots, lanes: doc.lanes });
+              layouts.set(r.versionId, xy);
+            } finally {
+              ownSave.current = false;
+            }
           }}
           saving={save.isPending}
           saveError={save.isError ? save.error.message : null}
@@ -129,7 +142,16 @@ export function NetworkScreen(props: { id: number }) {
         confirmLabel="Delete network"
         danger
         onCancel={() => setAsking(null)}
-        onConfirm={() => remove.mutate(n.id, { onSuccess: () => router.replace('/networks') })}
+        busy={remove.isPending}
+        error={remove.isError ? remove.error.message : null}
+        onConfirm={() =>
+          remove.mutate(n.id, {
+            onSuccess: () => {
+              setAsking(null);
+              router.replace('/networks');
+            },
+          })
+        }
       />
       <PromptModal
         visible={asking === 'rename'}

@@ -7,10 +7,7 @@ export function formatVolume(v: number): string {
   return `${rounded < 0 ? '−' : ''}${grouped}${frac ? `.${frac}` : ''}`;
 }
 
-export function formatWhen(iso: string): string {
-  const d = new Date(iso);
-  const pad = (n: number) => String(n).padStart(2, '0');
-  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())} ${pad(d.getHours())}:${pad(d.getMinutes())}`;
-}
+/** Dates as everywhere in the app (components/ui/dates.ts). */
+export { formatDateTime as formatWhen } from '../ui/dates';
 
 export const plural = (n: number, one: string, many = `${one}s`) => `${formatVolume(n)} ${n === 1 ? one : many}`;

@@ -1,4 +1,4 @@
-import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { api } from '../api/client';
 import type {
   ImportPreview, NetworkBody, NetworkDetail, NetworkListItem, NetworkSort, VersionBody, VersionComparison, VersionDetail, VersionInfo,
@@ -91,11 +91,27 @@ export function useImportLimitsQuery() {
   return useQuery({ queryKey: networkKeys.limits(), staleTime: STALE.static, queryFn: () => api.get<{ maxFileBytes: number; maxDepots: number; maxLanes: number }>('/networks/limits') });
 }
 
+/**
+ * The one cache rule for networks: whatever a mutation changed, the lists and the network's
+ * detail (versions, opened versions, comparisons live under it) are refetched; a deleted network's
+ * entries are dropped instead, so nothing refetches (and retries) an address that is gone.
+ */
+export function networkChanged(qc: QueryClient, id: number | null, how: 'changed' | 'deleted' = 'changed'): Promise<unknown> {
+  if (id !== null && how === 'deleted') {
+    qc.removeQueries({ queryKey: networkKeys.detail(id) });
+    return qc.invalidateQueries({ queryKey: networkKeys.lists() });
+  }
+  return Promise.all([
+    qc.invalidateQueries({ queryKey: networkKeys.lists() }),
+    id !== null ? qc.invalidateQueries({ queryKey: networkKeys.detail(id) }) : null,
+  ]);
+}
+
 export function useNetworkCreateMutation() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (body: NetworkBody) => api.post<{ id: number; versionId: number; number: number }>('/networks', body),
-    onSuccess: () => qc.invalidateQueries({ queryKey: networkKeys.lists() }),
+    onSuccess: (r) => networkChanged(qc, r.id),
   });
 }
 
@@ -103,7 +119,7 @@ export function useNetworkVersionCreateMutation(id: number) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (body: VersionBody) => api.post<{ versionId: number; number: number }>(`/networks/${id}/versions`, body),
-    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: networkKeys.detail(id) }), qc.invalidateQueries({ queryKey: networkKeys.lists() })]),
+    onSuccess: () => networkChanged(qc, id),
   });
 }
 
@@ -111,7 +127,7 @@ export function useVersionDuplicateMutation(id: number) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (versionId: number) => api.post<{ versionId: number; number: number }>(`/networks/${id}/versions/${versionId}/duplicate`),
-    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: networkKeys.detail(id) }), qc.invalidateQueries({ queryKey: networkKeys.lists() })]),
+    onSuccess: () => networkChanged(qc, id),
   });
 }
 
@@ -119,7 +135,7 @@ export function useNetworkRenameMutation(id: number) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (name: string) => api.patch<{ id: number; name: string }>(`/networks/${id}`, { name }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: networkKeys.root }),
+    onSuccess: () => networkChanged(qc, id),
   });
 }
 
@@ -127,7 +143,7 @@ export function useNetworkDeleteMutation() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (id: number) => api.delete<void>(`/networks/${id}`),
-    onSuccess: () => qc.invalidateQueries({ queryKey: networkKeys.root }),
+    onSuccess: (_r, id) => networkChanged(qc, id, 'deleted'),
   });
 }
 
@@ -135,7 +151,7 @@ export function useDemoCopyMutation() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (key: string) => api.post<{ id: number; versionId: number }>('/networks/demos', { key }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: networkKeys.lists() }),
+    onSuccess: (r) => networkChanged(qc, r.id),
   });
 }
 
@@ -181,7 +197,7 @@ export function useImportMutation() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (r: ImportRequest) => api.upload<{ id: number; versionId: number; number: number; dropped: number }>('/networks/import', importForm(r)),
-    onSuccess: (r) => Promise.all([qc.invalidateQueries({ queryKey: networkKeys.lists() }), qc.invalidateQueries({ queryKey: networkKeys.detail(r.id) })]),
+    onSuccess: (r) => networkChanged(qc, r.id),
   });
 }
 

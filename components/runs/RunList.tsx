@@ -11,10 +11,10 @@ import { Screen } from '../ui/Screen';
 import { Body, Label, Small } from '../ui/Text';
 import { CheckRow } from './controls';
 import { questionLabel } from './format';
-import { STATUS_TEXT } from './RunView';
+import { formatDateTime } from '../ui/dates';
+import { STATUS_TEXT } from './progress';
 import type { RunListItem } from './types';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
 
 /** The organisation's runs, newest first; analysts tick two or more to compare them. */
 export function RunList(props: { role: Role | null; compareWith?: number }) {
@@ -49,7 +49,7 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
         <Body style={styles.cNetwork}>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots</Body>
         <Small style={styles.cSolvers}>{r.solvers.join(', ')}</Small>
         <Small style={styles.cStatus}>{STATUS_TEXT[r.status] ?? r.status}</Small>
-        <Small style={styles.cWhen}>{when(r.createdAt)}</Small>
+        <Small style={styles.cWhen}>{formatDateTime(r.createdAt)}</Small>
       </Pressable>
       </Link>
       {mayCompare ? (
@@ -65,7 +65,7 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
       <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} style={styles.open}>
         <Body style={styles.title}>Run {r.id} · {questionLabel(r.problem)}</Body>
         <Small>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots · {r.solvers.join(', ')}</Small>
-        <Small>{STATUS_TEXT[r.status] ?? r.status} · {when(r.createdAt)}</Small>
+        <Small>{STATUS_TEXT[r.status] ?? r.status} · {formatDateTime(r.createdAt)}</Small>
       </Pressable>
       </Link>
       {mayCompare ? <CheckRow title="Compare" accessibilityLabel={`Compare run ${r.id}`} checked={ticked.includes(r.id)} onPress={() => toggle(r.id)} testID={`tick-${r.id}`} /> : null}

@@ -11,7 +11,8 @@ import { formatValue, questionLabel } from './format';
 import { PartitionView, regionName } from './PartitionView';
 import { Scorecard } from './Scorecard';
 import { buildScorecard } from './scorecard';
-import { STATUS_TEXT } from './RunView';
+import { STATUS_TEXT } from './progress';
+import { formatDateTime } from '../ui/dates';
 
 /**
  * The printable report: plain page without the app's navigation, the scorecard as a table, the
@@ -37,7 +38,7 @@ export function RunReport(props: { id: number }) {
           <Title>Spinyard run {r.id}</Title>
           <Small>
             {questionLabel(r.problem)}
-            {r.problem.tolerance !== undefined && r.problem.kind !== 'maxcut' ? ` · tolerance ${Math.round(r.problem.tolerance * 1000) / 10} %` : ''} · {r.networkName ?? `network ${r.networkId}`}{version.data ? ` · version ${version.data.number}` : ''} · {new Date(r.createdAt).toLocaleString('en-GB')} · {STATUS_TEXT[r.status] ?? r.status}
+            {r.problem.tolerance !== undefined && r.problem.kind !== 'maxcut' ? ` · tolerance ${Math.round(r.problem.tolerance * 1000) / 10} %` : ''} · {r.networkName ?? `network ${r.networkId}`}{version.data ? ` · version ${version.data.number}` : ''} · {formatDateTime(r.createdAt)} · {STATUS_TEXT[r.status] ?? r.status}
           </Small>
         </View>
         <View style={styles.actions}>

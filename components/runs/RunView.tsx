@@ -3,7 +3,6 @@ import { StyleSheet, View, useWindowDimensions, type LayoutChangeEvent } from 'r
 import { useRouter } from 'expo-router';
 import { senseOf } from '../../shared/engine/problem/types';
 import { can, type Role } from '../../shared/permissions';
-import { runSeconds } from '../../shared/schemas/runs';
 import { ConvergenceChart } from '../charts/ConvergenceChart';
 import { SampleHistogram } from '../charts/SampleHistogram';
 import { isLive, useRunCancelMutation, useRunQuery, useRunRetryMutation, useRunVersionQuery, useSolversQuery } from '../queries/runs';
@@ -23,20 +22,8 @@ import { Scorecard } from './Scorecard';
 import { buildScorecard } from './scorecard';
 import type { RunDetail, RunJob } from './types';
 import { useLiveTraces } from './useLiveTraces';
+import { jobStatusLine, runClock, STATUS_TEXT } from './progress';
 import { RunPaymentPanel } from '../billing/RunPaymentPanel';
-
-export const STATUS_TEXT: Record<string, string> = {
-  queued: 'Waiting for a worker',
-  running: 'Running',
-  succeeded: 'Finished',
-  partial: 'Finished (some solvers failed)',
-  failed: 'Failed',
-  cancelled: 'Cancelled',
-  awaiting_payment: 'Waiting for payment',
-};
-
-// Browser and server clocks differ a little: never show a negative duration.
-const seconds = (from: string | null | undefined, to: string | null | undefined, now: number) => (from ? Math.max(0, ((to ? Date.parse(to) : now) - Date.parse(from)) / 1000) : null);
 
 /** A clock that ticks each second while `on` (elapsed times between polls). */
 function useNow(on: boolean) {
@@ -49,14 +36,10 @@ function useNow(on: boolean) {
   return now;
 }
 
-function JobProgressRow(props: { job: RunJob; label: string; now: number }) {
+function JobProgressRow(props: { job: RunJob; runStatus: RunDetail['status']; label: string; now: number }) {
   const { job } = props;
-  const best = job.result?.value ?? job.live?.bestValue;
-  const done = job.status === 'succeeded' && job.result;
   const tone = job.status === 'succeeded' ? 'success' : job.status === 'failed' ? 'danger' : job.status === 'cancelled' ? 'muted' : 'ink';
   const fraction = job.status === 'succeeded' ? 1 : job.progress;
-  // A finished job reports its own solving time; the clock covers queued and running ones.
-  const elapsed = done ? job.result!.seconds : seconds(job.startedAt, job.finishedAt, props.now);
   return (
     <View style={styles.job} testID={`progress-${job.solver}`}>
       <View style={styles.jobHead}>
@@ -64,12 +47,7 @@ function JobProgressRow(props: { job: RunJob; label: string; now: number }) {
         <Small testID={`percent-${job.solver}`}>{formatPercent(fraction)}</Small>
       </View>
       <ProgressBar fraction={fraction} label={`${props.label}: ${formatPercent(fraction)}`} tone={tone} />
-      <Small>
-        {STATUS_TEXT[job.status] ?? job.status}
-        {elapsed !== null ? ` · ${formatSeconds(elapsed)}` : ''}
-        {best !== undefined ? ` · ${done ? 'value' : 'best so far'} ${formatValue(best)}` : ''}
-        {job.live?.energy !== undefined && job.status === 'running' ? ` · energy ${formatValue(job.live.energy)}${job.live.stdError !== undefined ? ` ± ${formatValue(job.live.stdError)}` : ''}` : ''}
-      </Small>
+      <Small testID={`status-${job.solver}`}>{jobStatusLine(job, props.runStatus, props.now)}</Small>
       {job.error ? <Small style={styles.error}>{job.error}</Small> : null}
     </View>
   );
@@ -122,7 +100,6 @@ export function RunView(props: { id: number; role: Role | null }) {
   const selected = r.jobs.find((j) => j.id === selectedId && j.result);
   const variational = r.jobs.filter((j) => (j.family === 'variational' || j.solver === 'qaoa' || j.solver === 'vqe') && (traces[j.id]?.length ?? 0) > 0);
   const chartFor = variational.find((j) => j.id === chartJob) ?? variational[0];
-  const overall = runSeconds(r, now); // from its release to the queue: waiting for payment is not run time
   const mayCancel = can(props.role, 'runs:cancel') && live;
   const mayRetry = can(props.role, 'runs:start') && !live && r.jobs.some((j) => j.status === 'failed' || j.status === 'cancelled');
 
@@ -130,10 +107,10 @@ export function RunView(props: { id: number; role: Role | null }) {
     <Card testID="run-progress">
       <View style={styles.jobHead}>
         <Heading>{live ? 'Progress' : 'Solvers'}</Heading>
-        <Small testID="run-elapsed">{overall !== null ? `${live ? 'Elapsed' : 'Took'} ${formatSeconds(overall)}` : ''}</Small>
+        <Small testID="run-elapsed">{runClock(r, live, now)}</Small>
       </View>
       {r.jobs.map((j) => (
-        <JobProgressRow key={j.id} job={j} label={label(j)} now={now} />
+        <JobProgressRow key={j.id} job={j} runStatus={r.status} label={label(j)} now={now} />
       ))}
       {mayCancel ? <Button label="Cancel run" tone="danger" onPress={() => cancel.mutate(r.id)} busy={cancel.isPending} testID="cancel-run" /> : null}
       {mayRetry ? <Button label="Retry failed or cancelled solvers" tone="secondary" onPress={() => retry.mutate(r.id)} busy={retry.isPending} /> : null}

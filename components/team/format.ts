@@ -1,13 +1,8 @@
 import type { AuditEvent } from '../../shared/schemas/auth';
 import { ROLE_LABELS, type Role } from '../../shared/permissions';
 
-export function formatDate(iso: string): string {
-  return new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
-}
-
-export function formatDateTime(iso: string): string {
-  return new Date(iso).toLocaleString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
-}
+/** Dates as everywhere in the app (components/ui/dates.ts). */
+export { formatDate, formatDateTime } from '../ui/dates';
 
 const roleLabel = (r: unknown) => (typeof r === 'string' && r in ROLE_LABELS ? ROLE_LABELS[r as Role] : String(r ?? ''));
 

@@ -78,7 +78,7 @@ export function checkAccess(access: Access, auth: AuthContext | null | undefined
   if (access.kind === 'public') return;
   if (!auth) throw unauthorized();
   if (access.kind === 'user') return;
-  if (auth.organisationId === null || !auth.role) throw forbidden('Choose an organisation first.');
+  if (auth.organisationId === null || !auth.role) throw new HttpError(403, 'You are not a member of an organisation right now.', { code: 'no-organisation' });
   if (!can(auth.role, access.permission)) {
     throw forbidden(`Your role (${auth.role}) does not allow this (${access.permission}). Ask an admin of the organisation.`);
   }

@@ -1,0 +1,87 @@
+import { render, screen } from '@testing-library/react';
+import { LedgerHistory } from '../../components/billing/LedgerHistory';
+import { ledgerLines } from '../../components/billing/ledger-lines';
+import { paymentNotice } from '../../components/billing/RunPaymentPanel';
+import { jobStatusLine, runClock } from '../../components/runs/progress';
+import { formatDate, formatDateTime } from '../../components/ui/dates';
+import { formatWhen } from '../../components/networks/format';
+import { shortDate } from '../../components/billing/format';
+import { formatDate as teamDate, formatDateTime as teamDateTime } from '../../components/team/format';
+import { shouldRetry } from '../../components/queries/client';
+import { ApiError } from '../../components/api/client';
+import type { LedgerEntryView } from '../../shared/schemas/billing';
+import type { RunJob } from '../../components/runs/types';
+
+jest.mock('expo-router', () => ({ useRouter: () => ({ push: jest.fn(), replace: jest.fn() }), useLocalSearchParams: () => ({}) }));
+
+/** Screens say plainly what the data says: one payment is one line, one clock per state, one date style. */
+
+const entry = (id: number, kind: string, amount: number, balanceAfter: number, paymentId: number | null, note: string | null = null): LedgerEntryView => ({
+  id, kind, amount, currency: 'eur', balanceAfter, runId: 7, paymentId, eventId: null, note, createdAt: '2026-12-01T10:00:00.000Z',
+});
+
+test('billing history: a run paid by card is one line, not +€2.50 and −€2.50', () => {
+  // Newest first, as the API answers: the spend (id 12) follows the card payment (id 11).
+  const entries = [entry(12, 'run_spend', -250, 1000, 5, 'Run #7 paid by card'), entry(11, 'run_payment', 250, 1250, 5, 'Card payment for run #7'), entry(10, 'credit_purchase', 1000, 1000, 4)];
+  const lines = ledgerLines(entries);
+  expect(lines.map((l) => l.kind)).toEqual(['run_card', 'credit_purchase']);
+  expect(lines[0]).toMatchObject({ byCard: 250, amount: 0, balanceAfter: 1000, note: 'Run #7 paid by card' });
+  render(<LedgerHistory entries={entries} />);
+  expect(screen.queryByText('+€2.50')).toBeNull();
+  expect(screen.queryByText('−€2.50')).toBeNull();
+  expect(screen.getByText('€2.50 by card')).toBeTruthy();
+  expect(screen.getByText('Run paid by card')).toBeTruthy();
+  // Credits spent on a run stay a signed line of their own.
+  expect(ledgerLines([entry(20, 'run_spend', -300, 700, null)])[0]).toMatchObject({ kind: 'run_spend', amount: -300, byCard: null });
+});
+
+test('payment return: back from a successful payment, an earlier decline is not shown beside "Confirming"', () => {
+  expect(paymentNotice('success', 'Your card was declined.')).toBe('confirming');
+  expect(paymentNotice(undefined, 'Your card was declined.')).toBe('failed');
+  expect(paymentNotice('cancelled', 'Your card was declined.')).toBe('failed');
+  expect(paymentNotice('cancelled', null)).toBe('cancelled');
+  expect(paymentNotice(undefined, null)).toBeNull();
+});
+
+const job = (over: Partial<RunJob>): RunJob => ({
+  id: 1, position: 0, solver: 'tabu', label: 'Tabu search', family: 'heuristic', settings: {}, status: 'queued', progress: 0, live: null, attempt: 1,
+  queuedAt: '2026-12-01T10:00:00.000Z', startedAt: null, finishedAt: null, result: null, error: null, ...over,
+});
+const result = (seconds: number) => ({ value: 10, assignment: [], bound: null, gap: null, energy: null, expectation: null, params: null, seconds, evaluations: 1, shots: 0, provenOptimal: false });
+const NOW = Date.parse('2026-12-01T10:00:30.000Z');
+
+test('a solver of a run that waits for payment waits for the payment, with no clock', () => {
+  expect(jobStatusLine(job({}), 'awaiting_payment', NOW)).toBe('Waiting for payment');
+  expect(jobStatusLine(job({}), 'queued', NOW)).toBe('Waiting for a worker');
+  expect(runClock({ status: 'awaiting_payment', createdAt: '2026-12-01T10:00:00.000Z', releasedAt: null, finishedAt: null, jobs: [job({})] }, false, NOW)).toBe('');
+});
+
+test('an exact energy has no "± 0"; an estimate keeps its standard error', () => {
+  const running = (stdError: number | undefined) => job({ status: 'running', startedAt: '2026-12-01T10:00:10.000Z', progress: 0.5, live: { energy: 6560.3, stdError, bestValue: 12 } as RunJob['live'] });
+  expect(jobStatusLine(running(0), 'running', NOW)).toBe('Running · 20.0 s · best so far 12 · energy 6,560.3');
+  expect(jobStatusLine(running(1.25), 'running', NOW)).toBe('Running · 20.0 s · best so far 12 · energy 6,560.3 ± 1.25');
+});
+
+test('"Took" is never shorter than the slowest solver (the run times are whole seconds)', () => {
+  const run = { status: 'succeeded' as const, createdAt: '2026-12-01T10:00:00.000Z', releasedAt: null, finishedAt: '2026-12-01T10:00:00.000Z', jobs: [job({ status: 'succeeded', result: result(0.45) }), job({ status: 'succeeded', result: result(0.1) })] };
+  expect(runClock(run, false, NOW)).toBe('Took 0.45 s');
+  expect(runClock({ ...run, finishedAt: '2026-12-01T10:00:03.000Z' }, false, NOW)).toBe('Took 3.00 s');
+  expect(runClock({ ...run, status: 'running', finishedAt: null }, true, NOW)).toBe('Elapsed 30.0 s');
+});
+
+test('one date style on every screen', () => {
+  const iso = '2026-09-04T08:05:00';
+  expect(formatDate(iso)).toBe('4 Sep 2026');
+  expect(formatDateTime(iso)).toBe('4 Sep 2026, 08:05');
+  for (const f of [formatWhen, teamDateTime]) expect(f(iso)).toBe(formatDateTime(iso));
+  for (const f of [shortDate, teamDate]) expect(f(iso)).toBe(formatDate(iso));
+  expect(formatDate(null)).toBe('—');
+});
+
+test('a missing or refused resource is not asked for again (it answers at once); outages are', () => {
+  expect(shouldRetry(0, new ApiError(404, 'Network not found.'))).toBe(false);
+  expect(shouldRetry(0, new ApiError(403, 'no'))).toBe(false);
+  expect(shouldRetry(0, new ApiError(503, 'busy'))).toBe(true);
+  expect(shouldRetry(0, new ApiError(0, 'offline'))).toBe(true);
+  expect(shouldRetry(3, new ApiError(0, 'offline'))).toBe(false);
+});
