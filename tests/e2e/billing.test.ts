@@ -137,6 +137,8 @@ test('phone: a large run shows its price, a declined card keeps it unpaid, payin
   await page.waitForURL((u) => u.pathname.startsWith('/pay/'));
   await page.getByRole('button', { name: 'Pay €2.50' }).click();
   await page.waitForURL((u) => u.pathname === `/runs/${runId}` && u.searchParams.get('payment') === 'success');
+  // Back from a successful payment the earlier decline is history: never shown beside "Confirming".
+  await expect(page.getByTestId('run-payment-failed').count()).resolves.toBe(0);
   await page.getByTestId('run-payment-done').getByText('Paid €2.50 by card', { exact: false }).waitFor({ timeout: 20_000 });
   await page.getByTestId('run-progress').waitFor({ timeout: 30_000 });
   await screenshot(page, 'billing-run-paid-phone');
@@ -158,11 +160,13 @@ test('phone: a large run shows its price, a declined card keeps it unpaid, payin
   expect(receipt.text).toContain(`Large solve, run #${runId}`);
   expect(receipt.text).toContain('Total: €2.50');
 
-  // The billing page: balance unchanged (the card paid the run), both legs in the history.
+  // The billing page: balance unchanged (the card paid the run), one line for the payment — not +€2.50 and −€2.50.
   await page.goto(`${server.url}/billing`);
   await page.getByTestId('billing-screen').waitFor();
   await expect(page.getByTestId('billing-balance').textContent()).resolves.toBe('€0.00');
-  await page.getByTestId('ledger-list').getByText('Card payment for a run').waitFor();
+  await page.getByTestId('ledger-list').getByText('Run paid by card').waitFor();
+  await page.getByTestId('ledger-list').getByText('€2.50 by card').waitFor();
+  await expect(page.getByTestId('ledger-list').getByText('+€2.50').count()).resolves.toBe(0);
   await screenshot(page, 'billing-page-phone');
   await page.getByTestId('receipts').scrollIntoViewIfNeeded();
   await screenshot(page, 'billing-receipts-phone');
