@@ -21,7 +21,7 @@ function AuthenticateCard() {
       <Body>1. Open Account → API tokens, name a token after the system that will use it, and create it. The token is shown once: copy it into that system's secret store.</Body>
       <Body>2. Send it on every request as the header Authorization: Bearer followed by the token. Token requests need no CSRF token and no cookie.</Body>
       <Body>3. A token acts as you, in the organisation it was created for, with your current role: if your role changes or you leave, the token follows. Revoke it on the Account screen when it is no longer needed.</Body>
-      <View style={styles.code} accessibilityLabel="Example request with a token">
+      <View style={styles.code} role="group" accessibilityLabel="Example request with a token">
         <Text style={typo.mono} selectable>{`curl \\\n  -H "Authorization: Bearer spy_…" \\\n  ${base}/api/networks`}</Text>
       </View>
       <Small>Errors come back as JSON: {'{"error": "…", "fields": {…}}'} with 400 for invalid input (fields name each problem), 401 without a valid token, 403 when your role does not allow the action, 404 for rows of other organisations, 429 when a limit is reached.</Small>
@@ -33,7 +33,7 @@ function OperationRow({ op }: { op: ApiOperation }) {
   return (
     <View style={styles.op} testID={`api-op-${op.method}-${op.path}`}>
       <View style={styles.opHead}>
-        <Text style={[styles.method, styles[op.method as keyof typeof styles] as object]} accessibilityLabel={`Method ${op.method}`}>{op.method}</Text>
+        <Text style={[styles.method, styles[op.method as keyof typeof styles] as object]} >{op.method}</Text>
         <Text style={[typo.mono, styles.path]} selectable>{op.path}</Text>
       </View>
       <Body>{op.summary}</Body>

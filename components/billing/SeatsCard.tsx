@@ -24,7 +24,7 @@ export function SeatsCard(props: { summary: BillingSummary; canBuy: boolean }) {
         <>
         <View style={styles.row}>
           <Step symbol="−" label="One seat fewer" onPress={() => setQuantity((q) => Math.max(1, q - 1))} disabled={quantity <= 1} testID="seats-minus" />
-          <Body accessibilityLabel={`${quantity} seats to buy`} style={styles.qty} testID="seats-quantity">{quantity}</Body>
+          <Body style={styles.qty} testID="seats-quantity">{quantity}</Body>
           <Step symbol="+" label="One seat more" onPress={() => setQuantity((q) => Math.min(50, q + 1))} disabled={quantity >= 50} testID="seats-plus" />
         </View>
         <View style={styles.row}>

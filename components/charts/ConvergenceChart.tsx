@@ -4,13 +4,19 @@ import { colors, fonts } from '../theme';
 import { Small } from '../ui/Text';
 import { convergenceGeometry, type ConvergencePoint } from './convergence';
 
+/** Median standard error over the trace (what the band's half-height typically is). */
+function typicalError(trace: readonly ConvergencePoint[]): number {
+  const se = trace.map((p) => p.stdError).filter((v): v is number => v !== undefined && Number.isFinite(v)).sort((a, b) => a - b);
+  return se.length ? se[Math.floor(se.length / 2)] : 0;
+}
+
 const tick = (v: number) => (Math.abs(v) >= 1000 ? `${Math.round(v / 100) / 10}k` : `${Math.round(v * 100) / 100}`);
 
 /**
  * Energy of the cost operator against iterations, with the ± standard-error band when the
  * energies are shot estimates. Lower is better for every question (energy = −cut for max-cut).
  */
-export function ConvergenceChart(props: { trace: readonly ConvergencePoint[]; width: number; height?: number; title?: string; testID?: string }) {
+export function ConvergenceChart(props: { trace: readonly ConvergencePoint[]; width: number; height?: number; title?: string; testID?: string; /** Starts the optimizer makes (the solver's restarts setting), when known. */ restarts?: number }) {
   const height = props.height ?? 180;
   const g = convergenceGeometry(props.trace, { width: props.width, height });
   const first = props.trace[0];
@@ -36,10 +42,16 @@ export function ConvergenceChart(props: { trace: readonly ConvergencePoint[]; wi
             </SvgText>
           ))}
         </G>
-        {g.band ? <Path d={g.band} fill={colors.signal} fillOpacity={0.25} stroke="none" testID="convergence-band" /> : null}
+        {/* Strong enough to read on white (the band was 25 % amber: barely visible), edged in the deeper amber. */}
+        {g.band ? <Path d={g.band} fill={colors.signal} fillOpacity={0.5} stroke={colors.signalDeep} strokeOpacity={0.6} strokeWidth={1} testID="convergence-band" /> : null}
         {g.line ? <Path d={g.line} fill="none" stroke={colors.ink} strokeWidth={2} testID="convergence-line" /> : null}
       </Svg>
-      <Small>Energy (lower is better) by iteration{g.band ? '; shaded: ± one standard error from shot noise' : ''}.</Small>
+      <Small>Energy (lower is better) by iteration{g.band ? `; shaded: ± one standard error from shot noise (typically ± ${tick(typicalError(props.trace))})` : ''}.</Small>
+      <Small testID="convergence-restarts">
+        {props.restarts && props.restarts > 1
+          ? `The optimizer starts ${props.restarts} times from different angles and keeps the best; each new start shows as a jump upward.`
+          : 'A jump upward means the optimizer started again from different angles (a restart); the best over all starts is kept.'}
+      </Small>
     </View>
   );
 }

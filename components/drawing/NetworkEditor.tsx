@@ -9,6 +9,7 @@ import { PromptModal } from './PromptModal';
 import { addDepot, addLane, emptySelection, laneEnds, moveDepot, nextDepotId, removeSelected, setLaneWeight, type Draft, type Selection } from './draft';
 import type { Projection } from './layout';
 import { depotAt, laneAt } from './hit';
+import type { Box } from './labels';
 import { parseVolume } from './volume';
 import { fitTransform, panBy, pinchTransform, toWorld, zoomAt, type ViewTransform } from './viewport';
 
@@ -55,6 +56,8 @@ export function NetworkEditor(props: {
   height?: number;
   depotColors?: readonly (string | undefined)[];
   emphasisedLanes?: ReadonlySet<number>;
+  /** A still picture (printing): no controls, no gestures, names where they fit. */
+  still?: boolean;
 }) {
   const { draft, projection } = props;
   const [size, setSize] = useState({ width: 0, height: 0 });
@@ -65,8 +68,9 @@ export function NetworkEditor(props: {
   const [pending, setPending] = useState<{ from: number; x: number; y: number } | null>(null);
   const [prompt, setPrompt] = useState<Prompt>(null);
   const [message, setMessage] = useState<string | null>(null);
-  // Names stay readable up to a couple of dozen depots; beyond that they are on request.
-  const [labels, setLabels] = useState(draft.depots.length <= 24);
+  // Names are placed without collisions (labels.ts), so they can show by default up to 80
+  // depots; crowded ones are shortened or left out, and a tapped depot always shows its name.
+  const [labels, setLabels] = useState(draft.depots.length <= 80);
   const fitted = useRef(false);
 
   const ends = useMemo(() => laneEnds(draft), [draft]);
@@ -79,12 +83,27 @@ export function NetworkEditor(props: {
     return copy;
   }, [draft.xy, dragAt]);
 
+  // Controls float over the canvas (Undo/Redo top left, zoom bottom right): a fit keeps the
+  // depots in the band between them, and names keep clear of their boxes.
+  const [controlBoxes, setControlBoxes] = useState<{ history: Box | null; zoom: Box | null }>({ history: null, zoom: null });
+  const reserved = useMemo(() => [controlBoxes.history, controlBoxes.zoom].filter((b): b is Box => b !== null), [controlBoxes]);
+  const boxOf = (key: 'history' | 'zoom') => (e: LayoutChangeEvent) => {
+    const { x, y, width, height } = e.nativeEvent.layout;
+    setControlBoxes((c) => (c[key] && c[key]!.x === x && c[key]!.y === y && c[key]!.w === width && c[key]!.h === height ? c : { ...c, [key]: { x, y, w: width, h: height } }));
+  };
   const fit = useCallback(() => {
     if (size.width === 0) return;
-    const t = fitTransform(draft.xy, size.width, size.height);
+    const band = (b: Box | null) => (b ? b.y + b.h + space.sm : 0);
+    const insets = {
+      top: props.readOnly ? 0 : Math.max(band(controlBoxes.history), 56),
+      bottom: props.still ? 0 : Math.max(controlBoxes.zoom ? size.height - controlBoxes.zoom.y + space.sm : 0, 56),
+      left: 0,
+      right: 0,
+    };
+    const t = fitTransform(draft.xy, size.width, size.height, 32, insets);
     setTransform(t);
     setMarkScale(1 / t.k);
-  }, [draft.xy, size]);
+  }, [draft.xy, size, controlBoxes, props.readOnly, props.still]);
 
   useEffect(() => {
     if (!fitted.current && size.width > 0) {
@@ -258,24 +277,28 @@ export function NetworkEditor(props: {
             depotColors={props.depotColors}
             emphasisedLanes={props.emphasisedLanes}
             showLabels={labels}
+            reserved={reserved}
           />
         ) : null}
         <View
           ref={overlay}
           style={StyleSheet.absoluteFill}
-          {...responder.panHandlers}
-          {...wheelProps}
+          {...(props.still ? {} : responder.panHandlers)}
+          {...(props.still ? {} : wheelProps)}
+          role={props.readOnly ? 'img' : 'application'}
           accessibilityLabel={props.readOnly ? 'Network drawing' : 'Drawing canvas: tap empty space to add a depot, drag between depots to add a lane'}
           testID="drawing-canvas"
         />
-        <View style={styles.zoom}>
-          <Button label={labels ? 'Hide names' : 'Names'} tone="secondary" onPress={() => setLabels((v) => !v)} accessibilityHint="Show or hide depot names in the drawing" />
-          <Button label="Fit" tone="secondary" onPress={fit} accessibilityHint="Show the whole network" />
-          <Button label="+" tone="secondary" onPress={() => zoomCentre(1.25)} accessibilityHint="Zoom in" testID="zoom-in" />
-          <Button label="−" tone="secondary" onPress={() => zoomCentre(0.8)} accessibilityHint="Zoom out" testID="zoom-out" />
-        </View>
+        {!props.still ? (
+          <View style={styles.zoom} onLayout={boxOf('zoom')}>
+            <Button label={labels ? 'Hide names' : 'Names'} tone="secondary" onPress={() => setLabels((v) => !v)} accessibilityHint="Show or hide depot names in the drawing" />
+            <Button label="Fit" tone="secondary" onPress={fit} accessibilityHint="Show the whole network" />
+            <Button label="+" tone="secondary" onPress={() => zoomCentre(1.25)} accessibilityHint="Zoom in" testID="zoom-in" />
+            <Button label="−" tone="secondary" onPress={() => zoomCentre(0.8)} accessibilityHint="Zoom out" testID="zoom-out" />
+          </View>
+        ) : null}
         {!props.readOnly ? (
-          <View style={styles.history}>
+          <View style={styles.history} onLayout={boxOf('history')}>
             <Button label="Undo" tone="secondary" onPress={props.undo} disabled={!props.canUndo} style={styles.compact} />
             <Button label="Redo" tone="secondary" onPress={props.redo} disabled={!props.canRedo} style={styles.compact} />
           </View>

@@ -15,7 +15,25 @@ export const toWorld = (t: ViewTransform, sx: number, sy: number): [number, numb
 export const toScreen = (t: ViewTransform, wx: number, wy: number): [number, number] => [wx * t.k + t.x, wy * t.k + t.y];
 
 /** The transform that shows every depot inside width×height with `padding` px to spare. */
-export function fitTransform(xy: Positions, width: number, height: number, padding = 48): ViewTransform {
+/** Screen bands covered by controls (px): a fit keeps every depot out of them. */
+export interface Insets {
+  top: number;
+  right: number;
+  bottom: number;
+  left: number;
+}
+
+const NO_INSETS: Insets = { top: 0, right: 0, bottom: 0, left: 0 };
+
+export function fitTransform(xy: Positions, fullWidth: number, fullHeight: number, padding = 48, insets: Insets = NO_INSETS): ViewTransform {
+  // Fit into the area the controls leave free, then shift back into canvas coordinates.
+  const width = Math.max(1, fullWidth - insets.left - insets.right);
+  const height = Math.max(1, fullHeight - insets.top - insets.bottom);
+  const t = fitFree(xy, width, height, padding);
+  return { k: t.k, x: t.x + insets.left, y: t.y + insets.top };
+}
+
+function fitFree(xy: Positions, width: number, height: number, padding: number): ViewTransform {
   const n = xy.length / 2;
   if (n === 0 || width <= 0 || height <= 0) return { k: 1, x: width / 2, y: height / 2 };
   let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;

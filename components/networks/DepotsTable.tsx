@@ -30,7 +30,7 @@ export function DepotsTable(props: { depots: readonly Depot[]; lanes: readonly L
   if (props.depots.length === 0) return <Small>No depots yet. Tap the drawing to add one.</Small>;
   const cols = props.wide ? ['Id', 'Name', 'Latitude', 'Longitude', 'Weight', 'Lanes'] : ['Depot', 'Weight', 'Lanes'];
   return (
-    <View accessibilityRole="list" accessibilityLabel="Depots" testID="depots-table">
+    <View role="group" accessibilityLabel="Depots" testID="depots-table">
       <View style={[styles.row, styles.head]}>
         {cols.map((c, k) => (
           <Small key={c} style={[styles.cell, props.wide ? (k === 0 ? styles.idCol : k === 1 ? styles.nameCol : styles.num) : k === 0 ? styles.grow : styles.num]}>{c}</Small>

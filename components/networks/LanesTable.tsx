@@ -62,7 +62,7 @@ export function LanesTable(props: { lanes: readonly Lane[]; selected: ReadonlySe
   }, [furthest, shown]);
   if (props.lanes.length === 0) return <Small>No lanes yet. In the drawing, drag from one depot to another to add one.</Small>;
   return (
-    <View accessibilityRole="list" accessibilityLabel="Lanes" testID="lanes-table">
+    <View role="group" accessibilityLabel="Lanes" testID="lanes-table">
       <View style={[styles.row, styles.head]}>
         <Small style={[styles.cell, styles.grow]}>From</Small>
         <Small style={[styles.cell, styles.grow]}>To</Small>

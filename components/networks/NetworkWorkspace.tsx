@@ -1,5 +1,5 @@
 import { useCallback, useEffect, useMemo, useState } from 'react';
-import { ScrollView, StyleSheet, View, useWindowDimensions } from 'react-native';
+import { StyleSheet, View, useWindowDimensions } from 'react-native';
 import type { NetworkDocument } from '../../shared/engine/network/types';
 import { summariseNetwork } from '../../shared/networks/summary';
 import { NetworkEditor } from '../drawing/NetworkEditor';
@@ -82,14 +82,15 @@ export function NetworkWorkspace(props: {
   const current = wide && tab === 'drawing' ? 'depots' : tab;
   const label = (t: Tab) => (t === 'drawing' ? 'Drawing' : t === 'depots' ? `Depots (${draft.depots.length})` : t === 'lanes' ? `Lanes (${draft.lanes.length})` : 'Versions');
   const tabRow = (
-    <View style={[styles.tabs, !wide && styles.tabsOneLine]} accessibilityRole="tablist">
+    <View style={styles.tabs} accessibilityRole="tablist">
       {tabs.map((t) => (
-        <Button key={t} label={label(t)} tone={current === t ? 'primary' : 'quiet'} onPress={() => setTab(t)} testID={`tab-${t}`} style={styles.tab} />
+        <Button key={t} label={label(t)} accessibilityRole="tab" selected={current === t} tone={current === t ? 'primary' : 'quiet'} onPress={() => setTab(t)} testID={`tab-${t}`} style={styles.tab} />
       ))}
     </View>
   );
-  // Phones keep the four tabs on one line and let them scroll sideways when the counts get long.
-  const tabBar = wide ? tabRow : <ScrollView horizontal showsHorizontalScrollIndicator={false}>{tabRow}</ScrollView>;
+  // Phones: the tabs wrap onto a second line when the counts get long rather than scrolling a
+  // fourth tab out of sight (nothing showed it was there).
+  const tabBar = tabRow;
   const panel = current === 'drawing' ? editor : current === 'depots' ? depots : current === 'lanes' ? lanes : props.versions;
 
   return (
@@ -125,7 +126,6 @@ const styles = StyleSheet.create({
   wrap: { gap: space.md },
   tabs: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs, padding: 2, borderRadius: radius.md, backgroundColor: colors.surfaceSunk, alignSelf: 'flex-start' },
   tab: { paddingHorizontal: space.sm },
-  tabsOneLine: { flexWrap: 'nowrap' },
   columns: { flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' },
   left: { flex: 3, minWidth: 0 },
   right: { flex: 2, minWidth: 0 },

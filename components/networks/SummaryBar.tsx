@@ -17,7 +17,7 @@ export function SummaryBar(props: { summary: NetworkSummary; testID?: string; /*
   if (props.compact) {
     const split = s.components > 1;
     return (
-      <Small testID={props.testID ?? 'network-summary'} style={styles.line} accessibilityLabel={items.map(([k, v]) => `${k} ${v}`).join(', ') + (split ? `; ${s.components} separate parts` : '')}>
+      <Small testID={props.testID ?? 'network-summary'} style={styles.line} role="group" accessibilityLabel={items.map(([k, v]) => `${k} ${v}`).join(', ') + (split ? `; ${s.components} separate parts` : '')}>
         {items.map(([k, v], i) => (
           <Small key={k} style={styles.line}>
             {i > 0 ? ' · ' : ''}
@@ -28,13 +28,13 @@ export function SummaryBar(props: { summary: NetworkSummary; testID?: string; /*
     );
   }
   return (
-    <View style={styles.row} testID={props.testID ?? 'network-summary'} accessibilityLabel={items.map(([k, v]) => `${k} ${v}`).join(', ')}>
+    <View style={styles.row} testID={props.testID ?? 'network-summary'} role="group" accessibilityLabel={items.map(([k, v]) => `${k} ${v}`).join(', ')}>
       {items.map(([k, v]) => {
         // Several components are worth a colour, not an extra line: the canvas below must not
         // jump while someone is drawing.
         const split = k === 'Components' && s.components > 1;
         return (
-          <View key={k} style={styles.item} accessibilityLabel={split ? `${s.components} separate parts: depots in different parts share no lanes` : undefined}>
+          <View key={k} style={styles.item} role={split ? 'group' : undefined} accessibilityLabel={split ? `${s.components} separate parts: depots in different parts share no lanes` : undefined}>
             <Small>{k}</Small>
             <Label style={[styles.value, split && styles.warn]} testID={`summary-${k.toLowerCase().replace(/\s/g, '-')}`}>{v}</Label>
           </View>

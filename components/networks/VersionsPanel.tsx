@@ -75,7 +75,7 @@ export function ComparisonView(props: { c: VersionComparison }) {
   ];
   const none = lines.every(([, items]) => items.length === 0);
   return (
-    <View style={styles.compare} testID="version-comparison" accessibilityLabel={`Comparison of version ${c.from.number} with version ${c.to.number}`}>
+    <View style={styles.compare} testID="version-comparison" role="group" accessibilityLabel={`Comparison of version ${c.from.number} with version ${c.to.number}`}>
       <Label style={styles.title}>Version {c.from.number} → version {c.to.number}</Label>
       {none ? <Body>The two versions hold the same network.</Body> : null}
       {lines.filter(([, items]) => items.length > 0).map(([title, items]) => (

@@ -1,3 +1,4 @@
+import { useMemo } from 'react';
 import { keepPreviousData, useMutation, useQueries, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../api/client';
 import type { VersionDetail } from '../../shared/schemas/networks';
@@ -75,6 +76,15 @@ export function useSolversQuery() {
     staleTime: STALE.static,
     queryFn: () => api.get<{ solvers: SolverOption[] }>('/solvers').then((b) => b.solvers),
   });
+}
+
+/**
+ * Solver labels from the registry's listing, by name: the one way screens name a solver
+ * ("Tabu search", never "tabu"). Falls back to the name only until the listing has loaded.
+ */
+export function useSolverLabels(): Record<string, string> {
+  const solvers = useSolversQuery();
+  return useMemo(() => Object.fromEntries((solvers.data ?? []).map((s) => [s.name, s.label])), [solvers.data]);
 }
 
 export interface SolverDefaultsAnswer {

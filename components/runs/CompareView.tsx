@@ -1,12 +1,13 @@
-import { ScrollView, StyleSheet, View } from 'react-native';
+import { ScrollView, StyleSheet, View, useWindowDimensions } from 'react-native';
 import { useRouter } from 'expo-router';
 import { can, type Role } from '../../shared/permissions';
-import { useRunsByIdQuery, useRunVersionsQuery, useSolversQuery } from '../queries/runs';
-import { colors, fonts, space } from '../theme';
+import { useRunsByIdQuery, useRunVersionsQuery, useSolverLabels } from '../queries/runs';
+import { colors, fonts, space, WIDE_BREAKPOINT } from '../theme';
+import { Card } from '../ui/Card';
 import { Button } from '../ui/Button';
 import { DecisionSupportNote, Notice } from '../ui/Notice';
 import { Screen } from '../ui/Screen';
-import { Body, Label, Small } from '../ui/Text';
+import { Body, Heading, Label, Small } from '../ui/Text';
 import { compareColumns, sameQuestion, type CompareColumn } from './compare';
 import { formatGap, formatRatio, formatSeconds, formatValue, questionLabel } from './format';
 import type { RunDetail } from './types';
@@ -23,7 +24,8 @@ const HEAD = 150;
 export function CompareView(props: { ids: number[]; role: Role | null }) {
   const router = useRouter();
   const queries = useRunsByIdQuery(props.ids);
-  const solvers = useSolversQuery();
+  const labels = useSolverLabels();
+  const wide = useWindowDimensions().width >= WIDE_BREAKPOINT;
   const loaded = queries.map((q) => q.data).filter((d): d is RunDetail => !!d);
   const versions = useRunVersionsQuery(loaded.map((r) => ({ networkId: r.networkId, versionId: r.versionId })));
   const versionNumber = new Map(versions.map((v) => [v.data?.id, v.data?.number]));
@@ -33,13 +35,14 @@ export function CompareView(props: { ids: number[]; role: Role | null }) {
   if (failed) return <Screen title="Compare runs"><Notice tone="error">{failed.error?.message ?? 'A run could not be loaded.'}</Notice></Screen>;
   if (queries.some((q) => q.isPending)) return <Screen title="Compare runs"><Body>Loading runs…</Body></Screen>;
   const runs = queries.map((q) => q.data as RunDetail);
-  const labels = Object.fromEntries((solvers.data ?? []).map((s) => [s.name, s.label]));
   const cols = compareColumns(runs, labels);
   // One row per solver label + settings, so QAOA p = 1 and p = 3 get rows of their own.
   const solverKeys: string[] = [];
+  const solverHead = new Map<string, string>();
   for (const c of cols) for (const s of c.solvers) {
     const key = s.solver + settingsText(s.settings);
     if (!solverKeys.includes(key)) solverKeys.push(key);
+    solverHead.set(key, (labels[s.solver] ?? s.solver) + settingsText(s.settings));
   }
   const cell = (c: CompareColumn, key: string) => {
     const s = c.solvers.find((x) => x.solver + settingsText(x.settings) === key);
@@ -57,12 +60,29 @@ export function CompareView(props: { ids: number[]; role: Role | null }) {
     { head: 'Network', get: (c) => `${c.network} · version ${versionNumber.get(c.versionId) ?? '…'}` },
     { head: 'Best answer', get: (c) => (c.bestValue === null ? '—' : `${formatValue(c.bestValue)} by ${c.bestSolver}`) },
     { head: 'Best proven bound', get: (c) => formatValue(c.bound) },
-    ...solverKeys.map((key) => ({ head: key, get: (c: CompareColumn) => cell(c, key) })),
+    ...solverKeys.map((key) => ({ head: solverHead.get(key) ?? key, get: (c: CompareColumn) => cell(c, key) })),
   ];
   return (
     <Screen title="Compare runs" subtitle={`${runs.length} runs`}>
       {!sameQuestion(runs) ? <Notice tone="caution">These runs ask different questions (kind, regions, tolerance or pins differ); compare their values with care.</Notice> : null}
       <DecisionSupportNote />
+      {!wide ? (
+        // Phones: one card per run, one under the other — nothing hides off the right edge.
+        <View style={styles.cards} testID="compare-cards">
+          {cols.map((c) => (
+            <Card key={c.runId} testID={`compare-card-${c.runId}`}>
+              <Heading>Run {c.runId}</Heading>
+              {rows.map((row) => (
+                <View key={row.head} style={styles.line}>
+                  <Label>{row.head}</Label>
+                  <Body testID={`cmp-${c.runId}-${row.head}`}>{row.get(c)}</Body>
+                </View>
+              ))}
+              <Button label={`Open run ${c.runId}`} tone="secondary" onPress={() => router.push(`/runs/${c.runId}`)} />
+            </Card>
+          ))}
+        </View>
+      ) : (
       <ScrollView horizontal contentContainerStyle={styles.scroll} testID="compare-table">
         <View>
           <View style={[styles.tr, styles.thead]}>
@@ -83,6 +103,7 @@ export function CompareView(props: { ids: number[]; role: Role | null }) {
           ))}
         </View>
       </ScrollView>
+      )}
       <Small>Ratio = value against the best proven bound of that run (1.000 = proven best); gap = how far from that bound.</Small>
     </Screen>
   );
@@ -90,6 +111,8 @@ export function CompareView(props: { ids: number[]; role: Role | null }) {
 
 const styles = StyleSheet.create({
   scroll: { paddingBottom: space.sm },
+  cards: { gap: space.md },
+  line: { gap: 2, paddingVertical: space.xs, borderBottomWidth: 1, borderColor: colors.line },
   tr: { flexDirection: 'row', borderBottomWidth: 1, borderColor: colors.line, paddingVertical: space.sm, alignItems: 'flex-start' },
   thead: { alignItems: 'center' },
   th: { width: HEAD, paddingRight: space.sm, fontFamily: fonts.medium },

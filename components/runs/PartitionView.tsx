@@ -7,15 +7,17 @@ import { colors, radius, regionColors, space } from '../theme';
 import { Body, Label, Small } from '../ui/Text';
 import { formatValue } from './format';
 import { summarisePartition } from './partition';
+import { partName } from '../../shared/runs/regions';
 import type { RunProblem } from './types';
 
-export const regionName = (kind: RunProblem['kind'], r: number) => (kind === 'kway' ? `Region ${r + 1}` : `Side ${r === 0 ? 'A' : 'B'}`);
+/** Sides and regions are named as the CSV numbers them (shared/runs/regions.ts). */
+export const regionName = (kind: RunProblem['kind'], r: number) => partName(kind, r);
 
 /**
  * One answer drawn on the network: depots coloured by side or region, crossing lanes
  * emphasised, with per-region totals and the balance verdict beside it.
  */
-export function PartitionView(props: { document: Pick<NetworkDocument, 'depots' | 'lanes'>; problem: RunProblem; assignment: readonly number[]; title: string; height?: number }) {
+export function PartitionView(props: { document: Pick<NetworkDocument, 'depots' | 'lanes'>; problem: RunProblem; assignment: readonly number[]; title: string; height?: number; /** For print: a still drawing, no controls or tap hints. */ still?: boolean }) {
   const { draft, projection } = useMemo(() => draftFromDocument(props.document), [props.document]);
   const [selection, setSelection] = useState<Selection>(emptySelection);
   const summary = useMemo(() => summarisePartition(props.document, props.problem, props.assignment), [props.document, props.problem, props.assignment]);
@@ -26,15 +28,17 @@ export function PartitionView(props: { document: Pick<NetworkDocument, 'depots' 
   return (
     <View style={styles.wrap} testID="partition-view">
       <Label>{props.title}</Label>
-      <NetworkEditor draft={draft} projection={projection} onCommit={() => undefined} selection={selection} onSelectionChange={setSelection} readOnly height={props.height ?? 340} depotColors={depotColors} emphasisedLanes={summary.crossingLanes} />
+      <NetworkEditor draft={draft} projection={projection} onCommit={() => undefined} selection={selection} onSelectionChange={setSelection} readOnly still={props.still} height={props.height ?? 340} depotColors={depotColors} emphasisedLanes={summary.crossingLanes} />
       {pickedDepot ? (
         <Small testID="partition-picked">
           {pickedDepot.name ?? pickedDepot.id} ({pickedDepot.id}): {regionName(props.problem.kind, props.assignment[picked])}
         </Small>
+      ) : props.still ? (
+        <Small>Emphasised lanes cross between {props.problem.kind === 'kway' ? 'regions' : 'sides'}.</Small>
       ) : (
         <Small>Tap a depot to see its {props.problem.kind === 'kway' ? 'region' : 'side'}. Emphasised lanes cross between {props.problem.kind === 'kway' ? 'regions' : 'sides'}.</Small>
       )}
-      <View style={styles.legend} accessibilityLabel="Totals per region">
+      <View style={styles.legend} role="group" accessibilityLabel="Totals per region">
         {summary.regions.map((r) => (
           <View key={r.region} style={styles.region} testID={`region-${r.region}`}>
             <View style={[styles.swatch, { backgroundColor: regionColors[r.region % regionColors.length] }]} />

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Pressable, StyleSheet, View, useWindowDimensions } from 'react-native';
 import { Link, useRouter } from 'expo-router';
 import { can, type Role } from '../../shared/permissions';
-import { useRunsQuery } from '../queries/runs';
+import { useRunsQuery, useSolverLabels } from '../queries/runs';
 import { colors, fonts, radius, space, TOUCH, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { EmptyState } from '../ui/EmptyState';
@@ -22,6 +22,8 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
   const { width } = useWindowDimensions();
   const wide = width >= WIDE_BREAKPOINT;
   const runs = useRunsQuery();
+  const labels = useSolverLabels();
+  const solverNames = (r: RunListItem) => r.solvers.map((s) => labels[s] ?? s).join(', ');
   const mayCompare = can(props.role, 'runs:compare');
   const [ticked, setTicked] = useState<number[]>(props.compareWith ? [props.compareWith] : []);
   const toggle = (id: number) => setTicked((t) => (t.includes(id) ? t.filter((x) => x !== id) : [...t, id]));
@@ -40,14 +42,14 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
   }
   // Wide screens: one table row per run, the same cells as the phone card.
   const tableRow = (r: RunListItem) => (
-    <View key={r.id} style={styles.tr} testID={`run-item-${r.id}`}>
+    <View key={r.id} style={styles.tr} role="listitem" testID={`run-item-${r.id}`}>
       {/* A real <a href> on the web: Enter opens it (react-native-web leaves role="link" without href to the browser, which does nothing). */}
       <Link href={`/runs/${r.id}`} asChild>
       <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} style={styles.trOpen}>
         <Body style={[styles.cRun, styles.title]}>Run {r.id}</Body>
         <Body style={styles.cQuestion}>{questionLabel(r.problem)}</Body>
         <Body style={styles.cNetwork}>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots</Body>
-        <Small style={styles.cSolvers}>{r.solvers.join(', ')}</Small>
+        <Small style={styles.cSolvers}>{solverNames(r)}</Small>
         <Small style={styles.cStatus}>{STATUS_TEXT[r.status] ?? r.status}</Small>
         <Small style={styles.cWhen}>{formatDateTime(r.createdAt)}</Small>
       </Pressable>
@@ -64,7 +66,7 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
       <Link href={`/runs/${r.id}`} asChild>
       <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} style={styles.open}>
         <Body style={styles.title}>Run {r.id} · {questionLabel(r.problem)}</Body>
-        <Small>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots · {r.solvers.join(', ')}</Small>
+        <Small>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots · {solverNames(r)}</Small>
         <Small>{STATUS_TEXT[r.status] ?? r.status} · {formatDateTime(r.createdAt)}</Small>
       </Pressable>
       </Link>
@@ -75,7 +77,7 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
     <Screen title="Runs" subtitle={mayCompare ? 'Tick two or more runs to compare them in one table.' : undefined} actions={compare}>
       {wide ? (
         <View style={styles.table} accessibilityRole="list">
-          <View style={[styles.tr, styles.thead]}>
+          <View style={[styles.tr, styles.thead]} aria-hidden>
             <View style={styles.trOpen}>
               {(['Run', 'Question', 'Network', 'Solvers', 'Status', 'Started'] as const).map((h, i) => (
                 <Label key={h} style={[styles.cRun, styles.cQuestion, styles.cNetwork, styles.cSolvers, styles.cStatus, styles.cWhen][i]}>{h}</Label>

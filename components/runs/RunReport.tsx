@@ -1,8 +1,8 @@
-import { useMemo } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { ScrollView, StyleSheet, View, useWindowDimensions } from 'react-native';
 import * as Print from 'expo-print';
 import { useRouter } from 'expo-router';
-import { useRunQuery, useRunVersionQuery, useSolversQuery } from '../queries/runs';
+import { useRunQuery, useRunVersionQuery, useSolverLabels } from '../queries/runs';
 import { colors, fonts, space } from '../theme';
 import { Button } from '../ui/Button';
 import { DecisionSupportNote, Notice } from '../ui/Notice';
@@ -13,6 +13,7 @@ import { Scorecard } from './Scorecard';
 import { buildScorecard } from './scorecard';
 import { STATUS_TEXT } from './progress';
 import { formatDateTime } from '../ui/dates';
+import { partWord } from '../../shared/runs/regions';
 
 /**
  * The printable report: plain page without the app's navigation, the scorecard as a table, the
@@ -22,9 +23,15 @@ export function RunReport(props: { id: number }) {
   const router = useRouter();
   const { width } = useWindowDimensions();
   const run = useRunQuery(props.id);
-  const solvers = useSolversQuery();
   const version = useRunVersionQuery(run.data?.networkId, run.data?.versionId);
-  const labels = useMemo(() => Object.fromEntries((solvers.data ?? []).map((s) => [s.name, s.label])), [solvers.data]);
+  const labels = useSolverLabels();
+  const [printing, setPrinting] = useState(false);
+  useEffect(() => {
+    if (!printing) return;
+    // One frame for the buttons to leave, then the print dialog; they come back after it.
+    const t = setTimeout(() => void Print.printAsync({}).finally(() => setPrinting(false)), 50);
+    return () => clearTimeout(t);
+  }, [printing]);
   const card = useMemo(() => (run.data ? buildScorecard(run.data, labels) : null), [run.data, labels]);
   if (run.isPending) return <View style={styles.page}><Body>Loading the report…</Body></View>;
   if (run.isError || !card) return <View style={styles.page}><Notice tone="error">This run was not found in your organisation.</Notice></View>;
@@ -41,23 +48,26 @@ export function RunReport(props: { id: number }) {
             {r.problem.tolerance !== undefined && r.problem.kind !== 'maxcut' ? ` · tolerance ${Math.round(r.problem.tolerance * 1000) / 10} %` : ''} · {r.networkName ?? `network ${r.networkId}`}{version.data ? ` · version ${version.data.number}` : ''} · {formatDateTime(r.createdAt)} · {STATUS_TEXT[r.status] ?? r.status}
           </Small>
         </View>
-        <View style={styles.actions}>
-          <Button label="Print" onPress={() => Print.printAsync({})} testID="print-report" />
-          <Button label="Back to run" tone="secondary" onPress={() => router.push(`/runs/${r.id}`)} />
-        </View>
+        {/* The page's own buttons leave the page while it prints. */}
+        {!printing ? (
+          <View style={styles.actions}>
+            <Button label="Print" onPress={() => setPrinting(true)} testID="print-report" />
+            <Button label="Back to run" tone="secondary" onPress={() => router.push(`/runs/${r.id}`)} />
+          </View>
+        ) : null}
       </View>
       <DecisionSupportNote />
       <Heading>Scorecard</Heading>
       <Scorecard card={card} valueName={r.problem.kind === 'maxcut' ? 'Cut weight' : 'Crossing weight'} wide={width >= 760} />
       {best?.result && doc ? (
         <>
-          <PartitionView document={doc} problem={r.problem} assignment={best.result.assignment} title={`Best answer: ${labels[best.solver] ?? best.solver}`} height={420} />
+          <PartitionView document={doc} problem={r.problem} assignment={best.result.assignment} title={`Best answer: ${labels[best.solver] ?? best.solver}`} height={420} still />
           <Heading>Depot assignment</Heading>
           <View testID="report-assignment">
             <View style={[styles.tr, styles.thead]}>
               <Label style={styles.cellId}>Depot id</Label>
               <Label style={styles.cellName}>Name</Label>
-              <Label style={styles.cellSide}>{r.problem.kind === 'kway' ? 'Region' : 'Side'}</Label>
+              <Label style={styles.cellSide}>{partWord(r.problem.kind) === 'region' ? 'Region' : 'Side'}</Label>
             </View>
             {doc.depots.map((d, i) => (
               <View key={d.id} style={styles.tr}>

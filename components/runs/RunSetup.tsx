@@ -13,7 +13,7 @@ import { Notice } from '../ui/Notice';
 import { Screen } from '../ui/Screen';
 import { Body, Heading, Small } from '../ui/Text';
 import { TextField } from '../ui/TextField';
-import { CheckRow, ChoiceCard, Segmented } from './controls';
+import { CheckRow, ChoiceCard, ChoiceGroup, Segmented } from './controls';
 import { EncodingSummary } from './EncodingSummary';
 import { KIND_HINTS, KIND_LABELS } from './format';
 import { PinPicker } from './PinPicker';
@@ -80,11 +80,11 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
   const question = (
     <Card>
       <Heading>What should the split do?</Heading>
-      <View style={styles.stack} accessibilityRole="radiogroup" accessibilityLabel="Question">
+      <ChoiceGroup style={styles.stack} label="Question">
         {KINDS.map((k) => (
           <ChoiceCard key={k} title={k === 'kway' ? `${KIND_LABELS.kway} (several regions)` : KIND_LABELS[k]} hint={KIND_HINTS[k]} selected={s.kind === k} onPress={() => set({ kind: k })} testID={`kind-${k}`} />
         ))}
-      </View>
+      </ChoiceGroup>
       {s.kind === 'kway' ? <Segmented label="Number of regions k" options={[3, 4, 5, 6, 7, 8] as const} value={s.k as 3} onChange={(k) => set({ k })} testID="k-choice" /> : null}
       {s.kind !== 'maxcut' ? (
         <TextField label="Balance tolerance (% of total demand)" value={s.tolerancePercent} onChangeText={(t) => set({ tolerancePercent: t })} keyboardType="numeric" hint="0 = as even as possible; 5 = regions may differ by about 5 % of total demand." testID="tolerance" />

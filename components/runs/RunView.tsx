@@ -5,7 +5,7 @@ import { senseOf } from '../../shared/engine/problem/types';
 import { can, type Role } from '../../shared/permissions';
 import { ConvergenceChart } from '../charts/ConvergenceChart';
 import { SampleHistogram } from '../charts/SampleHistogram';
-import { isLive, useRunCancelMutation, useRunQuery, useRunRetryMutation, useRunVersionQuery, useSolversQuery } from '../queries/runs';
+import { isLive, useRunCancelMutation, useRunQuery, useRunRetryMutation, useRunVersionQuery, useSolverLabels } from '../queries/runs';
 import { colors, space, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
@@ -69,7 +69,6 @@ export function RunView(props: { id: number; role: Role | null }) {
   const { width } = useWindowDimensions();
   const wide = width >= WIDE_BREAKPOINT;
   const run = useRunQuery(props.id);
-  const solvers = useSolversQuery();
   const version = useRunVersionQuery(run.data?.networkId, run.data?.versionId);
   const cancel = useRunCancelMutation();
   const retry = useRunRetryMutation();
@@ -78,7 +77,7 @@ export function RunView(props: { id: number; role: Role | null }) {
   const traces = useLiveTraces(run.data);
   const [picked, setPicked] = useState<number | null>(null);
   const [chartJob, setChartJob] = useState<number | null>(null);
-  const labels = useMemo(() => Object.fromEntries((solvers.data ?? []).map((s) => [s.name, s.label])), [solvers.data]);
+  const labels = useSolverLabels();
   const card = useMemo(() => (run.data ? buildScorecard(run.data, labels) : null), [run.data, labels]);
 
   if (run.isPending) return <Screen title={`Run ${props.id}`}><Body>Loading the run…</Body></Screen>;
@@ -122,7 +121,7 @@ export function RunView(props: { id: number; role: Role | null }) {
     <Card testID="convergence-card">
       <Heading>Energy convergence</Heading>
       {variational.length > 1 ? <Segmented label="Solver" options={variational.map((j) => j.id)} value={chartFor.id} onChange={setChartJob} format={(id) => label(r.jobs.find((j) => j.id === id)!)} /> : null}
-      <Measured>{(w) => <ConvergenceChart trace={traces[chartFor.id]} width={w} title={label(chartFor)} />}</Measured>
+      <Measured>{(w) => <ConvergenceChart trace={traces[chartFor.id]} width={w} title={label(chartFor)} restarts={typeof chartFor.settings?.restarts === 'number' ? chartFor.settings.restarts : undefined} />}</Measured>
     </Card>
   ) : null;
 
@@ -133,7 +132,12 @@ export function RunView(props: { id: number; role: Role | null }) {
       {selected.result.params?.length ? (
         <View testID="final-params">
           <Label>Final parameters</Label>
-          <Body style={styles.mono}>{parameterNames(selected.solver, selected.result.params.length).map((name, i) => `${name} = ${selected.result!.params![i].toFixed(4)}`).join('   ')}</Body>
+          {/* Each name stays with its value: the list wraps between pairs, never inside one. */}
+          <View style={styles.params}>
+            {parameterNames(selected.solver, selected.result.params.length).map((name, i) => (
+              <Body key={name} style={[styles.mono, styles.param]} numberOfLines={1} testID="param">{`${name}\u00a0=\u00a0${selected.result!.params![i].toFixed(4)}`}</Body>
+            ))}
+          </View>
           {selected.result.expectation !== null ? <Small>Expected {valueName.toLowerCase()} at these parameters: {formatValue(selected.result.expectation)}.</Small> : null}
         </View>
       ) : null}
@@ -202,4 +206,6 @@ const styles = StyleSheet.create({
   colWide: { flex: 3, gap: space.lg },
   col: { flex: 2, gap: space.lg },
   mono: { fontFamily: 'monospace', fontSize: 13 },
+  params: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg, rowGap: space.xs },
+  param: { flexShrink: 0 },
 });

@@ -1,11 +1,19 @@
+import { Children, cloneElement, isValidElement, useRef, type ReactElement } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
+import { checkboxKeyDown, radioKeyDown, type KeyEvent } from '../ui/keys';
 import { colors, fonts, radius, space, TOUCH } from '../theme';
 import { Body, Small } from '../ui/Text';
 
+/** react-native-web passes onKeyDown to the element; React Native's types do not list it. */
+const keyProps = (onKeyDown?: (e: KeyEvent) => void): object => (onKeyDown ? { onKeyDown } : {});
+
 /** One option of a single choice (radio semantics), with an optional sentence under the title. */
-export function ChoiceCard(props: { title: string; hint?: string; selected: boolean; onPress: () => void; testID?: string }) {
+export function ChoiceCard(props: { title: string; hint?: string; selected: boolean; onPress: () => void; testID?: string; onKeyDown?: (e: KeyEvent) => void; tabIndex?: 0 | -1; choiceRef?: (el: View | null) => void }) {
   return (
     <Pressable
+      ref={props.choiceRef}
+      {...keyProps(props.onKeyDown)}
+      tabIndex={props.tabIndex}
       accessibilityRole="radio"
       accessibilityLabel={props.title}
       accessibilityHint={props.hint}
@@ -28,6 +36,8 @@ export function ChoiceCard(props: { title: string; hint?: string; selected: bool
 export function CheckRow(props: { title: string; hint?: string; checked: boolean; onPress: () => void; disabled?: boolean; testID?: string; accessibilityLabel?: string }) {
   return (
     <Pressable
+      // WAI-ARIA APG checkbox: Space toggles (react-native-web gives Space to buttons only).
+      {...keyProps((e) => checkboxKeyDown(e, props.disabled ? () => undefined : props.onPress))}
       accessibilityRole="checkbox"
       accessibilityLabel={props.accessibilityLabel ?? props.title}
       accessibilityHint={props.hint}
@@ -47,15 +57,50 @@ export function CheckRow(props: { title: string; hint?: string; checked: boolean
   );
 }
 
+/**
+ * A radio group of ChoiceCards with the WAI-ARIA APG keys: arrow keys move both the focus and the
+ * choice to the next or previous card (wrapping); only the chosen card is in the Tab order; Space
+ * chooses the focused card.
+ */
+export function ChoiceGroup(props: { label: string; children: ReactElement<{ selected: boolean; onPress: () => void }>[]; style?: object; testID?: string }) {
+  const refs = useRef<(View | null)[]>([]);
+  const cards = Children.toArray(props.children).filter(isValidElement) as ReactElement<{ selected: boolean; onPress: () => void }>[];
+  const chosen = Math.max(0, cards.findIndex((c) => c.props.selected));
+  return (
+    <View style={props.style} accessibilityRole="radiogroup" accessibilityLabel={props.label} testID={props.testID}>
+      {cards.map((card, i) =>
+        cloneElement(card as ReactElement<Record<string, unknown>>, {
+          tabIndex: i === chosen ? 0 : -1,
+          choiceRef: (el: View | null) => { refs.current[i] = el; },
+          onKeyDown: (e: KeyEvent) =>
+            radioKeyDown(e, i, cards.length, (next) => {
+              cards[next].props.onPress();
+              (refs.current[next] as unknown as { focus?: () => void } | null)?.focus?.();
+            }),
+        }),
+      )}
+    </View>
+  );
+}
+
 /** A compact segmented choice for short values (k, ansatz, optimizer). */
 export function Segmented<T extends string | number>(props: { label: string; options: readonly T[]; value: T; onChange: (v: T) => void; format?: (v: T) => string; testID?: string }) {
+  const refs = useRef<(View | null)[]>([]);
+  const chosen = Math.max(0, props.options.indexOf(props.value));
+  const move = (next: number) => {
+    props.onChange(props.options[next]);
+    (refs.current[next] as unknown as { focus?: () => void } | null)?.focus?.();
+  };
   return (
     <View style={styles.segWrap} accessibilityRole="radiogroup" accessibilityLabel={props.label} testID={props.testID}>
       <Small style={styles.segLabel}>{props.label}</Small>
       <View style={styles.seg}>
-        {props.options.map((o) => (
+        {props.options.map((o, i) => (
           <Pressable
             key={String(o)}
+            ref={(el) => { refs.current[i] = el; }}
+            tabIndex={i === chosen ? 0 : -1}
+            {...keyProps((e) => radioKeyDown(e, i, props.options.length, move))}
             accessibilityRole="radio"
             accessibilityLabel={`${props.label}: ${props.format ? props.format(o) : String(o)}`}
             accessibilityState={{ checked: o === props.value }}

@@ -1,8 +1,13 @@
 import type { AuditEvent } from '../../shared/schemas/auth';
 import { ROLE_LABELS, type Role } from '../../shared/permissions';
+import { euros, PURPOSE_LABELS } from '../billing/format';
 
 /** Dates as everywhere in the app (components/ui/dates.ts). */
 export { formatDate, formatDateTime } from '../ui/dates';
+
+const money = (cents: unknown) => (typeof cents === 'number' ? euros(cents) : 'an amount');
+const purpose = (d: Record<string, unknown>) => (d.purpose === 'run' && d.runId ? `run #${String(d.runId)}` : (PURPOSE_LABELS[String(d.purpose)] ?? 'a purchase').toLowerCase());
+const run = (e: AuditEvent, capital = false) => (e.targetType === 'run' && e.targetId ? `${capital ? 'Run' : 'run'} #${e.targetId}` : capital ? 'A run' : 'a run');
 
 const roleLabel = (r: unknown) => (typeof r === 'string' && r in ROLE_LABELS ? ROLE_LABELS[r as Role] : String(r ?? ''));
 
@@ -10,6 +15,7 @@ const roleLabel = (r: unknown) => (typeof r === 'string' && r in ROLE_LABELS ? R
 export function describeAudit(e: AuditEvent): string {
   const d = (e.detail ?? {}) as Record<string, unknown>;
   const who = e.actor?.name ?? 'Someone';
+  const whom = e.target ? `${e.target.name} (${e.target.email})` : 'a member';
   switch (e.action) {
     case 'auth.signed_in':
       return `${who} signed in`;
@@ -28,9 +34,9 @@ export function describeAudit(e: AuditEvent): string {
     case 'organisation.closed':
       return `${who} closed the organisation`;
     case 'member.role_changed':
-      return `${who} changed a role: ${roleLabel(d.from)} → ${roleLabel(d.to)}`;
+      return `${who} changed the role of ${whom}: ${roleLabel(d.from)} → ${roleLabel(d.to)}`;
     case 'member.removed':
-      return `${who} removed a member (${roleLabel(d.role)})`;
+      return `${who} removed ${whom} (${roleLabel(d.role)})`;
     case 'member.joined':
       return `${who} joined as ${roleLabel(d.role)}`;
     case 'invitation.created':
@@ -45,7 +51,18 @@ export function describeAudit(e: AuditEvent): string {
       return `${who} created the API token "${String(d.name ?? '')}"`;
     case 'token.revoked':
       return `${who} revoked the API token "${String(d.name ?? '')}"`;
+    case 'billing.checkout_started':
+      return `${who} opened a card payment of ${money(d.amount)} for ${purpose(d)}`;
+    case 'billing.payment_succeeded':
+      return `Card payment of ${money(d.amount)} for ${purpose(d)} went through`;
+    case 'billing.payment_failed':
+      return `A card payment was declined${d.message ? `: ${String(d.message)}` : ''}`;
+    case 'billing.run_paid':
+      return `${who} paid ${run(e)} (${money(d.amount)}) from the credits`;
+    case 'billing.run_refunded':
+      return `${run(e, true)} failed, so its price (${money(d.amount)}) went back to the ${d.to === 'card' ? 'card' : 'credits'}`;
     default:
-      return `${who}: ${e.action}`;
+      // An event this screen does not know yet: its code in words, never the raw code.
+      return `${who}: ${e.action.replace(/[._]/g, ' ')}`;
   }
 }

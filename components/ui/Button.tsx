@@ -12,15 +12,18 @@ export function Button(props: {
   style?: StyleProp<ViewStyle>;
   testID?: string;
   accessibilityHint?: string;
+  /** 'tab' for a tab of a tablist (then `selected` says which one shows). */
+  accessibilityRole?: 'button' | 'tab';
+  selected?: boolean;
 }) {
   const tone = props.tone ?? 'primary';
   const inactive = props.disabled || props.busy;
   return (
     <Pressable
-      accessibilityRole="button"
+      accessibilityRole={props.accessibilityRole ?? 'button'}
       accessibilityLabel={props.label}
       accessibilityHint={props.accessibilityHint}
-      accessibilityState={{ disabled: !!inactive, busy: !!props.busy }}
+      accessibilityState={props.accessibilityRole === 'tab' ? { disabled: !!inactive, selected: !!props.selected } : { disabled: !!inactive, busy: !!props.busy }}
       disabled={inactive}
       onPress={props.onPress}
       testID={props.testID}

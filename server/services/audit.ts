@@ -37,13 +37,15 @@ export async function listAudit(deps: Pick<Deps, 'models'>, organisationId: numb
     limit: pageSize,
     offset: (page - 1) * pageSize,
   });
-  const actorIds = [...new Set(rows.map((r) => r.actorUserId).filter((x): x is number => x !== null))];
+  const targetUserId = (r: { targetType: string | null; targetId: string | null }) => (r.targetType === 'user' && r.targetId !== null && /^\d+$/.test(r.targetId) ? Number(r.targetId) : null);
+  const actorIds = [...new Set([...rows.map((r) => r.actorUserId), ...rows.map(targetUserId)].filter((x): x is number => x !== null))];
   const actors = actorIds.length ? await User.findAll({ where: { id: actorIds } }) : [];
   const byId = new Map(actors.map((u) => [u.id, { id: u.id, name: u.name, email: u.email }]));
   const items: AuditEvent[] = rows.map((r) => ({
     id: Number(r.id),
     action: r.action,
     actor: r.actorUserId !== null ? (byId.get(r.actorUserId) ?? null) : null,
+    target: targetUserId(r) !== null ? (byId.get(targetUserId(r)!) ?? null) : null,
     targetType: r.targetType,
     targetId: r.targetId,
     detail: r.detail ? (safeJson(r.detail) as Record<string, unknown> | null) : null,

@@ -17,6 +17,7 @@ import { writeCsvTable } from '../../shared/formats/csv-cells';
 import { assertQueueUp, enqueueJobs, removeEntries, requestCancel, type SolveJobData } from './queue';
 import { refreshRunStatus } from './runs-status';
 import { assertStartable, effectivePlan, planLimitError, planRun, type RunActor } from './runs/planning';
+import { partWord } from '../../shared/runs/regions';
 
 /** Who asks (see runs/planning.ts). */
 export type { RunActor } from './runs/planning';
@@ -325,7 +326,7 @@ export async function assignmentCsv(deps: RunServiceDeps, organisationId: number
   const view = await getRun(deps, organisationId, id);
   const job = pickJob(view, jobId);
   const document = await getVersionDocument(deps as Deps, organisationId, view.versionId);
-  const column = view.problem.kind === 'kway' ? 'region' : 'side';
+  const column = partWord(view.problem.kind);
   const rows = document.depots.map((d, i) => [d.id, d.name, job.result!.assignment[i]]);
   return { fileName: `run-${id}-${job.solver}.csv`, body: writeCsvTable(['depot_id', 'depot_name', column], rows, '\r\n') };
 }

@@ -133,6 +133,8 @@ export const AuditEventSchema = z.object({
   id: z.number(),
   action: z.string(),
   actor: z.object({ id: z.number(), name: z.string(), email: z.string() }).nullable(),
+  /** The person an event is about (targetType 'user'), when known: the log says who. */
+  target: z.object({ id: z.number(), name: z.string(), email: z.string() }).nullable().optional(),
   targetType: z.string().nullable(),
   targetId: z.string().nullable(),
   detail: z.record(z.string(), z.unknown()).nullable(),

@@ -108,7 +108,7 @@ describe.each([
       await page.getByRole('button', { name: 'Add depot' }).click();
       await field.waitFor({ state: 'detached' });
     }
-    await expect(page.getByRole('button', { name: 'Depots (4)' }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('tab', { name: 'Depots (4)' }).isVisible()).resolves.toBe(true);
     const volumes = ['12', '7.5', '30', '4'];
     for (let i = 0; i < 4; i++) {
       const a = await spot(i), b = await spot((i + 1) % 4);
@@ -123,7 +123,7 @@ describe.each([
       await page.getByRole('button', { name: 'Add lane' }).click();
       await field.waitFor({ state: 'detached' });
     }
-    await expect(page.getByRole('button', { name: 'Lanes (4)' }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('tab', { name: 'Lanes (4)' }).isVisible()).resolves.toBe(true);
     await expect(page.getByTestId('summary-total-volume').textContent()).resolves.toBe('53.5');
 
     // Tap a lane to change its volume (D1–D2: 12 → 13).
@@ -139,10 +139,10 @@ describe.each([
     const p2 = await spot(2);
     await page.mouse.click(p2.x, p2.y);
     await page.getByRole('button', { name: 'Delete (1)' }).click();
-    await expect(page.getByRole('button', { name: 'Depots (3)' }).isVisible()).resolves.toBe(true);
-    await expect(page.getByRole('button', { name: 'Lanes (2)' }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('tab', { name: 'Depots (3)' }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('tab', { name: 'Lanes (2)' }).isVisible()).resolves.toBe(true);
     await page.getByRole('button', { name: 'Undo' }).click();
-    await expect(page.getByRole('button', { name: 'Lanes (4)' }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('tab', { name: 'Lanes (4)' }).isVisible()).resolves.toBe(true);
     await expect(page.getByTestId('summary-degree').textContent()).resolves.toBe('2'); // a 4-cycle: every depot has 2 neighbours
     await screenshot(page, `networks-drawn-${label}`);
     const marks = () => page.evaluate(() => Array.from(document.querySelectorAll('svg[aria-label^="Drawing of"] circle[stroke-width]')).map((c) => `${c.getAttribute('cx')},${c.getAttribute('cy')}`).sort());

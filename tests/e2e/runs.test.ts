@@ -137,6 +137,9 @@ describe.each([
     expect(ratio).toMatch(/^[01]\.\d{3}$/);
     expect(Number(ratio)).toBeLessThanOrEqual(1);
     await screenshot(page, `runs-scorecard-${label}`);
+    // "Took" is never shorter than a solver's own time (run times are stored in whole seconds).
+    const took = Number(((await page.getByTestId('run-elapsed').textContent()) ?? '').replace(/[^0-9.]/g, ''));
+    expect(took).toBeGreaterThan(0);
 
     // The partition of QAOA's answer on the network.
     await page.getByTestId('score-qaoa').click();
@@ -147,6 +150,16 @@ describe.each([
     await page.getByTestId('variational-detail').scrollIntoViewIfNeeded();
     await page.getByTestId('final-params').waitFor();
     await screenshot(page, `runs-samples-${label}`);
+    // Each parameter's name stays on the line of its value (one line per item, even on phones).
+    const paramHeights = await page.getByTestId('final-params').getByTestId('param').evaluateAll((els) => els.map((e) => e.getBoundingClientRect().height));
+    expect(paramHeights.length).toBeGreaterThan(1);
+    for (const h of paramHeights) expect(h).toBeLessThan(26);
+    // The histogram has a count scale; the convergence chart explains restarts.
+    expect(await page.getByTestId('histogram-tick').count()).toBeGreaterThan(1);
+    await page.getByTestId('convergence-restarts').waitFor();
+    // The answer's sides are named as the CSV numbers them (0 and 1).
+    await page.getByTestId('region-0').getByText('Side 0', { exact: true }).waitFor();
+    await page.getByTestId('region-1').getByText('Side 1', { exact: true }).waitFor();
     if (label === 'wide') await page.getByTestId('convergence-band').waitFor({ state: 'attached' });
 
     // The cost operator on request. Max-cut without pins: one ZZ term per lane, one qubit per
@@ -176,9 +189,14 @@ describe.each([
     await page.waitForURL((u) => u.pathname === `/runs/${runId}/report`);
     await page.getByTestId('report-assignment').getByText(demo.depots[0].id, { exact: true }).waitFor();
     await screenshot(page, `runs-report-${label}`);
+    // A printed page has no zoom buttons and no "Tap a depot" (nobody taps paper).
+    expect(await page.getByTestId('zoom-in').count()).toBe(0);
+    expect(await page.getByText(/Tap a depot/).count()).toBe(0);
 
     await page.goto(`${server.url}/runs`);
     await page.getByTestId(`run-item-${runId}`).waitFor();
+    // Solvers by their registry labels, never their codes.
+    await page.getByTestId(`run-item-${runId}`).getByText(/Exact enumeration, Tabu search/).waitFor();
     await screenshot(page, `runs-list-${label}`);
     if (runIds.length >= 2) {
       // Compare this run with the one from the phone test in one table (analysts: runs:compare).

@@ -78,7 +78,7 @@ describe.each([
     // The workspace follows the new latest version without a reload.
     await page.waitForFunction(() => document.querySelector('[data-testid="summary-depots"]')?.textContent === '3', undefined, { timeout: 5000 });
     await page.getByTestId('tab-lanes').click();
-    await page.getByRole('button', { name: 'Lanes (3)' }).waitFor({ timeout: 5000 });
+    await page.getByRole('tab', { name: 'Lanes (3)' }).waitFor({ timeout: 5000 });
     await screenshot(page, `screens-duplicated-${label}`);
     expect(errors).toEqual([]);
   });
@@ -178,15 +178,15 @@ test('phone Draw: the tap that opens "New depot" does not reach the dialog (neit
     await page.getByLabel('Depot name').waitFor();
     await page.waitForTimeout(400); // the emulated click would have landed by now
     await expect(page.getByLabel('Depot name').isVisible()).resolves.toBe(true);
-    await expect(page.getByRole('button', { name: 'Depots (0)' }).count()).resolves.toBe(1);
+    await expect(page.getByRole('tab', { name: 'Depots (0)' }).count()).resolves.toBe(1);
     await page.getByLabel('Depot name').fill(`Tapped ${s.what}`);
     await page.getByRole('button', { name: 'Add depot' }).click();
     await page.getByLabel('Depot name').waitFor({ state: 'detached' });
-    await page.getByRole('button', { name: 'Depots (1)' }).waitFor();
+    await page.getByRole('tab', { name: 'Depots (1)' }).waitFor();
     await screenshot(page, `screens-draw-tap-${s.what.replace(/\s/g, '-').toLowerCase()}-phone`);
     // Undo, so the next spot is free of depots.
     await page.getByRole('button', { name: 'Undo' }).click();
-    await page.getByRole('button', { name: 'Depots (0)' }).waitFor();
+    await page.getByRole('tab', { name: 'Depots (0)' }).waitFor();
   }
   await context.close();
 });
