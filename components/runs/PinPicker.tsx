@@ -1,4 +1,4 @@
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { NetworkEditor } from '../drawing/NetworkEditor';
 import { draftFromDocument, emptySelection, type Selection } from '../drawing/draft';
@@ -6,6 +6,8 @@ import type { NetworkDocument } from '../../shared/engine/network/types';
 import type { ProblemKind } from '../../shared/engine/problem/types';
 import { colors, radius, regionColors, space, TOUCH } from '../theme';
 import { Small } from '../ui/Text';
+import { TextField } from '../ui/TextField';
+import { Segmented } from './controls';
 import { regionName } from './PartitionView';
 import { cyclePin } from './setup';
 
@@ -26,7 +28,8 @@ export function PinPicker(props: { document: Pick<NetworkDocument, 'depots' | 'l
   return (
     <View style={styles.wrap} testID="pin-picker">
       <NetworkEditor draft={draft} projection={projection} onCommit={() => undefined} selection={emptySelection} onSelectionChange={onSelectionChange} readOnly height={300} depotColors={depotColors} />
-      <Small>Tap a depot to pin it to {props.kind === 'kway' ? 'region 1, 2, …' : 'side A, then side B'}; tap again to move it on, then to free it.</Small>
+      <Small>Tap a depot to pin it to {props.kind === 'kway' ? `${regionName('kway', 0)}, ${regionName('kway', 1)}, …` : `${regionName(props.kind, 0)}, then ${regionName(props.kind, 1)}`}; tap again to move it on, then to free it. Or pin from the list below (keyboard: Tab to a depot, arrow keys to choose).</Small>
+      <PinList {...props} />
       {pinned.length > 0 ? (
         <View style={styles.chips}>
           {pinned.map(([id, part]) => (
@@ -43,7 +46,46 @@ export function PinPicker(props: { document: Pick<NetworkDocument, 'depots' | 'l
   );
 }
 
+const LIST_ROWS = 8;
+type PinChoice = 'free' | number;
+
+/**
+ * The keyboard way to pin (and the way for depots too close to tap): find a depot by name or id,
+ * then choose Free or a side/region in its radio group.
+ */
+function PinList(props: { document: Pick<NetworkDocument, 'depots'>; kind: ProblemKind; parts: number; pins: Record<string, number>; onChange: (pins: Record<string, number>) => void }) {
+  const [find, setFind] = useState('');
+  const q = find.trim().toLowerCase();
+  const matches = props.document.depots.filter((d) => !q || d.id.toLowerCase().includes(q) || (d.name ?? '').toLowerCase().includes(q));
+  const options: PinChoice[] = ['free', ...Array.from({ length: props.parts }, (_, p) => p)];
+  const set = (id: string, choice: PinChoice) => {
+    const next = { ...props.pins };
+    if (choice === 'free') delete next[id];
+    else next[id] = choice;
+    props.onChange(next);
+  };
+  return (
+    <View style={styles.list} testID="pin-list">
+      <TextField label="Find a depot to pin" value={find} onChangeText={setFind} placeholder="name or id" autoCapitalize="none" testID="pin-find" />
+      {matches.slice(0, LIST_ROWS).map((d) => (
+        <Segmented<PinChoice>
+          key={d.id}
+          label={d.name ? `${d.name} (${d.id})` : d.id}
+          options={options}
+          value={props.pins[d.id] ?? 'free'}
+          onChange={(c) => set(d.id, c)}
+          format={(c) => (c === 'free' ? 'Free' : regionName(props.kind, c))}
+          testID={`pin-row-${d.id}`}
+        />
+      ))}
+      {matches.length > LIST_ROWS ? <Small>{matches.length - LIST_ROWS} more — type part of a name or id to find them.</Small> : null}
+      {matches.length === 0 ? <Small>No depot name or id contains “{find.trim()}”.</Small> : null}
+    </View>
+  );
+}
+
 const styles = StyleSheet.create({
+  list: { gap: space.sm },
   wrap: { gap: space.sm },
   chips: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
   chip: { flexDirection: 'row', alignItems: 'center', gap: space.xs, minHeight: TOUCH, paddingHorizontal: space.md, borderRadius: radius.pill, borderWidth: 2, backgroundColor: colors.surface },

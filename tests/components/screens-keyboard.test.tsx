@@ -59,3 +59,23 @@ test('segmented choice: arrow keys too', () => {
   expect(screen.getByRole('radio', { name: 'Regions: 5' }).getAttribute('aria-checked')).toBe('true');
   expect(document.activeElement).toBe(screen.getByRole('radio', { name: 'Regions: 5' }));
 });
+
+test('pins from the keyboard: find a depot in the list beside the drawing, arrow keys choose its side', () => {
+  // eslint-disable-next-line @typescript-eslint/no-require-imports
+  const { PinPicker } = require('../../components/runs/PinPicker') as typeof import('../../components/runs/PinPicker');
+  const document = { depots: [{ id: 'H1', name: 'Harrowfen Yard' }, { id: 'O2', name: 'Ossel Bridge' }, { id: 'T3', name: 'Tarnwyth Hub' }], lanes: [{ from: 'H1', to: 'O2', weight: 3 }] };
+  function Pins() {
+    const [pins, setPins] = useState<Record<string, number>>({});
+    return <PinPicker document={document} kind="maxcut" parts={2} pins={pins} onChange={setPins} />;
+  }
+  render(<Pins />);
+  fireEvent.change(screen.getByLabelText('Find a depot to pin'), { target: { value: 'ossel' } });
+  expect(screen.queryByRole('radio', { name: 'Harrowfen Yard (H1): Free' })).toBeNull();
+  const free = screen.getByRole('radio', { name: 'Ossel Bridge (O2): Free' });
+  expect(free.getAttribute('aria-checked')).toBe('true');
+  fireEvent.keyDown(free, { key: 'ArrowRight' });
+  expect(screen.getByRole('radio', { name: 'Ossel Bridge (O2): Side 0' }).getAttribute('aria-checked')).toBe('true');
+  expect(screen.getByTestId('pin-O2').textContent).toContain('Ossel Bridge → Side 0');
+  fireEvent.keyDown(screen.getByRole('radio', { name: 'Ossel Bridge (O2): Side 0' }), { key: 'ArrowRight' });
+  expect(screen.getByTestId('pin-O2').textContent).toContain('Side 1');
+});
