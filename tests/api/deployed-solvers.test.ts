@@ -142,7 +142,7 @@ test('the run assignment CSV neutralises formula cells, TAB and CR included', as
   const imported = await fetch(`${BASE}/networks/import`, { method: 'POST', headers: { Authorization: `Bearer ${dispatcher}` }, body: form });
   const saved = (await imported.json()) as { versionId: number };
   expect(imported.status).toBe(201);
-  const created = await api<{ id: number }>(dispatcher, 'POST', '/runs', { versionId: saved.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 1 });
+  const created = await api<{ id: number }>(dispatcher, 'POST', '/runs', { versionId: saved.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }] }); // a dispatcher: default settings and time limit
   expect(created.status).toBe(201);
   await waitFor('the run to finish', async () => (await api<RunView>(viewer, 'GET', `/runs/${created.body.id}`)).body.status === 'succeeded', 120_000, 500);
   const csv = await (await fetch(`${BASE}/runs/${created.body.id}/assignment.csv`, { headers: { Authorization: `Bearer ${viewer}` } })).text();
