@@ -14,6 +14,7 @@ import { DecisionSupportNote, Notice } from '../ui/Notice';
 import { Screen } from '../ui/Screen';
 import { Body, Heading, Label, Small } from '../ui/Text';
 import { ProgressBar, Segmented } from './controls';
+import { CircuitPanel } from './CircuitPanel';
 import { ExportBar } from './ExportBar';
 import { formatPercent, formatSeconds, formatValue, parameterNames, questionLabel } from './format';
 import { OperatorInspector } from './OperatorInspector';
@@ -191,6 +192,7 @@ export function RunView(props: { id: number; role: Role | null }) {
           {progress}
         </>
       )}
+      {selected?.result?.circuit ? <CircuitPanel runId={r.id} job={selected} result={selected.result} role={props.role} wide={wide} valueName={valueName} /> : null}
       {finishedAny && version.data ? <OperatorInspector run={r} document={version.data.document} /> : null}
       <ExportBar runId={r.id} finished={finishedAny} />
     </Screen>

@@ -124,6 +124,7 @@ async function solveCommand(flags: Flags, positionals: string[], io: CliIo, sign
   if (result.circuitSpec && result.params) {
     const { analyseRun } = require('../../shared/engine/circuits/run-analysis') as typeof import('../../shared/engine/circuits/run-analysis');
     const reference = result.bound !== null ? { value: result.bound, what: `the bound (${result.boundSource})` } : { value: result.value, what: 'the value found by this run' };
+    const { EXACT_RUN_SHOTS } = require('../../shared/engine/circuits/device') as typeof import('../../shared/engine/circuits/device');
     const shots = typeof settings.shots === 'number' && settings.shots > 0 ? settings.shots : EXACT_RUN_SHOTS;
     const readoutShots = typeof settings.readoutShots === 'number' ? settings.readoutShots : 1024;
     try {
@@ -131,7 +132,8 @@ async function solveCommand(flags: Flags, positionals: string[], io: CliIo, sign
         { assumptions: device.assumptions, settings: 1, shotsPerSetting: shots, estimates: result.evaluations, readoutShots },
         device.noise ? { ...device.noise, seed, reference } : undefined);
       report.deviceTime = { shotsPerSetting: shots, settings: 1, estimates: result.evaluations, readoutShots, assumptions: device.assumptions, layouts: analysis.deviceTime };
-      if (analysis.noise) report.noise = analysis.noise;
+      const noise = analysis.noise ?? result.noise;
+      if (noise) report.noise = noise;
     } catch (e) {
       if (e instanceof RangeError) throw new UserError(`--noise: ${e.message}`);
       throw e;
@@ -140,9 +142,6 @@ async function solveCommand(flags: Flags, positionals: string[], io: CliIo, sign
   io.out(flags.json ? JSON.stringify(report) : solveSummary(report));
   return cancel.cancelled ? 130 : 0;
 }
-
-/** Shots per estimate assumed for device time when the run used exact expectations (shots = 0). */
-const EXACT_RUN_SHOTS = 10_000;
 
 /** --device KEY=VALUE (assumption overrides) and --noise [--noise-layout L] [--noise-trajectories N] [--noise-shots S]. */
 function deviceFlags(flags: Flags) {

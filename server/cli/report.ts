@@ -35,11 +35,7 @@ export interface SolveReport {
   /** Variational solvers: qubits and gate counts per qubit layout (docs/runs.md). */
   circuit?: import('../../shared/engine/circuits/summary').CircuitSummary;
   /** Variational solvers: time on a device per layout under the stated assumptions. */
-  deviceTime?: {
-    shotsPerSetting: number; settings: number; estimates: number; readoutShots: number;
-    assumptions: import('../../shared/engine/circuits/device').DeviceAssumptions;
-    layouts: import('../../shared/engine/circuits/run-analysis').RunAnalysis['deviceTime'];
-  };
+  deviceTime?: import('../../shared/engine/circuits/run-analysis').RunDeviceTime;
   /** With --noise: noiseless vs noisy energy, expected value and approximation ratio. */
   noise?: import('../../shared/engine/circuits/run-analysis').NoiseReport;
 }

@@ -38,6 +38,10 @@ export interface RouteSpec {
   body?: ZodType;
   query?: ZodType;
   params?: ZodType;
+  /** Shape of the successful JSON answer, for the OpenAPI document (not enforced). */
+  response?: ZodType;
+  /** Media type of a successful answer that is not JSON (a file download), for the OpenAPI document. */
+  produces?: string;
   /** Status for a successful JSON answer (default 200). */
   status?: number;
   /** The handler returns the JSON body, or undefined when it wrote the response itself. */

@@ -9,6 +9,7 @@ import { invitationsRoutes } from './invitations';
 import { auditRoutes } from './audit';
 import { tokensRoutes } from './tokens';
 import { runsRoutes } from './runs';
+import { circuitsRoutes } from './circuits';
 import { solversRoutes } from './solvers';
 import { billingRoutes } from './billing';
 
@@ -24,6 +25,7 @@ export function apiRoutes(deps: Deps): RouteSpec[] {
     ...tokensRoutes(deps),
     ...networksRoutes(deps),
     ...runsRoutes(deps),
+    ...circuitsRoutes(deps),
     ...solversRoutes(deps),
     ...billingRoutes(deps),
   ];

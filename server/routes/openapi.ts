@@ -3,8 +3,8 @@ import type { RouteSpec } from '../lib/routes';
 import { APP_VERSION } from '../version';
 
 /** JSON Schema (OpenAPI 3.1 dialect) of a zod schema, as the client would send it. */
-function schemaOf(schema: ZodType): Record<string, unknown> {
-  const json = z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any' }) as Record<string, unknown>;
+function schemaOf(schema: ZodType, io: 'input' | 'output' = 'input'): Record<string, unknown> {
+  const json = z.toJSONSchema(schema, { io, unrepresentable: 'any' }) as Record<string, unknown>;
   delete json.$schema;
   return json;
 }
@@ -35,7 +35,9 @@ export function buildOpenApi(routes: RouteSpec[], serverUrl: string) {
       tags: [r.path.split('/')[1] ?? 'api'],
       parameters,
       responses: {
-        [String(r.status ?? 200)]: { description: 'Success' },
+        [String(r.status ?? 200)]: r.response
+          ? { description: 'Success', content: { 'application/json': { schema: schemaOf(r.response, 'output') } } }
+          : r.produces ? { description: 'Success (a file)', content: { [r.produces]: { schema: { type: 'string' } } } } : { description: 'Success' },
         '400': { description: 'Invalid input: `{error, fields}`' },
         ...(r.access.kind !== 'public' ? { '401': { description: 'Not signed in' }, '403': { description: 'Not allowed for this role, or CSRF token missing' } } : {}),
       },

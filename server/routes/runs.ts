@@ -3,6 +3,7 @@ import type { Deps } from '../deps';
 import { NoBodySchema, type AuthContext, type RouteSpec } from '../lib/routes';
 import { unauthorized, unavailable } from '../lib/http-error';
 import { CreateRunBodySchema, PreviewBodySchema, RunIdParamsSchema, RunListQuerySchema, type RunStatus } from '../../shared/schemas/runs';
+import { RunViewSchema } from '../../shared/schemas/run-view';
 import { assignmentCsv, cancelRun, createRun, deleteRun, getRun, listRuns, previewRun, retryRun, runReport, type RunActor } from '../services/runs';
 import { assertQueueUp, runChannel } from '../services/queue';
 
@@ -53,7 +54,7 @@ export function runsRoutes(deps: Deps): RouteSpec[] {
       handler: ({ query, auth }) => listRuns(deps, actorOf(auth).organisationId, query),
     },
     {
-      method: 'get', path: '/runs/:id', summary: 'One run with its jobs, live progress and checked results', access: read, params: RunIdParamsSchema,
+      method: 'get', path: '/runs/:id', summary: 'One run with its jobs, live progress and checked results', access: read, params: RunIdParamsSchema, response: RunViewSchema,
       handler: ({ params, auth }) => getRun(deps, actorOf(auth).organisationId, params.id),
     },
     {

@@ -1,4 +1,5 @@
 import type { CircuitSpec } from '../engine/circuits/of-run';
+import type { NoiseReport, RunDeviceTime } from '../engine/circuits/run-analysis';
 import type { CircuitSummary } from '../engine/circuits/summary';
 import { z } from 'zod';
 
@@ -125,6 +126,10 @@ export interface JobResultView {
   refinement?: { applied: boolean; unrefinedValue: number; unrefinedInfeasible: boolean; moves: number };
   /** Recursive QAOA (rqaoa): rounds, exact remainder, eliminations (depot, the depot it follows, sign, correlation). */
   recursion?: { rounds: number; remainder: number; eliminationsTotal: number; eliminations: { round: number; depot: string; follows: string | null; sign: 1 | -1; correlation: number }[] };
+  /** Variational jobs: time on a device per layout under the default assumptions. */
+  deviceTime?: RunDeviceTime;
+  /** Variational jobs started with `noise: true`: noiseless vs noisy values. */
+  noise?: NoiseReport;
 }
 
 export interface JobView {

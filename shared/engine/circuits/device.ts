@@ -39,6 +39,12 @@ export const DEVICE_DEFAULTS: Record<keyof DeviceAssumptions, DeviceFigure> = {
   readoutError: { value: 0.038, unit: 'probability', label: 'read-out error', source: `3.8 % (simultaneous), ${SYCAMORE}` },
 };
 
+/**
+ * Shots per estimate assumed for device time when a run used exact expectations (shots = 0): the
+ * shot rule S = ⌈(Σ|c|/ε)²⌉ at the inspector's default precision ε = 1 % of Σ|c|.
+ */
+export const EXACT_RUN_SHOTS = 10_000;
+
 export function defaultAssumptions(): DeviceAssumptions {
   return Object.fromEntries(Object.entries(DEVICE_DEFAULTS).map(([k, f]) => [k, f.value])) as unknown as DeviceAssumptions;
 }

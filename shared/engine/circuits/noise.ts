@@ -80,6 +80,8 @@ export interface TrajectoryOptions {
    * the estimate, which it then equals in expectation).
    */
   model?: 'local' | 'global';
+  /** Checked between trajectories (after the second): stop early, keeping what was simulated. */
+  shouldStop?: () => boolean;
 }
 
 export interface TrajectoryResult {
@@ -110,6 +112,7 @@ export function trajectoryNoise(c: PhysicalCircuit, params: ArrayLike<number>, o
   const decoded = new Map<number, DecodedSample>();
   let shots = 0;
   for (let t = 0; t < opts.trajectories; t++) {
+    if (t >= 2 && opts.shouldStop?.()) break;
     const s = createZeroState(n);
     for (const g of c.gates) {
       applyGate(s, g, params);

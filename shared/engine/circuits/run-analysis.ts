@@ -42,6 +42,16 @@ export interface NoiseReport {
   reference: { value: number; what: string } | null;
 }
 
+/** The `deviceTime` block of a result: the inputs and, per layout, the times. */
+export interface RunDeviceTime {
+  shotsPerSetting: number;
+  settings: number;
+  estimates: number;
+  readoutShots: number;
+  assumptions: DeviceAssumptions;
+  layouts: RunAnalysis['deviceTime'];
+}
+
 export interface RunAnalysis {
   deviceTime: Record<LayoutName, DeviceTime & { circuitSeconds: number }>;
   noise?: NoiseReport;
@@ -51,7 +61,7 @@ export interface RunAnalysis {
  * Device time for every layout and, when asked, noise on one layout, for a finished variational
  * run rebuilt from its problem, circuit spec and parameters (docs/runs.md).
  */
-export function analyseRun(problem: Problem, spec: CircuitSpec, params: ArrayLike<number>, time: DeviceTimeOptions, noise?: NoiseOptions): RunAnalysis {
+export function analyseRun(problem: Problem, spec: CircuitSpec, params: ArrayLike<number>, time: DeviceTimeOptions, noise?: NoiseOptions, shouldStop?: () => boolean): RunAnalysis {
   const encoding = encodingOf(problem, spec);
   const routed = routeAll(circuitOf(encoding, spec));
   const deviceTimes = Object.fromEntries(LAYOUT_NAMES.map((l) => {
@@ -71,7 +81,7 @@ export function analyseRun(problem: Problem, spec: CircuitSpec, params: ArrayLik
   let trajectories: NoiseReport['trajectories'] = null;
   if (noise.trajectories > 0) {
     if (encoding.numQubits > TRAJECTORY_MAX_QUBITS) throw new RangeError(`the trajectory simulation takes at most ${TRAJECTORY_MAX_QUBITS} qubits; this circuit has ${encoding.numQubits} (ask for 0 trajectories: the depolarizing estimate only)`);
-    const t = trajectoryNoise(c, params, op, a, { trajectories: noise.trajectories, shotsPerTrajectory: noise.shotsPerTrajectory, rng: createRng(noise.seed) }, encoding, valueOp);
+    const t = trajectoryNoise(c, params, op, a, { trajectories: noise.trajectories, shotsPerTrajectory: noise.shotsPerTrajectory, rng: createRng(noise.seed), shouldStop }, encoding, valueOp);
     trajectories = {
       count: t.trajectories, shots: t.shots,
       energy: t.energy, energyStdError: t.stdError,
@@ -89,5 +99,17 @@ export function analyseRun(problem: Problem, spec: CircuitSpec, params: ArrayLik
       trajectories,
       reference: noise.reference,
     },
+  };
+}
+
+/** Approximation ratios of a noise report against a reference found later (the run's bound). */
+export function withReference(n: NoiseReport, kind: Problem['kind'], reference: { value: number; what: string } | null): NoiseReport {
+  const ratio = (v: number) => (reference === null || v === 0 ? null : kind === 'maxcut' ? v / reference.value : reference.value / v);
+  return {
+    ...n,
+    reference,
+    noiseless: { ...n.noiseless, ratio: ratio(n.noiseless.expectation) },
+    depolarizing: { ...n.depolarizing, ratio: ratio(n.depolarizing.expectation) },
+    trajectories: n.trajectories && { ...n.trajectories, ratio: ratio(n.trajectories.expectation) },
   };
 }

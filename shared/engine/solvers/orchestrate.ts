@@ -5,6 +5,7 @@
  * classical bounds and kept only when consistent, gap and proof of optimality derived here.
  * Nothing a solver says about its own answer is passed on unchecked.
  */
+import { withReference } from '../circuits/run-analysis';
 import { encodeProblem, type EncodingOptions, type PenaltyTerm } from '../encodings';
 import { groupQubitWise } from '../operators/grouping';
 import { isingToPauliSum } from '../operators/pauli';
@@ -152,6 +153,9 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
       if (raw.circuitSpec) result.circuitSpec = raw.circuitSpec;
       if (raw.refinement) result.refinement = raw.refinement;
       if (raw.recursion) result.recursion = raw.recursion;
+      if (raw.deviceTime) result.deviceTime = raw.deviceTime;
+      // Noise ratios against the run's bound (else its value), known only here.
+      if (raw.noise) result.noise = withReference(raw.noise, problem.kind, bound !== null ? { value: bound, what: `the bound (${boundSource})` } : { value, what: 'the value found by this solver' });
       return result;
     },
   };

@@ -1,5 +1,6 @@
 import type { ZodType } from 'zod';
 import type { CircuitSpec } from '../circuits/of-run';
+import type { NoiseReport, RunDeviceTime } from '../circuits/run-analysis';
 import type { CircuitSummary } from '../circuits/summary';
 import type { EncodingOptions } from '../encodings';
 import type { Problem, ProblemKind } from '../problem/types';
@@ -75,6 +76,10 @@ export interface SolveResult {
   circuit?: CircuitSummary;
   /** Variational runs: what rebuilds the circuit from the problem (OpenQASM, noise). */
   circuitSpec?: CircuitSpec;
+  /** Variational runs: time on a device per layout under the default assumptions. */
+  deviceTime?: RunDeviceTime;
+  /** Variational runs with `noise: true`: noiseless vs noisy energy, expected value and ratio. */
+  noise?: NoiseReport;
 }
 
 /** Cooperative cancellation: solvers check it between iterations. */

@@ -6,6 +6,9 @@
  */
 import { z } from 'zod';
 import { circuitOf, type CircuitSpec } from '../circuits/of-run';
+import { defaultAssumptions, EXACT_RUN_SHOTS } from '../circuits/device';
+import { TRAJECTORY_MAX_QUBITS } from '../circuits/noise';
+import { analyseRun } from '../circuits/run-analysis';
 import { circuitSummary } from '../circuits/summary';
 import { randomBalancedSides } from '../classical/balance';
 import { createFlipState } from '../classical/flip-state';
@@ -22,7 +25,7 @@ import { OPTIMIZER_NAMES } from '../variational/optimize';
 import type { VariationalOutcome, VariationalTracePoint } from '../variational/qaoa-run';
 import { recursiveBisection } from '../variational/recursive-bisection';
 import { circuitSize, encodingOptions } from './circuit-qubits';
-import { choiceField, intField } from './settings';
+import { booleanField, choiceField, intField } from './settings';
 import type { SampledAssignment, SolveContext, SolveResult, TracePoint } from './types';
 
 /** Default qubit ceiling for interactive runs (a 24-qubit state is 256 MiB). */
@@ -39,6 +42,10 @@ export const commonFields = {
   maxQubits: intField(INTERACTIVE_MAX_QUBITS, 1, DEFAULT_MAX_QUBITS),
   kwayStrategy: choiceField(['recursive', 'onehot'] as const, 'recursive'),
   penaltyRule: choiceField(['lucas', 'dominant'] as const, 'lucas'),
+  /** Add the noise comparison (default device assumptions) to the result (docs/runs.md, "Noise"). */
+  noise: booleanField(false),
+  noiseLayout: choiceField(['all', 'line', 'grid'] as const, 'line'),
+  noiseTrajectories: intField(20, 0, 1000),
 };
 
 type CommonParsed = z.output<z.ZodObject<typeof commonFields>>;
@@ -112,10 +119,22 @@ export async function solveVariational(problem: Problem, s: CommonSettings, ctx:
   };
   const notes: string[] = [];
   let stoppedAny = false;
-  // Gate counts per qubit layout for the circuit the result's params belong to.
-  const circuitFields = (encoding: Encoding, warm: ArrayLike<number> | null, which: CircuitSpec['encoding']): Partial<SolveResult> => {
+  // Gate counts per qubit layout for the circuit the result's params belong to; device time
+  // always, noise when asked (docs/runs.md), at those parameters.
+  const circuitFields = (encoding: Encoding, warm: ArrayLike<number> | null, which: CircuitSpec['encoding'], out: VariationalOutcome): Partial<SolveResult> => {
     const spec: CircuitSpec = { ...plan.spec(encoding, warm), encoding: which, penaltyRule: s.penaltyRule };
-    return { circuit: circuitSummary(circuitOf(encoding, spec)), circuitSpec: spec };
+    const shots = s.shots > 0 ? s.shots : EXACT_RUN_SHOTS;
+    const analysis = analyseRun(problem, spec, out.params,
+      { assumptions: defaultAssumptions(), settings: 1, shotsPerSetting: shots, estimates: out.evaluations, readoutShots: s.readoutShots },
+      s.noise ? { layout: s.noiseLayout, trajectories: encoding.numQubits <= TRAJECTORY_MAX_QUBITS ? s.noiseTrajectories : 0, shotsPerTrajectory: 100, seed: ctx.seed, reference: null } : undefined,
+      () => ctx.cancel?.cancelled === true);
+    if (s.noise && encoding.numQubits > TRAJECTORY_MAX_QUBITS) notes.push(`noise: ${encoding.numQubits} qubits is above the trajectory simulation's ${TRAJECTORY_MAX_QUBITS}; the depolarizing estimate only`);
+    return {
+      circuit: circuitSummary(circuitOf(encoding, spec)),
+      circuitSpec: spec,
+      deviceTime: { shotsPerSetting: shots, settings: 1, estimates: out.evaluations, readoutShots: s.readoutShots, assumptions: defaultAssumptions(), layouts: analysis.deviceTime },
+      ...(analysis.noise ? { noise: analysis.noise } : {}),
+    };
   };
   const finish = (assignment: ArrayLike<number>, outcome: VariationalOutcome | null, extra: Partial<SolveResult>): SolveResult => {
     const a = Array.from(assignment, (x) => x | 0);
@@ -146,7 +165,7 @@ export async function solveVariational(problem: Problem, s: CommonSettings, ctx:
       iterationBase = lastIteration;
       evaluations += out.evaluations;
       shots += out.shotsUsed;
-      if (!first) firstCircuit = circuitFields(enc, null, 'first-split');
+      if (!first) firstCircuit = circuitFields(enc, null, 'first-split', out);
       first = first ?? out;
       stoppedAny = stoppedAny || out.stopped;
       notes.push(`split regions ${step.firstRegion}…${step.firstRegion + step.regions0 - 1} | ${step.firstRegion + step.regions0}…${step.firstRegion + step.regions0 + step.regions1 - 1}: ${enc.numQubits} qubits, ${enc.rule}`);
@@ -170,5 +189,5 @@ export async function solveVariational(problem: Problem, s: CommonSettings, ctx:
   const out = plan.run(encoding, warm, shouldStop, onIteration);
   if (out.feasibleShare !== null) notes.push(`${(100 * out.feasibleShare).toFixed(1)} % of read-out shots met the balance rule`);
   const best = out.best!;
-  return finish(best.assignment, out, { evaluations: out.evaluations, shots: out.shotsUsed, samples: toSamples(out), ...circuitFields(encoding, warm, 'direct') });
+  return finish(best.assignment, out, { evaluations: out.evaluations, shots: out.shotsUsed, samples: toSamples(out), ...circuitFields(encoding, warm, 'direct', out) });
 }

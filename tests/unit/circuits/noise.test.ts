@@ -90,3 +90,26 @@ describe('device time', () => {
     for (const f of Object.values(DEVICE_DEFAULTS)) expect(f.source).toMatch(/from memory|assumption/);
   });
 });
+
+describe('in a run', () => {
+  test('qaoa with noise: true carries device time and noise with ratios against the run bound', async () => {
+    const { solveProblem } = await import('../../../shared/engine/solvers/orchestrate');
+    const { buildCompactNetwork } = await import('../../../shared/engine/network/build');
+    const { bindProblem } = await import('../../../shared/engine/problem/bind');
+    const doc = {
+      depots: ['a', 'b', 'c', 'd', 'e'].map((id) => ({ id })),
+      lanes: [['a', 'b', 3], ['b', 'c', 1], ['c', 'd', 2], ['d', 'e', 1], ['e', 'a', 2], ['a', 'c', 1]].map(([from, to, w]) => ({ from, to, weight: w })),
+    };
+    const problem = bindProblem(buildCompactNetwork(doc as never), { kind: 'maxcut' } as never);
+    const r = await solveProblem(problem, 'qaoa', { noise: true, noiseTrajectories: 6, maxIterations: 20, restarts: 1 }, { seed: 2, timeLimitSeconds: 10 });
+    expect(r.circuit!.qubits).toBe(5);
+    expect(r.deviceTime!.layouts.line.estimateSeconds).toBeGreaterThan(0);
+    expect(r.noise!.trajectories!.count).toBe(6);
+    expect(Math.abs(r.noise!.noiseless.expectation - r.expectation!)).toBeLessThan(1e-9);
+    expect(r.noise!.reference!.value).toBe(r.bound);
+    expect(r.noise!.noiseless.ratio).toBeCloseTo(r.expectation! / r.bound!, 12);
+    const plain = await solveProblem(problem, 'qaoa', { maxIterations: 20, restarts: 1 }, { seed: 2, timeLimitSeconds: 10 });
+    expect(plain.noise).toBeUndefined();
+    expect(plain.deviceTime).toBeDefined();
+  });
+});
