@@ -13,7 +13,7 @@ export class UserError extends Error {
   }
 }
 
-function readText(file: string): string {
+export function readText(file: string): string {
   let size: number;
   try {
     size = statSync(file).size;

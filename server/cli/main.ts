@@ -33,6 +33,7 @@ const OPTIONS = {
   'no-bounds': { type: 'boolean', default: false },
   json: { type: 'boolean', default: false },
   qasm: { type: 'string' },
+  operator: { type: 'string' },
   'qasm-version': { type: 'string', default: '3' },
   'qasm-layout': { type: 'string', default: 'all' },
   'qasm-form': { type: 'string', default: 'bound' },
@@ -83,6 +84,15 @@ function warn(io: CliIo, warnings: string[]) {
 }
 
 async function solveCommand(flags: Flags, positionals: string[], io: CliIo, signals: Signals): Promise<number> {
+  if (flags.operator !== undefined) {
+    if (positionals.length > 0) throw new UserError('give either a network FILE or --operator FILE, not both');
+    const { operatorSolve } = require('./operator') as typeof import('./operator');
+    return operatorSolve({
+      file: flags.operator, solver: flags.solver ?? 'vqe', settings: settingsFrom(flags), json: flags.json, qasm: qasmFlags(flags),
+      seed: numberFlag('seed', flags.seed, Number.isInteger, 'a whole number')!,
+      timeLimitSeconds: numberFlag('time-limit', flags['time-limit'], (v) => v > 0, 'a positive number of seconds')!,
+    }, io);
+  }
   const { file, format } = fileFlags(flags, positionals, 'solve');
   if (flags.solver === undefined) throw new UserError(`solve needs --solver NAME; choose one of: ${registry().solverRegistry.names.join(', ')}`);
   const seed = numberFlag('seed', flags.seed, Number.isInteger, 'a whole number')!;
@@ -190,6 +200,11 @@ function writeQasm(q: QasmRequest, problem: import('../../shared/engine/problem/
 }
 
 function inspectCommand(flags: Flags, positionals: string[], io: CliIo): number {
+  if (flags.operator !== undefined) {
+    if (positionals.length > 0) throw new UserError('give either a network FILE or --operator FILE, not both');
+    const { operatorInspect } = require('./operator') as typeof import('./operator');
+    return operatorInspect(flags.operator, numberFlag('precision', flags.precision, (v) => v > 0, 'a positive standard error, e.g. 0.5'), flags.json, io);
+  }
   const { file, format } = fileFlags(flags, positionals, 'inspect');
   const { network, warnings } = loadNetwork(file, { ...(flags.depots ? { depots: flags.depots } : {}), ...(format ? { format } : {}) });
   const { formatIssue } = require('../../shared/formats') as typeof import('../../shared/formats');
