@@ -35,7 +35,7 @@ export function SampleHistogram(props: { samples: readonly HistogramSample[]; se
           </SvgText>
         ))}
       </Svg>
-      <Small>Bars: the most frequent sampled assignments ({total} of the shots stored with the result); height = how many shots gave it (scale on the left), label = its value; amber = the best value among them.</Small>
+      <Small>Bars: the most frequent sampled assignments ({total} of the shots stored with the result); height = how many shots gave it (scale on the left), label = its value; amber = the best answer among them (feasible first: an unbalanced sample is never marked best).</Small>
     </View>
   );
 }

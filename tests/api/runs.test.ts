@@ -288,6 +288,49 @@ describe('who may do what', () => {
   });
 });
 
+describe('k regions with the default solvers on the 12-depot demo network (Team plan)', () => {
+  // The reproduction: the setup screen proposed QAOA and VQE, quoted €322,122,548.40 from the
+  // one-hot count, kept Start enabled, and the API then refused ("qaoa would simulate 52 qubits").
+  test('defaults, preview and create agree: the circuits are sized by their first split, free, and the run starts', async () => {
+    const { DEMO_NETWORKS } = await import('../../server/services/demo-networks');
+    const demo = DEMO_NETWORKS.find((d) => d.key === 'quillmere-core')!;
+    const net = await saveNetwork(t.app, org.tokens.dispatcher, { name: 'Quillmere core copy', depots: demo.document.depots, lanes: demo.document.lanes } as never);
+    const problem = { kind: 'kway', k: 3, tolerance: 0.05 };
+    const defaults = await as(org.tokens.dispatcher).post('/solvers/defaults', { versionId: net.versionId, problem });
+    expect(defaults.status).toBe(200);
+    expect(defaults.body.defaults).toEqual(expect.arrayContaining(['qaoa', 'vqe']));
+    const body = { versionId: net.versionId, problem, solvers: defaults.body.defaults.map((solver: string) => ({ solver })) };
+    const preview = await as(org.tokens.dispatcher).post('/runs/preview', body);
+    expect(preview.status).toBe(200);
+    const qaoa = preview.body.solvers.find((s: { solver: string }) => s.solver === 'qaoa');
+    expect(qaoa.qubits).toBeGreaterThanOrEqual(12);
+    expect(qaoa.qubits).toBeLessThanOrEqual(17); // 12 depot qubits + at most 5 slack, not 12·3 + slack
+    expect(preview.body.circuit).toMatch(/first bisection/);
+    expect(preview.body.encoding.qubits).toBe(qaoa.qubits); // the summary describes the circuit that runs
+    expect(preview.body.price).toBeNull(); // within the Team plan's 22 included qubits
+    expect(preview.body.startable).toBe(true);
+    const created = await as(org.tokens.dispatcher).post('/runs', body);
+    expect(created.status).toBe(201);
+    expect(created.body.price).toBeNull();
+    await as(org.tokens.dispatcher).post(`/runs/${created.body.id}/cancel`); // no need to solve it here
+  });
+
+  test('a size beyond the paid ceiling gets a refusal before launch, never a price', async () => {
+    const big = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Twenty-six', 26, randomEdges(26, 0.3, 9)));
+    // The solver itself would take 26 qubits (maxQubits 26, an analyst's setting); the plan would not.
+    const body = { versionId: big.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa', settings: { maxQubits: 26 } }] };
+    const preview = await as(org.tokens.analyst).post('/runs/preview', body); // 26 qubits > the Fleet plan's 24
+    expect(preview.body.price).toBeNull();
+    expect(preview.body.quote.refusal).toMatch(/qaoa would simulate 26 qubits/);
+    expect(preview.body.startable).toBe(false);
+    expect(preview.body.blockers.join(' ')).toMatch(/26 qubits/);
+    expect(Number.isFinite(preview.body.quote.ceiling.amount)).toBe(true);
+    const created = await as(org.tokens.analyst).post('/runs', body);
+    expect(created.status).toBe(402);
+    expect(created.body).toMatchObject({ code: 'plan_limit', limit: 'qubits' });
+  });
+});
+
 describe('downloads, preview, list, delete', () => {
   test('CSV and JSON report of a finished run; preview writes nothing', async () => {
     const created = await as(org.tokens.dispatcher).post('/runs', { versionId: petersen.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'exact' }] });

@@ -1,5 +1,5 @@
 import fc from 'fast-check';
-import { PLAN_IDS, formatMoney, paidRunPlan, priceOfRun, runLimits, seatLimit } from '../../../shared/plans';
+import { PLAN_IDS, formatMoney, paidRunPlan, priceOfRun, runLimits, runPriceCeiling, runSizeRefusal, seatLimit } from '../../../shared/plans';
 
 /**
  * The one pricing rule (shared/plans.ts), checked by hand-worked examples from its price table
@@ -27,7 +27,7 @@ describe('priceOfRun', () => {
     expect(priceOfRun('free', { depots: 150, secondsPerSolver: 10, solvers: [{ family: 'heuristic', qubits: 150 }] })).toBeNull();
   });
 
-  it('integer cents, free inside the limits, monotone in depots, qubits and seconds (every plan)', () => {
+  it('integer cents, free inside the limits, at most the ceiling, monotone in depots, qubits and seconds (every plan); beyond the ceiling refused', () => {
     const size = fc.record({
       depots: fc.integer({ min: 1, max: 25_000 }),
       secondsPerSolver: fc.integer({ min: 1, max: 3600 }),
@@ -36,17 +36,25 @@ describe('priceOfRun', () => {
     });
     fc.assert(
       fc.property(size, fc.integer({ min: 0, max: 500 }), fc.integer({ min: 0, max: 4 }), ({ depots, secondsPerSolver, qubits, plan }, moreDepots, moreQubits) => {
-        const a = priceOfRun(plan, { depots, secondsPerSolver, solvers: [{ family: 'variational', qubits }] });
-        const b = priceOfRun(plan, { depots: depots + moreDepots, secondsPerSolver, solvers: [{ family: 'variational', qubits: qubits + moreQubits }] });
+        const sizeA = { depots, secondsPerSolver, solvers: [{ family: 'variational', qubits }] };
+        const sizeB = { depots: depots + moreDepots, secondsPerSolver, solvers: [{ family: 'variational', qubits: qubits + moreQubits }] };
+        // Beyond the paid ceiling there is no price: refused (and refusal is monotone too).
+        if (runSizeRefusal(plan, sizeA)) {
+          expect(() => priceOfRun(plan, sizeA)).toThrow(RangeError);
+          expect(runSizeRefusal(plan, sizeB)).not.toBeNull();
+          return;
+        }
+        const a = priceOfRun(plan, sizeA);
         const amountA = a?.amount ?? 0;
-        const amountB = b?.amount ?? 0;
         if (a) {
           expect(Number.isSafeInteger(a.amount) && a.amount > 0).toBe(true);
           expect(a.lines.reduce((s, l) => s + l.amount, 0)).toBe(a.amount);
+          expect(a.amount).toBeLessThanOrEqual(runPriceCeiling(plan));
         }
         const lim = runLimits(plan);
         if (depots <= lim.maxDepots && qubits <= lim.maxQubits && secondsPerSolver <= lim.maxSecondsPerSolver) expect(a).toBeNull();
-        expect(amountB).toBeGreaterThanOrEqual(amountA);
+        if (runSizeRefusal(plan, sizeB)) return;
+        expect(priceOfRun(plan, sizeB)?.amount ?? 0).toBeGreaterThanOrEqual(amountA);
       }),
       { numRuns: 300 },
     );
