@@ -15,6 +15,7 @@ import { qaoaBlocksSolver } from '../../../shared/engine/solvers/qaoa-blocks';
 import { solveProblem } from '../../../shared/engine/solvers/orchestrate';
 import { getSolver } from '../../../shared/engine/solvers/registry';
 import { complete, cycle, petersen, type Edge } from '../classical/helpers';
+import { readInstance } from '../../data/load';
 
 /** Pins by 0-based index (compactFromEdges names depot i as "i+1"). */
 const maxcut = (n: number, edges: Edge[], pins: Record<number, number> = {}): Problem => bindProblem(compactFromEdges(n, edges), { kind: 'maxcut', pins: Object.fromEntries(Object.entries(pins).map(([i, side]) => [String(Number(i) + 1), side])) });
@@ -197,5 +198,23 @@ describe('qaoa-blocks at sizes that used to crash', () => {
     expect(out.merge.blocks).toBeGreaterThan(16);
     expect(out.assignment[5]).toBe(1);
     expect(crossingWeight(problem, out.assignment)).toBeGreaterThanOrEqual(out.mergedValue);
+  });
+});
+
+describe('qaoa-blocks on the G-set instances that used to crash (tests/data/gset, Helmberg & Rendl 2000)', () => {
+  const gset = (name: string) => { const { n, edges } = readInstance('gset', name); return bindProblem(compactFromEdges(n, edges), { kind: 'maxcut' }); };
+
+  test('G11 (800 depots, ±1 toroidal): the merge over 57+ blocks answers by recursive QAOA', async () => {
+    const problem = gset('G11');
+    const r = await solveProblem(problem, 'qaoa-blocks', { maxIterations: 10, rounds: 0 }, { seed: 1, timeLimitSeconds: 3 }, { bounds: false });
+    expect(r.assignment).toHaveLength(800);
+    expect(r.notes.join(' ')).toMatch(/block orientations by recursive QAOA/);
+  });
+
+  test('G22 (2,000 depots): split into more than 127 blocks, then an answer', async () => {
+    const problem = gset('G22');
+    const r = await solveProblem(problem, 'qaoa-blocks', { maxIterations: 10, rounds: 0 }, { seed: 1, timeLimitSeconds: 3 }, { bounds: false });
+    expect(r.assignment).toHaveLength(2000);
+    expect(r.notes.join(' ')).toMatch(/1[4-9]\d block\(s\)/);
   });
 });

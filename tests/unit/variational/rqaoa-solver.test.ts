@@ -5,7 +5,10 @@ import { createRng } from '../../../shared/engine/random';
 import { createQaoaAnsatz } from '../../../shared/engine/ansatz/qaoa';
 import { expectationOfDiagonal, isingDiagonal } from '../../../shared/engine/statevector/diagonal';
 import { encodeMaxCut } from '../../../shared/engine/encodings/maxcut';
-import { bruteForceBest, problemOf, randomGraph } from '../encodings/fixtures';
+import { bruteForceBest, problemOf, random3Regular, randomGraph } from '../encodings/fixtures';
+import { gsetRow, readInstance } from '../../data/load';
+import { compactFromEdges } from '../../../shared/engine/network/build';
+import { bindProblem } from '../../../shared/engine/problem/bind';
 
 const ctx = { seed: 1, timeLimitSeconds: 60 };
 const solve = async (problem: Parameters<ReturnType<typeof getSolver>['solve']>[0], settings: unknown): Promise<SolveResult> => {
@@ -65,5 +68,24 @@ describe('rqaoa solver', () => {
     expect(r.recursion!.eliminationsTotal).toBe(20);
     const ids = new Set(r.recursion!.eliminations.map((e) => e.depot));
     expect(ids.size).toBe(20);
+  });
+});
+
+describe('rqaoa against published values', () => {
+  test('G11 without refinement: within 3 % of the best known cut 564 (Benlic & Hao 2013, tests/data/gset/best-known.csv)', async () => {
+    const { n, edges } = readInstance('gset', 'G11');
+    expect(gsetRow('G11').best_known).toBe(564);
+    const p = bindProblem(compactFromEdges(n, edges), { kind: 'maxcut' });
+    const r = await solve(p, { refine: false });
+    expect(r.refinement!.applied).toBe(false);
+    expect(r.value).toBeGreaterThanOrEqual(0.97 * 564);
+  });
+
+  test.each([1, 2])('3-regular, 18 depots: the first round alone expects ≥ 0.6924 of the optimum (Farhi, Goldstone & Gutmann 2014) (seed %i)', async (seed) => {
+    const p = problemOf(18, random3Regular(createRng(700 + seed), 18), { kind: 'maxcut' });
+    const r = await solve(p, { refine: false });
+    const optimum = -isingDiagonal(encodeMaxCut(p).operator).reduce((a, b) => Math.min(a, b), Infinity); // brute force over 2¹⁸ cuts
+    expect(r.expectation! / optimum).toBeGreaterThanOrEqual(0.6924);
+    expect(r.value).toBeGreaterThanOrEqual(r.expectation!); // the recursion's answer beats its starting state's mean
   });
 });
