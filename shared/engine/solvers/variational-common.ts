@@ -25,7 +25,7 @@ import { OPTIMIZER_NAMES } from '../variational/optimize';
 import type { VariationalOutcome, VariationalTracePoint } from '../variational/qaoa-run';
 import { recursiveBisection } from '../variational/recursive-bisection';
 import { circuitSize, encodingOptions } from './circuit-qubits';
-import { booleanField, choiceField, intField } from './settings';
+import { booleanField, choiceField, intField, numberField } from './settings';
 import type { SampledAssignment, SolveContext, SolveResult, TracePoint } from './types';
 
 /** Default qubit ceiling for interactive runs (a 24-qubit state is 256 MiB). */
@@ -46,15 +46,23 @@ export const commonFields = {
   noise: booleanField(false),
   noiseLayout: choiceField(['all', 'line', 'grid'] as const, 'line'),
   noiseTrajectories: intField(20, 0, 1000),
+  /** CVaR objective share α in (0, 1] (Barkoutsos et al. 2020, variational/cvar.ts); 1 = plain expectation. */
+  cvarAlpha: numberField(1, 0.01, 1),
 };
 
 type CommonParsed = z.output<z.ZodObject<typeof commonFields>>;
 export type CommonSettings = Omit<CommonParsed, 'optimizer'> & { optimizer: (typeof OPTIMIZER_NAMES)[number] };
 
-/** 'auto' optimizer: SPSA copes with shot noise; the simplex is the better choice on exact energies. */
-export function resolveOptimizer<T extends CommonParsed>(s: T): Omit<T, 'optimizer'> & { optimizer: CommonSettings['optimizer'] } {
-  return { ...s, optimizer: s.optimizer === 'auto' ? (s.shots > 0 ? 'spsa' : 'nelder-mead') : s.optimizer };
+/**
+ * 'auto' optimizer: SPSA copes with shot noise; on exact energies the solver's own choice (the
+ * simplex for QAOA's 2p angles, COBYLA for VQE's many rotation angles, where a simplex stalls).
+ */
+export function resolveOptimizerWith(exactAuto: CommonSettings['optimizer']) {
+  return <T extends CommonParsed>(s: T): Omit<T, 'optimizer'> & { optimizer: CommonSettings['optimizer'] } =>
+    ({ ...s, optimizer: s.optimizer === 'auto' ? (s.shots > 0 ? 'spsa' : exactAuto) : s.optimizer });
 }
+
+export const resolveOptimizer = resolveOptimizerWith('nelder-mead');
 
 export const circuitQubits = (problem: Problem, s: CommonSettings): number => circuitSize(problem, s).qubits;
 

@@ -2,6 +2,7 @@ import type { Estimate } from '../optimizers/types';
 import type { Rng } from '../random';
 import { sampleBasisIndices } from '../statevector/sample';
 import type { StateVector } from '../statevector/state';
+import { createDiagonalEstimator } from './estimate';
 
 /**
  * CVaR objective (Barkoutsos, Nannicini, Robert, Tavernelli & Woerner, "Improving Variational
@@ -46,4 +47,9 @@ export function createCvarEstimator(diag: Float64Array, alpha: number, shots: nu
     if (left > 1e-12) sum += left * sorted[sorted.length - 1]; // rounding: total mass just below 1
     return { value: sum / alpha, stdError: 0 };
   };
+}
+
+/** The objective a run minimises: CVaR_α when α < 1, else the plain (exact or sampled) energy. */
+export function objectiveEstimator(diag: Float64Array, shots: number, rng: Rng, cvarAlpha?: number): (s: StateVector) => Estimate {
+  return cvarAlpha !== undefined && cvarAlpha < 1 ? createCvarEstimator(diag, cvarAlpha, shots, rng) : createDiagonalEstimator(diag, shots, rng);
 }

@@ -5,7 +5,7 @@ import type { Rng } from '../random';
 import { expectationOfDiagonal, isingDiagonal } from '../statevector/diagonal';
 import { diagonalLevels } from '../statevector/gates';
 import type { StateOptions } from '../statevector/state';
-import { createDiagonalEstimator } from './estimate';
+import { objectiveEstimator } from './cvar';
 import { couplingScale, restartStarts, transferredAngles } from './initial-angles';
 import { optimizeAnsatz, type OptimizerName } from './optimize';
 import { finishEncodingRun } from './outcome';
@@ -32,6 +32,8 @@ export interface QaoaRunOptions {
   warmStart?: { assignment: ArrayLike<number>; epsilon?: number };
   /** Override the informed first start [γ…, β…]. */
   initialParams?: Float64Array;
+  /** CVaR objective share α in (0, 1] (variational/cvar.ts); 1 or absent = plain expectation. */
+  cvarAlpha?: number;
   topSamples?: number;
   stateOptions?: StateOptions;
   /** Monotonic clock in seconds (tests pass a fake one). */
@@ -61,7 +63,7 @@ export function runQaoa(opts: QaoaRunOptions): VariationalOutcome {
   const trace: VariationalTracePoint[] = [];
   const loop = optimizeAnsatz({
     ansatz,
-    estimate: createDiagonalEstimator(diag, opts.shots, opts.rng),
+    estimate: objectiveEstimator(diag, opts.shots, opts.rng, opts.cvarAlpha),
     optimizer: opts.optimizer,
     starts: restartStarts(first, Math.max(1, opts.restarts), opts.rng),
     maxIterations: opts.maxIterations,

@@ -7,7 +7,7 @@ import type { Rng } from '../random';
 import { expectationOfDiagonal, isingDiagonal } from '../statevector/diagonal';
 import { diagonalLevels } from '../statevector/gates';
 import type { StateOptions, StateVector } from '../statevector/state';
-import { createDiagonalEstimator } from './estimate';
+import { objectiveEstimator } from './cvar';
 import { restartStarts } from './initial-angles';
 import { optimizeAnsatz, type OptimizerName } from './optimize';
 import { defaultClock, type VariationalOutcome, type VariationalTracePoint } from './qaoa-run';
@@ -31,6 +31,8 @@ export interface VqeCommonOptions {
   clock?: () => number;
   /** Initial simplex edge / Adam learning rate / SPSA first step. */
   step?: number;
+  /** CVaR objective share α in (0, 1] (variational/cvar.ts); 1 or absent = plain expectation. */
+  cvarAlpha?: number;
 }
 
 /**
@@ -88,6 +90,6 @@ export function runVqeOnEncoding(encoding: Encoding, opts: VqeCommonOptions & { 
   const first = opts.initialParams ?? (opts.ansatz === 'alternating'
     ? new Float64Array(2 * opts.layers).fill(0.3)
     : ladderStart(n, opts.layers, opts.rng));
-  const { loop, trace, energy } = runVqeLoop(ansatz, createDiagonalEstimator(diag, opts.shots, opts.rng), (s) => expectationOfDiagonal(s, diag), first, opts);
+  const { loop, trace, energy } = runVqeLoop(ansatz, objectiveEstimator(diag, opts.shots, opts.rng, opts.cvarAlpha), (s) => expectationOfDiagonal(s, diag), first, opts);
   return finishEncodingRun(encoding, ansatz, loop, trace, energy, opts);
 }
