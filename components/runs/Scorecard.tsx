@@ -31,6 +31,7 @@ const COLUMNS: Array<{ key: string; title: string; get: (r: ScoreRow) => string;
   { key: 'gap', title: 'Gap', get: (r) => formatGap(r.gap), width: 80 },
   { key: 'optimal', title: 'Proven optimal', get: (r) => (r.value === null ? '—' : r.provenOptimal ? 'Yes' : 'No'), width: 110 },
   { key: 'time', title: 'Time', get: (r) => formatSeconds(r.seconds), width: 90 },
+  { key: 'toBest', title: 'Time to best', get: (r) => formatSeconds(r.secondsToBest), width: 100 },
   { key: 'evaluations', title: 'Evaluations', get: (r) => formatCount(r.evaluations), width: 100 },
   { key: 'shots', title: 'Shots', get: (r) => formatShots(r.shots), width: 90 },
 ];

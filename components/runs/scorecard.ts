@@ -23,6 +23,8 @@ export interface ScoreRow {
   provenOptimal: boolean;
   balanced: boolean;
   seconds: number | null;
+  /** When the answer's value was first reached (older results: the whole time). */
+  secondsToBest: number | null;
   evaluations: number | null;
   shots: number | null;
   isBest: boolean;
@@ -83,6 +85,7 @@ export function buildScorecard(run: ScorableRun, labels: Record<string, string> 
       provenOptimal: !!r?.provenOptimal,
       balanced,
       seconds: r ? r.seconds : null,
+      secondsToBest: r ? (r.secondsToBest ?? r.seconds) : null,
       evaluations: r ? r.evaluations : null,
       shots: r ? r.shots : null,
       isBest: false,

@@ -26,6 +26,8 @@ export const queueEntryId = (jobId: number, generation: number): string => `job-
  * reset database that reuses the id.
  */
 export const cancelKey = (queue: string, jobId: number, generation: number): string => `spinyard:cancel:${queue}:${jobId}:g${generation}`;
+/** A value a solver of the run proved optimal (set by the worker that proved it; read by the run's other jobs). */
+export const optimumKey = (queue: string, runId: number): string => `spinyard:optimum:${queue}:${runId}`;
 /** Pub/sub channel of a queue's cancel requests (message = job id), so workers react within milliseconds. */
 export const cancelChannel = (queue: string): string => `spinyard:cancel:${queue}`;
 /** Pub/sub channel of one run's live events (progress, status changes). */

@@ -8,7 +8,7 @@ import type { JobStatus } from '../../shared/schemas/runs';
 import type { RunJobRow } from '../models/run-job';
 import type { RunRow } from '../models/run';
 import { getVersionDocument } from '../services/networks';
-import { cancelKey, runChannel, type RunEvent, type SolveJobData } from '../services/queue';
+import { cancelKey, optimumKey, runChannel, type RunEvent, type SolveJobData } from '../services/queue';
 import type { RunsConfig } from '../services/queue-config';
 import { refreshRunStatus } from '../services/runs-status';
 import type { SlotRun, ThreadSlot } from './thread-slot';
@@ -121,9 +121,13 @@ export function createJobProcessor(env: ProcessorEnv) {
         { hardLimitMs: hardLimitMs(run.timeLimitSeconds, config.RUN_GRACE_SECONDS), onProgress },
       );
       env.running.set(jobId, handle);
+      // Another job of this run may have proven an optimum (now or while this one runs).
+      const readOptimum = () => deps.redis.get(optimumKey(config.RUN_QUEUE_NAME, run.id)).then((v) => { if (v !== null && Number.isFinite(Number(v))) handle.setKnownOptimum(Number(v)); }, () => {});
+      void readOptimum();
       // The pub/sub message normally arrives first; this poll covers a missed message.
       const poll = setInterval(() => {
         deps.redis.exists(cancelKey(config.RUN_QUEUE_NAME, jobId, generation)).then((n) => { if (n === 1) handle.cancel(CANCEL_GRACE_MS); }, () => {});
+        void readOptimum();
       }, 500);
       const outcome = await handle.outcome.finally(() => {
         clearInterval(poll);
@@ -136,6 +140,10 @@ export function createJobProcessor(env: ProcessorEnv) {
       }
       let status: JobStatus;
       let fields: Partial<RunJobRow>;
+      if (outcome.kind === 'done' && outcome.result.provenOptimal && !outcome.result.infeasible) {
+        // The run's other solvers (heuristics) stop once they reach this value.
+        await deps.redis.set(optimumKey(config.RUN_QUEUE_NAME, run.id), String(outcome.result.value), 'EX', 86_400).catch(() => {});
+      }
       if (outcome.kind === 'done') {
         status = outcome.cancelled ? 'cancelled' : 'succeeded';
         fields = { status, result: JSON.stringify(outcome.result), progress: 1, error: outcome.cancelled ? 'cancelled; the best answer found until then is kept' : null };

@@ -19,6 +19,11 @@ export interface SolveTask {
   timeLimitSeconds: number;
   /** Int32Array(1) over a SharedArrayBuffer: 1 = stop. Read by the CancelToken even while the thread is busy. */
   cancelFlag: SharedArrayBuffer;
+  /**
+   * Float64Array(2) over a SharedArrayBuffer: [1, value] once another solver of the run has proven
+   * `value` optimal (the orchestrator then stops a heuristic that reaches it), else [0, 0].
+   */
+  optimumFlag: SharedArrayBuffer;
 }
 
 /** Messages a solve thread posts back. */

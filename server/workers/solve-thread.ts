@@ -19,6 +19,8 @@ async function handle(task: SolveTask): Promise<void> {
   post({ type: 'started' });
   const flag = new Int32Array(task.cancelFlag);
   const cancel = { get cancelled() { return Atomics.load(flag, 0) === 1; } };
+  const optimum = new Float64Array(task.optimumFlag);
+  const knownOptimum = () => (optimum[0] === 1 ? optimum[1] : null);
   let last = 0;
   const onProgress = (progress: SolveProgress) => {
     const now = Date.now();
@@ -29,7 +31,7 @@ async function handle(task: SolveTask): Promise<void> {
   try {
     const network = buildCompactNetwork(task.document);
     const problem = bindProblem(network, task.problem);
-    const result = await solveProblem(problem, task.solver, task.settings, { seed: task.seed, timeLimitSeconds: task.timeLimitSeconds, cancel, onProgress });
+    const result = await solveProblem(problem, task.solver, task.settings, { seed: task.seed, timeLimitSeconds: task.timeLimitSeconds, cancel, onProgress, knownOptimum });
     post({ type: 'done', result, cancelled: cancel.cancelled });
   } catch (e) {
     const err = e as Error;

@@ -19,10 +19,12 @@ export interface SlotRun {
   outcome: Promise<SlotOutcome>;
   /** Ask the solver to stop (it returns its best so far); terminate the thread after `graceMs` if it does not. */
   cancel(graceMs: number): void;
+  /** Tell the solver a value another solver of its run has proven optimal (heuristics stop on reaching it). */
+  setKnownOptimum(value: number): void;
 }
 
 export interface ThreadSlot {
-  run(task: Omit<SolveTask, 'cancelFlag'>, opts: { hardLimitMs: number; onProgress: (p: SolveProgress) => void }): SlotRun;
+  run(task: Omit<SolveTask, 'cancelFlag' | 'optimumFlag'>, opts: { hardLimitMs: number; onProgress: (p: SolveProgress) => void }): SlotRun;
   close(): Promise<void>;
 }
 
@@ -48,6 +50,8 @@ export function createThreadSlot(entry: string = ENTRY): ThreadSlot {
       const w = fresh();
       const flagBuffer = new SharedArrayBuffer(4);
       const flag = new Int32Array(flagBuffer);
+      const optimumBuffer = new SharedArrayBuffer(16);
+      const optimum = new Float64Array(optimumBuffer);
       let settle!: (o: SlotOutcome) => void;
       const outcome = new Promise<SlotOutcome>((resolve) => (settle = resolve));
       let settled = false;
@@ -88,9 +92,14 @@ export function createThreadSlot(entry: string = ENTRY): ThreadSlot {
       w.on('message', onMessage);
       w.on('error', onError);
       w.on('exit', onExit);
-      w.postMessage({ ...task, cancelFlag: flagBuffer } satisfies SolveTask);
+      w.postMessage({ ...task, cancelFlag: flagBuffer, optimumFlag: optimumBuffer } satisfies SolveTask);
       return {
         outcome,
+        setKnownOptimum(value) {
+          // Value first, then the flag that says it is there.
+          optimum[1] = value;
+          optimum[0] = 1;
+        },
         cancel(graceMs) {
           if (settled || Atomics.load(flag, 0) === 1) return;
           Atomics.store(flag, 0, 1);

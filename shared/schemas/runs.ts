@@ -115,6 +115,10 @@ export interface JobResultView {
   shots: number;
   provenOptimal: boolean;
   infeasible?: boolean;
+  /** Seconds until the returned value was first reached (older results lack it). */
+  secondsToBest?: number;
+  /** Stopped because it reached a value another solver of the run proved optimal. */
+  stoppedAtKnownOptimum?: boolean;
   trace?: { iteration: number; energy: number; stdError?: number; bestValue?: number; seconds: number }[];
   samples?: { assignment: number[]; count: number; value: number }[];
   notes?: string[];

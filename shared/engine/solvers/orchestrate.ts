@@ -47,6 +47,13 @@ export interface RunResult extends SolveResult {
   /** Which bound was kept ('solver', or the computeBounds source), null without a bound. */
   boundSource: string | null;
   notes: string[];
+  /**
+   * Seconds from the start until the returned value was first reached (from the solver's
+   * progress reports, ~50 ms resolution); the whole solving time when it never reported it.
+   */
+  secondsToBest: number;
+  /** True when the solver was stopped because it reached a value another solver proved optimal. */
+  stoppedAtKnownOptimum?: boolean;
 }
 
 export interface RunOptions {
@@ -80,7 +87,9 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
       if (reason !== null) throw new SolverRefusedError(solver.name, reason);
 
       const started = Date.now();
-      const raw = await solver.solve(problem, settings, ctx);
+      const sense = senseOf(problem.kind);
+      const watch = watchProgress(ctx, sense, solver.family === 'heuristic', started);
+      const raw = await solver.solve(problem, settings, watch.ctx);
       const solveSeconds = (Date.now() - started) / 1000;
       const notes: string[] = [...(raw.notes ?? [])];
       const { n } = problem.network;
@@ -89,7 +98,6 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
         throw new Error(`solver "${solver.name}" returned an invalid assignment (need ${n} entries in 0…${problem.k - 1}); this is a bug in the solver`);
       }
 
-      const sense = senseOf(problem.kind);
       const value = crossingWeight(problem, assignment);
       if (!(typeof raw.value === 'number' && close(raw.value, value))) {
         notes.push(`the solver reported value ${raw.value}; the recomputed value ${value} is shown`);
@@ -112,6 +120,9 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
           notes.push(`no classical bound: ${e instanceof Error ? e.message : String(e)}`);
         }
       }
+      // Another solver of this run proved `known` optimal: it bounds this answer too.
+      const known = watch.knownOptimum();
+      if (known !== null) candidates.push({ bound: known, source: 'the optimum another solver of this run proved' });
       let bound: number | null = null, boundSource: string | null = null;
       for (const c of candidates) {
         const b = roundBound(problem, sense, c.bound);
@@ -145,7 +156,12 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
         shots: raw.shots ?? 0,
         infeasible,
         notes,
+        secondsToBest: watch.secondsToBest(value) ?? solveSeconds,
       };
+      if (watch.stopped() && !infeasible && known !== null && close(value, known)) {
+        result.stoppedAtKnownOptimum = true;
+        notes.push('stopped early: it reached the value another solver of this run proved optimal, so searching on could not improve it');
+      }
       if (raw.trace) result.trace = raw.trace;
       // Every sample says whether it is feasible (recomputed here), so lists and charts rank it the same way.
       if (raw.samples) result.samples = raw.samples.map((x) => ({ ...x, feasible: isFeasible(problem, x.assignment) }));
@@ -158,6 +174,39 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
       if (raw.noise) result.noise = withReference(raw.noise, problem.kind, bound !== null ? { value: bound, what: `the bound (${boundSource})` } : { value, what: 'the value found by this solver' });
       return result;
     },
+  };
+}
+
+/**
+ * Wraps the context a solver gets: records when each better value was first reported (time to
+ * best), and — for heuristics — raises the stop flag once the reported best equals a value
+ * another solver of the run has proven optimal. The caller's own cancel still stops it as before.
+ */
+function watchProgress(ctx: SolveContext, sense: Sense, stopAtOptimum: boolean, started: number) {
+  const firstSeen: { value: number; seconds: number }[] = [];
+  let best: number | null = null;
+  let stop = false;
+  const knownOptimum = () => {
+    const v = ctx.knownOptimum?.() ?? null;
+    return v !== null && Number.isFinite(v) ? v : null;
+  };
+  const cancel = { get cancelled() { return stop || ctx.cancel?.cancelled === true; } };
+  const onProgress = (p: Parameters<NonNullable<SolveContext['onProgress']>>[0]) => {
+    if (typeof p.bestValue === 'number' && Number.isFinite(p.bestValue) && (best === null || (sense === 'max' ? p.bestValue > best : p.bestValue < best))) {
+      best = p.bestValue;
+      firstSeen.push({ value: best, seconds: (Date.now() - started) / 1000 });
+    }
+    if (stopAtOptimum && best !== null) {
+      const known = knownOptimum();
+      if (known !== null && close(best, known)) stop = true;
+    }
+    ctx.onProgress?.(p);
+  };
+  return {
+    ctx: { ...ctx, cancel, onProgress } as SolveContext,
+    knownOptimum,
+    stopped: () => stop,
+    secondsToBest: (value: number): number | null => firstSeen.find((f) => close(f.value, value))?.seconds ?? null,
   };
 }
 

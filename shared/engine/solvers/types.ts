@@ -92,6 +92,11 @@ export interface SolveContext {
   timeLimitSeconds: number;
   cancel?: CancelToken;
   onProgress?: (progress: SolveProgress) => void;
+  /**
+   * A value another solver of the same run has proven optimal, when one has (else null). The
+   * orchestrator stops a heuristic that reaches it: searching on cannot find anything better.
+   */
+  knownOptimum?: () => number | null;
 }
 
 export type SolverFamily = 'exact' | 'bound' | 'heuristic' | 'variational';

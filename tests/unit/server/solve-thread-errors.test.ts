@@ -13,10 +13,10 @@ const ROOT = path.resolve(__dirname, '../../..');
 const LEAK = new RegExp(`${ROOT.replace(/[/\\.]/g, '\\$&')}|\\bat .+:\\d+:\\d+|node_modules|\\.ts\\b|\\.cjs\\b`);
 
 const DOC = { depots: [{ id: 'A' }, { id: 'B' }, { id: 'C' }], lanes: [{ from: 'A', to: 'B', weight: 2 }, { from: 'B', to: 'C', weight: 1 }] };
-const task = (over: Partial<Omit<SolveTask, 'cancelFlag'>>): Omit<SolveTask, 'cancelFlag'> => ({
+const task = (over: Partial<Omit<SolveTask, 'cancelFlag' | 'optimumFlag'>>): Omit<SolveTask, 'cancelFlag' | 'optimumFlag'> => ({
   document: DOC, problem: { kind: 'maxcut' }, solver: 'tabu', settings: {}, seed: 1, timeLimitSeconds: 1, ...over,
 });
-const run = (slot: ThreadSlot, t: Omit<SolveTask, 'cancelFlag'>): Promise<SlotOutcome> => slot.run(t, { hardLimitMs: 60_000, onProgress: () => {} }).outcome;
+const run = (slot: ThreadSlot, t: Omit<SolveTask, 'cancelFlag' | 'optimumFlag'>): Promise<SlotOutcome> => slot.run(t, { hardLimitMs: 60_000, onProgress: () => {} }).outcome;
 
 describe('solve-thread errors as members see them', () => {
   let slot: ThreadSlot;
