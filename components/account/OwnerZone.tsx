@@ -36,7 +36,7 @@ export function OwnerZone(props: { me: Me }) {
           {members.data && others.length === 0 ? <Small>Invite someone first; there is nobody else to hand over to.</Small> : null}
           <View style={styles.choices} accessibilityRole="radiogroup" accessibilityLabel="New owner">
             {others.map((m) => (
-              <Pressable key={m.userId} accessibilityRole="radio" accessibilityLabel={`${m.name}, ${m.email}`} accessibilityState={{ selected: target === m.userId }} onPress={() => setTarget(m.userId)} style={[styles.choice, target === m.userId && styles.choiceOn]}>
+              <Pressable key={m.userId} accessibilityRole="radio" accessibilityLabel={`${m.name}, ${m.email}`} accessibilityState={{ selected: target === m.userId, checked: target === m.userId }} aria-checked={target === m.userId} onPress={() => setTarget(m.userId)} style={[styles.choice, target === m.userId && styles.choiceOn]}>
                 <Text style={[styles.choiceText, target === m.userId && styles.choiceTextOn]} numberOfLines={1}>
                   {m.name}
                 </Text>

@@ -43,7 +43,6 @@ export function DepotsTable(props: { depots: readonly Depot[]; lanes: readonly L
             key={d.id}
             onPress={() => props.onSelect(i)}
             accessibilityRole="button"
-            accessibilityLabel={`Depot ${d.id}${d.name ? `, ${d.name}` : ''}`}
             accessibilityState={{ selected }}
             aria-pressed={selected}
             style={[styles.row, selected && styles.selected]}

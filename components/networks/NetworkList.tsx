@@ -109,7 +109,7 @@ function NetworkCards(props: { items: NetworkListItem[] }) {
       {props.items.map((n) => (
         <View key={n.id} role="listitem">
           <Link href={`/networks/${n.id}`} asChild>
-            <Pressable accessibilityRole="link" accessibilityLabel={`Open ${n.name}`}>
+            <Pressable accessibilityRole="link">
               <Card>
                 <Label style={styles.name}>{n.name}</Label>
                 <Small>
@@ -141,7 +141,7 @@ function NetworkTable(props: { items: NetworkListItem[] }) {
           <View key={n.id} role="listitem" testID={`network-row-${n.id}`}>
             {/* A real link, so Enter opens the row from the keyboard (react-native-web ignores Enter on role=link without href). */}
             <Link href={`/networks/${n.id}`} asChild>
-              <Pressable accessibilityRole="link" accessibilityLabel={`Open ${n.name}: ${formatVolume(n.summary.depots)} depots, ${formatVolume(n.summary.lanes)} lanes, version ${n.latestVersion}, updated ${formatWhen(n.updatedAt)}`}>
+              <Pressable accessibilityRole="link">
                 {(state) => (
                   <View style={[styles.tr, (state as { hovered?: boolean }).hovered ? styles.hover : null]}>
                     <Body style={[styles.td, styles.nameCol, styles.nameText]} numberOfLines={1}>{n.name}</Body>

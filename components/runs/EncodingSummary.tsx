@@ -1,4 +1,7 @@
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { Button } from '../ui/Button';
+import { aboutSeconds, costLine } from './setup-words';
 import { space } from '../theme';
 import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
@@ -31,28 +34,46 @@ export function estimatedSeconds(preview: RunPreview): number | null {
 const money = (p: NonNullable<RunPreview['price']>) => p.label ?? formatMoney(p);
 
 /**
- * The cost operator a run will use, before it starts: qubits, Pauli terms, offset, penalty
- * weights and the rule that set them, measurement groups, the shots for the chosen precision,
- * the time estimate, refusals — and the price only when the preview returns one.
+ * Before a run starts: first, in plain words, what it costs and about how long it takes (each
+ * solver's own line sits by its tick box); then, behind a details control for analysts, the cost
+ * operator — qubits, Pauli terms, offset, penalty weights and their rule, measurement groups, the
+ * shots for the chosen precision and the price's make-up. Refusals of the chosen solvers last.
  */
-export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOption[]; title?: string; children?: React.ReactNode }) {
+export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOption[]; title?: string; children?: React.ReactNode; /** Only these solvers' refusals are shown (the rest are not in the run). */ chosen?: readonly string[]; /** An analyst's view of an existing run: the details shown, no cost lines. */ analyst?: boolean }) {
   const { preview } = props;
   const enc = preview.encoding;
+  const [open, setDetails] = useState(false);
+  const details = open || !!props.analyst;
   const label = (name: string) => props.solvers?.find((s) => s.name === name)?.label ?? name;
-  const refusals = preview.solvers.filter((s) => s.refusal);
-  const notAllowed = preview.solvers.filter((s) => s.allowed === false);
+  const inRun = (name: string) => !props.chosen || props.chosen.includes(name);
+  const refusals = preview.solvers.filter((s) => s.refusal && inRun(s.solver));
+  const notAllowed = preview.solvers.filter((s) => s.allowed === false && inRun(s.solver));
   const estimate = estimatedSeconds(preview);
   return (
     <Card testID="encoding-summary">
       <Heading>{props.title ?? 'Before you start'}</Heading>
-      {enc ? (
+      {!props.analyst ? (
         <>
+          <Body testID="run-cost" numberOfLines={2}>{costLine(preview.price)}</Body>
+          {estimate !== null ? <Small testID="run-time">Each solver takes {aboutSeconds(estimate)} at most; they run side by side.</Small> : null}
+          {preview.quote?.note && preview.price ? <Small testID="enc-price-note">{preview.quote.note}</Small> : null}
+        </>
+      ) : null}
+      {!props.analyst ? <Button
+        label={details ? 'Hide the encoding details' : 'Encoding details (for analysts)'}
+        tone="quiet"
+        onPress={() => setDetails((d) => !d)}
+        accessibilityHint="Qubits, Pauli terms, penalty weights, shots and how the price is made up"
+        testID="encoding-details-toggle"
+      /> : null}
+      {!details ? null : enc ? (
+        <View style={styles.list} testID="encoding-details">
           <View style={styles.grid}>
             <Figure label="Qubits" value={formatCount(enc.qubits)} testID="enc-qubits" />
             <Figure label="Pauli terms" value={formatCount(enc.pauliTerms)} testID="enc-terms" />
             <Figure label="Offset" value={formatValue(enc.offset)} testID="enc-offset" />
             <Figure label="Commuting groups" value={formatCount(enc.commutingGroups)} testID="enc-groups" />
-            <Figure label={`Shots for ± ${formatValue(enc.precision)}`} value={formatCount(enc.shots)} testID="enc-shots" />
+            <Figure label={`Shots for an energy within ± ${formatValue(enc.precision)}`} value={formatCount(enc.shots)} testID="enc-shots" />
             {estimate !== null ? <Figure label="Estimated time" value={`at most ${formatSeconds(estimate)}`} testID="enc-time" /> : null}
             {preview.price ? <Figure label="Price" value={money(preview.price)} testID="enc-price" /> : null}
           </View>
@@ -72,12 +93,11 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
           )}
           {enc.shotRule ? <Small>{enc.shotRule}</Small> : null}
           {props.children}
-        </>
+        </View>
       ) : (
         <Small>{preview.encodingNote ?? 'This question is too large for a direct quantum encoding; classical solvers and decomposition still apply.'}</Small>
       )}
-      {enc === null && estimate !== null ? <Small testID="enc-time">Estimated time: at most {formatSeconds(estimate)} per solver.</Small> : null}
-      {preview.price?.lines?.length ? (
+      {details && preview.price?.lines?.length ? (
         <View style={styles.list} testID="enc-price-lines">
           <Label>This is a paid run: it starts once paid</Label>
           {preview.price.lines.map((l) => (
@@ -85,10 +105,9 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
               {l.label}: {formatMoney({ amount: l.amount, currency: preview.price!.currency })}
             </Small>
           ))}
-          {preview.quote?.note ? <Small testID="enc-price-note">{preview.quote.note}</Small> : null}
         </View>
       ) : null}
-      {preview.solvers.some((s) => typeof s.qubits === 'number' && s.qubits > 0) ? (
+      {details && preview.solvers.some((s) => typeof s.qubits === 'number' && s.qubits > 0) ? (
         <View style={styles.list} testID="enc-solver-qubits">
           <Label>Qubits each solver will simulate</Label>
           {preview.solvers.filter((s) => typeof s.qubits === 'number' && s.qubits > 0).map((s) => (
@@ -102,15 +121,6 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
       {preview.limitProblem ? <Notice tone="error">{preview.limitProblem}</Notice> : null}
       {preview.forbidden ? <Notice tone="error">{preview.forbidden}</Notice> : null}
       {notAllowed.length > 0 ? <Notice tone="caution">Changed settings need the analyst role: {notAllowed.map((s) => label(s.solver)).join(', ')}.</Notice> : null}
-      {preview.fields && Object.keys(preview.fields).length > 0 ? (
-        <Notice tone="error">
-          <View style={styles.list}>
-            {Object.entries(preview.fields).map(([k, msgs]) => (
-              <Small key={k}>{k}: {msgs.join('; ')}</Small>
-            ))}
-          </View>
-        </Notice>
-      ) : null}
       {refusals.length > 0 ? (
         <Notice tone="caution">
           <View style={styles.list}>

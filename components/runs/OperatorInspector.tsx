@@ -42,7 +42,7 @@ export function OperatorInspector(props: { run: RunDetail; document: Pick<Networ
   if (!open) return <Button label="Inspect the cost operator" tone="secondary" onPress={() => setOpen(true)} testID="inspect-operator" />;
   return (
     <View style={styles.wrap} testID="operator-inspector">
-      {preview.data ? <EncodingSummary preview={preview.data} title="Cost operator" /> : preview.isError ? <Notice tone="error">{preview.error.message}</Notice> : <Small>Loading the encoding summary…</Small>}
+      {preview.data ? <EncodingSummary preview={preview.data} title="Cost operator" analyst /> : preview.isError ? <Notice tone="error">{preview.error.message}</Notice> : <Small>Loading the encoding summary…</Small>}
       <Card>
         <Heading>Terms</Heading>
         {listing && 'error' in listing ? (

@@ -45,7 +45,7 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
     <View key={r.id} style={styles.tr} role="listitem" testID={`run-item-${r.id}`}>
       {/* A real <a href> on the web: Enter opens it (react-native-web leaves role="link" without href to the browser, which does nothing). */}
       <Link href={`/runs/${r.id}`} asChild>
-      <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} style={styles.trOpen}>
+      <Pressable accessibilityRole="link" style={styles.trOpen}>
         <Body style={[styles.cRun, styles.title]}>Run {r.id}</Body>
         <Body style={styles.cQuestion}>{questionLabel(r.problem)}</Body>
         <Body style={styles.cNetwork}>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots</Body>
@@ -64,7 +64,7 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
   const row = (r: RunListItem) => (
     <View key={r.id} style={styles.item} testID={`run-item-${r.id}`}>
       <Link href={`/runs/${r.id}`} asChild>
-      <Pressable accessibilityRole="link" accessibilityLabel={`Open run ${r.id}: ${questionLabel(r.problem)} on ${r.networkName ?? 'network'}`} style={styles.open}>
+      <Pressable accessibilityRole="link" style={styles.open}>
         <Body style={styles.title}>Run {r.id} · {questionLabel(r.problem)}</Body>
         <Small>{r.networkName ?? `Network ${r.networkId}`} · {r.depotCount} depots · {solverNames(r)}</Small>
         <Small>{STATUS_TEXT[r.status] ?? r.status} · {formatDateTime(r.createdAt)}</Small>

@@ -5,7 +5,7 @@ import { can, type Role } from '../../shared/permissions';
 import { formatMoney } from '../../shared/plans';
 import { OPTIMIZER_LABELS, OPTIMIZER_NAMES, type OptimizerName } from '../../shared/engine/variational/optimize';
 import { useRunCreateMutation, useRunPreviewQuery, useRunVersionQuery, useSolverDefaultsQuery, useSolversQuery } from '../queries/runs';
-import { space, WIDE_BREAKPOINT } from '../theme';
+import { colors, space, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { EmptyState } from '../ui/EmptyState';
@@ -18,6 +18,7 @@ import { EncodingSummary } from './EncodingSummary';
 import { KIND_HINTS, KIND_LABELS } from './format';
 import { PinPicker } from './PinPicker';
 import { createBody, DEFAULT_ADVANCED, initialSetup, partsOf, problemOf, refusedChosen, startBlockers, type SetupState } from './setup';
+import { fieldProblems, solverLine, typedProblems, type AdvancedField } from './setup-words';
 import type { ProblemKind } from '../../shared/engine/problem/types';
 
 const KINDS: ProblemKind[] = ['maxcut', 'bisection', 'kway'];
@@ -64,16 +65,22 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
   const gate = startBlockers(preview.data, chosen, !!preview.data && !preview.isPlaceholderData && !preview.isFetching);
   const launch = () =>
     create.mutate(body, { onSuccess: (r) => router.push(`/runs/${r.id}`) });
-  // What each solver said about this question (the API asked it): qubits it would simulate, refusal.
-  const answerOf = (name: string) => preview.data?.solvers.find((x) => x.solver === name) ?? defaults.data?.solvers?.find((x) => x.name === name);
-  const solverQubits = (name: string) => {
-    const q = answerOf(name)?.qubits;
-    return typeof q === 'number' && q > 0 ? ` · ${q} qubits` : '';
-  };
+  // What each solver said about this question (the API asked it), in one plain line: qubits it
+  // would simulate, about how long, what it costs — or why it will not run.
+  const answerOf = (name: string) => preview.data?.solvers.find((x) => x.solver === name);
   const solverHint = (name: string, guarantee: string) => {
-    const refusal = answerOf(name)?.refusal;
-    return refusal ? `Will not run here: ${refusal}` : guarantee;
+    const position = chosen.indexOf(name);
+    const line = chosen.includes(name) ? solverLine(answerOf(name), preview.data?.price, position >= 0 ? position + 1 : null) : null;
+    const refusal = !line ? defaults.data?.solvers?.find((x) => x.name === name)?.refusal : null;
+    return line ?? (refusal ? `Will not run here: ${refusal}` : guarantee);
   };
+  // Settings problems as sentences on their fields: typed text that is no number (caught here),
+  // then what the server's check of exactly this body found.
+  const labelOf = (name: string) => offered.find((o) => o.name === name)?.label ?? name;
+  const problems = [...typedProblems(s.advanced), ...fieldProblems(preview.data?.fields, (i) => (body.solvers[i] ? labelOf(body.solvers[i].solver) : undefined))];
+  const fieldError = (f: AdvancedField) => problems.find((p) => p.field === f)?.text;
+  const rawFieldMessages = new Set(Object.values(preview.data?.fields ?? {}).flat());
+  const reasons = [...problems.map((p) => p.text), ...gate.reasons.filter((r) => !rawFieldMessages.has(r))];
   const adv = s.advanced ?? DEFAULT_ADVANCED;
   const setAdv = (patch: Partial<typeof adv>) => set({ advanced: { ...adv, ...patch } });
 
@@ -110,7 +117,7 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
       {offered
         .filter((o) => allSolvers || chosen.includes(o.name) || defaults.data?.defaults.includes(o.name))
         .map((o) => (
-          <CheckRow key={o.name} title={`${o.label} · ${FAMILY_WORDS[o.family]}${solverQubits(o.name)}`} hint={solverHint(o.name, o.guarantee)} checked={chosen.includes(o.name)} onPress={() => toggle(o.name)} testID={`solver-${o.name}`} />
+          <CheckRow key={o.name} title={`${o.label} · ${FAMILY_WORDS[o.family]}`} hint={solverHint(o.name, o.guarantee)} checked={chosen.includes(o.name)} onPress={() => toggle(o.name)} testID={`solver-${o.name}`} />
         ))}
       <Button
         label={allSolvers ? 'Show only the suggested solvers' : `Show all ${offered.length} solvers`}
@@ -125,13 +132,15 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
       )}
       {s.advanced ? (
         <View style={styles.stack} testID="advanced-panel">
-          <TextField label="Circuit layers (QAOA p, VQE depth)" value={adv.layers} onChangeText={(t) => setAdv({ layers: t })} keyboardType="numeric" />
+          <TextField label="Circuit layers (QAOA p, VQE depth)" value={adv.layers} onChangeText={(t) => setAdv({ layers: t })} keyboardType="numeric" error={fieldError('layers')} testID="adv-layers" />
           <Segmented label="VQE ansatz" options={['ladder', 'alternating'] as const} value={adv.ansatz} onChange={(a) => setAdv({ ansatz: a })} />
+          {fieldError('ansatz') ? <Small style={styles.error}>{fieldError('ansatz')}</Small> : null}
           <Segmented label="Optimizer" options={['auto', ...OPTIMIZER_NAMES] as string[]} value={adv.optimizer} onChange={(o) => setAdv({ optimizer: o })} />
+          {fieldError('optimizer') ? <Small style={styles.error}>{fieldError('optimizer')}</Small> : null}
           <Small testID="optimizer-label">{adv.optimizer === 'auto' ? 'auto: SPSA with shots, else the Nelder–Mead simplex' : OPTIMIZER_LABELS[adv.optimizer as OptimizerName]}</Small>
-          <TextField label="Shots per energy estimate (0 = exact expectation)" value={adv.shots} onChangeText={(t) => setAdv({ shots: t })} keyboardType="numeric" />
-          <TextField label="Seed (blank = random)" value={adv.seed} onChangeText={(t) => setAdv({ seed: t })} keyboardType="numeric" />
-          <TextField label="Time limit per solver (seconds)" value={adv.timeLimitSeconds} onChangeText={(t) => setAdv({ timeLimitSeconds: t })} keyboardType="numeric" />
+          <TextField label="Shots per energy estimate (0 = exact expectation)" value={adv.shots} onChangeText={(t) => setAdv({ shots: t })} keyboardType="numeric" error={fieldError('shots')} testID="adv-shots" />
+          <TextField label="Seed (blank = random)" value={adv.seed} onChangeText={(t) => setAdv({ seed: t })} keyboardType="numeric" error={fieldError('seed')} testID="adv-seed" />
+          <TextField label="Time limit per solver (seconds)" value={adv.timeLimitSeconds} onChangeText={(t) => setAdv({ timeLimitSeconds: t })} keyboardType="numeric" error={fieldError('timeLimitSeconds')} testID="adv-time" />
         </View>
       ) : null}
     </Card>
@@ -140,17 +149,17 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
   const summary = (
     <View style={styles.stack}>
       {preview.data ? (
-        <EncodingSummary preview={preview.data} solvers={solvers.data}>
+        <EncodingSummary preview={preview.data} solvers={solvers.data} chosen={chosen}>
           {preview.data.encoding ? (
             <TextField label="Precision for the shot estimate (standard error of the energy)" value={s.precision} onChangeText={(t) => set({ precision: t })} keyboardType="numeric" hint={`Blank = 1 % of total lane weight (${preview.data.encoding.precision}).`} testID="precision" />
           ) : null}
         </EncodingSummary>
       ) : null}
       {preview.isError ? <Notice tone="error">{preview.error.message}</Notice> : null}
-      {!gate.pending && gate.reasons.length > 0 ? (
+      {!gate.pending && reasons.length > 0 ? (
         <Notice tone="error">
           <View style={styles.stack} testID="start-blockers">
-            {gate.reasons.map((r) => <Small key={r}>{r}</Small>)}
+            {reasons.map((r) => <Small key={r}>{r}</Small>)}
           </View>
         </Notice>
       ) : null}
@@ -163,13 +172,13 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
               ? 'Choose at least one solver'
               : refused.length
                 ? `Untick ${refused.join(' and ')} to start: ${refused.length > 1 ? 'they cannot' : 'it cannot'} take this problem`
-                : gate.pending
-                  ? 'Checking the run with the server…'
-                  : gate.reasons.length
-                    ? 'Cannot start: see the reasons above'
-                    : `Start run with ${chosen.length} solver${chosen.length > 1 ? 's' : ''}${preview.data?.price ? ` (paid run: ${preview.data.price.label ?? formatMoney(preview.data.price)}, pay next)` : ''}`
+                : reasons.length
+                  ? `Cannot start: ${reasons[0].replace(/\.$/, '')}${reasons.length > 1 ? ` (and ${reasons.length - 1} more, above)` : ''}`
+                  : gate.pending
+                    ? 'Checking the run with the server…'
+                    : `Start run with ${chosen.length} solver${chosen.length > 1 ? 's' : ''}${preview.data?.price ? ` · ${preview.data.price.label ?? formatMoney(preview.data.price)}, pay next` : ''}`
           }
-          onPress={launch} busy={create.isPending} disabled={chosen.length === 0 || refused.length > 0 || gate.pending || gate.reasons.length > 0} testID="start-run" />
+          onPress={launch} busy={create.isPending} disabled={chosen.length === 0 || refused.length > 0 || gate.pending || reasons.length > 0} testID="start-run" />
       ) : (
         <Notice>Your role can read runs but not start them. Ask a dispatcher or analyst.</Notice>
       )}
@@ -202,4 +211,5 @@ const styles = StyleSheet.create({
   stack: { gap: space.sm },
   columns: { flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' },
   col: { flex: 1, gap: space.lg },
+  error: { color: colors.danger },
 });

@@ -57,7 +57,7 @@ export function Scorecard(props: { card: ScorecardData; valueName: string; wide?
             onPress={select(row)}
             disabled={!select(row)}
             accessibilityRole="button"
-            accessibilityLabel={`${row.label}: ${props.valueName} ${formatValue(row.value)}${row.isBest ? ', best answer' : ''}${row.provenOptimal ? ', proven optimal' : ''}. Show on the network`}
+            accessibilityHint="Shows this answer on the network"
             accessibilityState={{ selected: props.selectedJobId === row.jobId }}
             style={[styles.card, row.isBest && styles.cardBest, props.selectedJobId === row.jobId && styles.cardSelected]}
             testID={`score-${row.solver}`}
@@ -83,12 +83,13 @@ export function Scorecard(props: { card: ScorecardData; valueName: string; wide?
   }
 
   return (
-    <View style={styles.table} testID="scorecard" accessibilityRole={'table' as never}>
+    // Rows are buttons (tap to draw the answer), so no table role: a table may hold only rows.
+    <View style={styles.table} testID="scorecard" role="group" accessibilityLabel="Scorecard">
       <Small>{boundText}</Small>
-      <View style={[styles.tr, styles.thead]} accessibilityRole={'row' as never}>
+      <View style={[styles.tr, styles.thead]} aria-hidden>
         <Label style={[styles.th, styles.first]}>Solver</Label>
         {COLUMNS.map((c) => (
-          <Label key={c.key} style={[styles.th, { width: c.width }]} accessibilityRole={'columnheader' as never}>
+          <Label key={c.key} style={[styles.th, { width: c.width }]}>
             {c.key === 'value' ? props.valueName : c.title}
           </Label>
         ))}
@@ -99,7 +100,7 @@ export function Scorecard(props: { card: ScorecardData; valueName: string; wide?
           onPress={select(row)}
           disabled={!select(row)}
           accessibilityRole="button"
-          accessibilityLabel={`${row.label}: show on the network`}
+          accessibilityHint="Shows this answer on the network"
           accessibilityState={{ selected: props.selectedJobId === row.jobId }}
           style={[styles.tr, row.isBest && styles.cardBest, props.selectedJobId === row.jobId && styles.rowSelected]}
           testID={`score-${row.solver}`}

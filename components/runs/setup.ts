@@ -63,7 +63,8 @@ export function problemOf(s: SetupState): RunProblem {
   return problem;
 }
 
-const num = (text: string) => (text.trim() === '' ? undefined : Number(text));
+// Text that is not a number is left out of the body (setup-words.ts marks the field instead).
+const num = (text: string) => (text.trim() === '' || !Number.isFinite(Number(text)) ? undefined : Number(text));
 
 /** Settings per solver from the advanced panel: only variational solvers take layers/shots/optimizer. */
 export function solverEntries(names: readonly string[], families: Record<string, string>, adv: AdvancedSettings | null): SolverEntry[] {

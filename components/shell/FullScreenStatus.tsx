@@ -7,7 +7,7 @@ import { Button } from '../ui/Button';
 export function FullScreenStatus(props: { label: string; error?: string; onRetry?: () => void }) {
   return (
     <View style={styles.root} accessibilityLiveRegion="polite">
-      {props.error ? null : <ActivityIndicator color={colors.ink} />}
+      {props.error ? null : <ActivityIndicator color={colors.ink} accessibilityLabel={props.label} />}
       <Body>{props.label}</Body>
       {props.error ? <Small>{props.error}</Small> : null}
       {props.onRetry ? <Button label="Try again" tone="secondary" onPress={props.onRetry} /> : null}

@@ -14,6 +14,7 @@ export function RolePicker(props: { value: Role; options: readonly Role[]; onCha
             accessibilityRole="radio"
             accessibilityLabel={ROLE_LABELS[role]}
             accessibilityState={{ selected, checked: selected, disabled: !!props.disabled }}
+            aria-checked={selected}
             disabled={props.disabled}
             onPress={() => props.onChange(role)}
             style={[styles.pill, selected && styles.pillOn]}

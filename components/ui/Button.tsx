@@ -36,7 +36,7 @@ export function Button(props: {
         props.style,
       ]}
     >
-      {props.busy ? <ActivityIndicator size="small" color={tone === 'primary' || tone === 'danger' ? colors.onInk : colors.ink} /> : null}
+      {props.busy ? <ActivityIndicator size="small" color={tone === 'primary' || tone === 'danger' ? colors.onInk : colors.ink} accessibilityLabel="Working" /> : null}
       <Text style={[styles.label, tone === 'primary' || tone === 'danger' ? styles.labelOnDark : styles.labelOnLight]}>{props.label}</Text>
     </Pressable>
   );

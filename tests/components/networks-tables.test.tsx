@@ -79,14 +79,15 @@ describe('DepotsTable', () => {
     render(<DepotsTable depots={depots} lanes={lanes} selected={new Set([1])} onSelect={() => {}} wide />);
     expect(screen.getByTestId('depot-row-A').textContent).toBe('AAlder Yard47.1-3113');
     expect(screen.getByTestId('depot-row-B').textContent).toBe('B———42');
-    expect(screen.getByRole('button', { name: 'Depot B' }).getAttribute('aria-pressed')).toBe('true');
+    // The row's name is its visible text (axe label-content-name-mismatch), starting with the id.
+    expect(screen.getByRole('button', { name: /^B\b/ }).getAttribute('aria-pressed')).toBe('true');
   });
 
   test('phone layout keeps name, weight and lanes; a press selects the depot', () => {
     const onSelect = jest.fn();
     render(<DepotsTable depots={depots} lanes={lanes} selected={new Set()} onSelect={onSelect} wide={false} />);
     expect(screen.getByTestId('depot-row-C').textContent).toBe('C13');
-    fireEvent.click(screen.getByRole('button', { name: 'Depot A, Alder Yard' }));
+    fireEvent.click(screen.getByRole('button', { name: /Alder Yard/ }));
     expect(onSelect).toHaveBeenCalledWith(0);
   });
 });

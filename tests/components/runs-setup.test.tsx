@@ -1,4 +1,4 @@
-import { render, screen } from '@testing-library/react';
+import { fireEvent, render, screen } from '@testing-library/react';
 import { createBody, cyclePin, DEFAULT_ADVANCED, initialSetup, problemOf } from '../../components/runs/setup';
 import { EncodingSummary, estimatedSeconds } from '../../components/runs/EncodingSummary';
 import { isLive } from '../../components/queries/runs';
@@ -96,6 +96,11 @@ describe('<EncodingSummary>', () => {
   };
   test('shows the figures, refusals, the time budget and no price when none is returned', () => {
     render(<EncodingSummary preview={preview} />);
+    // Plain words first; the encoding maths behind the details control.
+    expect(screen.getByTestId('run-cost').textContent).toBe('This run is free on your plan.');
+    expect(screen.getByTestId('run-time').textContent).toMatch(/about 12 s/);
+    expect(screen.queryByTestId('enc-qubits')).toBeNull();
+    fireEvent.click(screen.getByTestId('encoding-details-toggle'));
     expect(screen.getByTestId('enc-qubits').textContent).toBe('4');
     expect(screen.getByTestId('enc-terms').textContent).toBe('6');
     expect(screen.getByTestId('enc-offset').textContent).toBe('-3');
@@ -107,6 +112,8 @@ describe('<EncodingSummary>', () => {
   });
   test('shows the price and its lines when the preview has one (money written by shared/plans.ts)', () => {
     render(<EncodingSummary preview={{ ...preview, price: { amount: 250, currency: 'eur', lines: [{ label: 'Depots above the plan', amount: 150 }, { label: 'Qubits above the plan', amount: 100 }] } }} />);
+    expect(screen.getByTestId('run-cost').textContent).toBe('This run costs €2.50; it starts once it is paid.');
+    fireEvent.click(screen.getByTestId('encoding-details-toggle'));
     expect(screen.getByTestId('enc-price').textContent).toBe('€2.50');
     expect(screen.getByTestId('enc-price-lines').textContent).toContain('Depots above the plan: €1.50');
   });

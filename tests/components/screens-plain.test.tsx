@@ -85,3 +85,32 @@ test('a missing or refused resource is not asked for again (it answers at once);
   expect(shouldRetry(0, new ApiError(0, 'offline'))).toBe(true);
   expect(shouldRetry(3, new ApiError(0, 'offline'))).toBe(false);
 });
+
+import { costLine, fieldProblems, solverLine, typedProblems } from '../../components/runs/setup-words';
+import { DEFAULT_ADVANCED } from '../../components/runs/setup';
+
+test('run setup: one plain line per solver and for the run, no formulas', () => {
+  const q = { solver: 'qaoa', qubits: 15, estimatedSeconds: { atMost: 12.3 } };
+  expect(solverLine(q, null, 1)).toBe('needs 15 qubits · about 12 s · free');
+  const price = { amount: 300, currency: 'eur', lines: [{ label: 'Large solve', amount: 200 }, { label: 'Solver 2: 3 qubits above 12', amount: 100 }] };
+  expect(solverLine(q, price, 2)).toBe('needs 15 qubits · about 12 s · €1.00 for its qubits');
+  expect(solverLine({ solver: 'tabu', qubits: null, estimatedSeconds: { atMost: 10 } }, price, 1)).toBe('about 10 s · in the run price');
+  expect(solverLine({ solver: 'vqe', refusal: 'needs 30 qubits; the limit is 24' }, null, 3)).toBe('Will not run here: needs 30 qubits; the limit is 24');
+  expect(costLine(null)).toBe('This run is free on your plan.');
+  expect(costLine({ ...price, label: '€3.00' })).toBe('This run costs €3.00; it starts once it is paid.');
+  for (const line of [solverLine(q, price, 2)!, costLine(price)]) expect(line).not.toMatch(/[Σ⌈⌉ε×^]|2\^/);
+});
+
+test('run setup: a bad advanced value is a sentence on its field, never a path', () => {
+  const problems = fieldProblems({ 'solvers.2.settings.layers': ['must lie in 1…10 (got -3)'], timeLimitSeconds: ['must be positive'] }, (i) => ['Exact enumeration', 'Tabu search', 'QAOA (simulated quantum circuit)'][i]);
+  expect(problems).toEqual([
+    { field: 'layers', text: 'Circuit layers (QAOA (simulated quantum circuit)): must lie in 1…10 (you entered -3).' },
+    { field: 'timeLimitSeconds', text: 'Time limit per solver: must be positive.' },
+  ]);
+  expect(problems.map((p) => p.text).join(' ')).not.toMatch(/solvers\.\d/);
+  expect(typedProblems({ ...DEFAULT_ADVANCED, layers: 'two', shots: '1.5' })).toEqual([
+    { field: 'layers', text: 'Circuit layers: enter a whole number (you entered “two”).' },
+    { field: 'shots', text: 'Shots per energy estimate: enter a whole number (you entered “1.5”).' },
+  ]);
+  expect(typedProblems(DEFAULT_ADVANCED)).toEqual([]);
+});

@@ -102,6 +102,8 @@ test('phone: a large run shows its price, a declined card keeps it unpaid, payin
     if ((await box.count()) > 0 && (await box.getAttribute('aria-checked')) === 'true') await box.click();
   }
   if ((await page.getByTestId('solver-tabu').getAttribute('aria-checked')) !== 'true') await page.getByTestId('solver-tabu').click();
+  await page.getByTestId('run-cost').getByText('This run costs €2.50', { exact: false }).waitFor();
+  await page.getByTestId('encoding-details-toggle').click();
   const lines = page.getByTestId('enc-price-lines');
   await lines.getByText('Large solve: €2.00').waitFor();
   await lines.getByText(`${DEPOTS - 200} depots above 200: €0.50`).waitFor();

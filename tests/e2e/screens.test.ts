@@ -121,16 +121,18 @@ describe.each([
     await page.getByRole('button', { name: `Open ${other.name}` }).click();
     await page.getByTestId('networks-screen').waitFor({ timeout: 5000 });
     await expect(page.getByTestId('shell-org-name').first().textContent()).resolves.toContain(other.name);
+  });
 
-    const alone = await context.browser()!.newContext({ viewport, hasTouch: touch, isMobile: touch });
-    const lonely = await signIn(alone, org, 'dispatcher');
+  test('a member removed from their only organisation is told how to get back in, and can sign out', async () => {
+    const lonely = await signIn(context, org, 'dispatcher');
+    await lonely.getByTestId('networks-screen').waitFor();
     await server.deps.models.Membership.destroy({ where: { organisationId: org.organisationId, userId: org.users.dispatcher.id } });
     await lonely.reload();
-    await lonely.getByTestId('no-organisation').waitFor({ timeout: 5000 });
+    await lonely.getByTestId('no-organisation').waitFor({ timeout: 10_000 });
     await expect(lonely.getByText(/An admin can invite you again/).count()).resolves.toBe(1);
+    await screenshot(lonely, `screens-removed-alone-${label}`);
     await lonely.getByRole('button', { name: 'Sign out' }).click();
-    await lonely.waitForURL((u) => u.pathname === '/sign-in', { timeout: 5000 });
-    await alone.close();
+    await lonely.waitForURL((u) => u.pathname === '/sign-in', { timeout: 10_000 });
   });
 
   test('wide networks table: every number sits in its column on the row of its name', async () => {

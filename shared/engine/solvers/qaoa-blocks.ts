@@ -10,9 +10,11 @@ import { decomposeBisection, decomposeMaxcut } from '../variational/decompose';
 import { defineSolver } from './define';
 import { intField, settingsObject } from './settings';
 import type { TracePoint } from './types';
+/** Depots per block unless the block size setting says otherwise. */
+const DEFAULT_BLOCK_SIZE = 14;
 
 const settings = settingsObject({
-  blockSize: intField(14, 2, 20),
+  blockSize: intField(DEFAULT_BLOCK_SIZE, 2, 20),
   layers: intField(2, 1, 6),
   shots: intField(0, 0, 100_000),
   readoutShots: intField(1024, 1, 100_000),
@@ -30,7 +32,7 @@ export const qaoaBlocksSolver = defineSolver({
   label: 'QAOA by blocks (decomposition for large networks)',
   family: 'variational',
   kinds: ['maxcut', 'bisection'],
-  guarantee: 'Heuristic, no optimality guarantee: QAOA on blocks of at most blockSize depots, block orientations from a second small problem over the blocks, then local refinement; compare it with the classical best and the bound.',
+  guarantee: `Heuristic, no optimality guarantee: QAOA on blocks of at most ${DEFAULT_BLOCK_SIZE} depots (the block size setting), block orientations from a second small problem over the blocks, then local refinement; compare it with the classical best and the bound.`,
   otherwise: 'qaoa (recursive bisection) on small networks, or fm / milp',
   settings,
   /**
