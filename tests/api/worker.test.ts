@@ -73,19 +73,13 @@ test('a worker killed with SIGKILL mid-job: another worker takes the job over an
   }, 60_000, 200);
   const row = await jobRow(jobId);
   // 2 normally; more only if the second worker's own lock lapsed on a starved machine (then the
-  // guard below is what keeps the result single).
+  // attempt guard keeps the result single).
   expect(row.attempt).toBeGreaterThanOrEqual(2);
   expect(row.worker).toMatch(new RegExp(`#${second.pid}$`));
   const result = JSON.parse(row.result!);
   expect(cutOf(edges, result.assignment)).toBe(result.value);
   expect(run.jobs[0].result.value).toBe(result.value);
-
-  // The first claim can never write any more: the guarded UPDATE the worker uses changes nothing.
-  for (let attempt = 1; attempt <= row.attempt; attempt++) {
-    const [stale] = await t.deps.models.RunJob.update({ status: 'succeeded', result: '{"value":0}' }, { where: { id: jobId, status: 'running', attempt } });
-    expect(stale).toBe(0);
-  }
-  expect((await jobRow(jobId)).result).toBe(row.result);
+  // That a taken-over claim cannot write is tested through the processor in worker-claim.test.ts.
   await second.kill('SIGTERM');
 });
 
@@ -148,13 +142,12 @@ test('a solve thread past its hard limit is terminated and the slot starts a fre
   const slot = createThreadSlot();
   const document = networkBody('Hard limit', 300, randomEdges(300, 0.02, 8));
   try {
-    const started = Date.now();
-    // tabu honours its own 30 s limit; the hard limit (1.5 s here) must stop it first.
+    // tabu honours its own 30 s limit (it would answer 'done'); the hard limit (1.5 s here) must
+    // stop it first, and the outcome says which one did — no wall time is asserted.
     const slow = slot.run({ document, problem: { kind: 'maxcut' }, solver: 'tabu', settings: {}, seed: 1, timeLimitSeconds: 30 }, { hardLimitMs: 1500, onProgress: () => {} });
     const outcome = await slow.outcome;
     expect(outcome).toMatchObject({ kind: 'killed', reason: 'timeout' });
     expect((outcome as { message: string }).message).toMatch(/time limit and grace/);
-    expect(Date.now() - started).toBeLessThan(20_000); // thread start-up + 1.5 s, far below tabu's own 30 s
     const next = await slot.run({ document: networkBody('Tiny', 4, [[0, 1, 1], [1, 2, 1], [2, 3, 1]]), problem: { kind: 'maxcut' }, solver: 'exact', settings: {}, seed: 1, timeLimitSeconds: 5 }, { hardLimitMs: 30_000, onProgress: () => {} }).outcome;
     expect(next.kind).toBe('done');
     expect((next as { result: { value: number } }).result.value).toBe(3); // a path's max-cut is its lane count (bipartite, common practice)

@@ -47,7 +47,7 @@ interface Bench { name: string; file: string; args: string[]; quickArgs: string[
 const BENCHES: Bench[] = [
   { name: 'sim', file: 'tests/bench/sim.ts', args: [], quickArgs: ['--quick'] },
   { name: 'classical', file: 'tests/bench/classical.ts', args: [], quickArgs: ['--limit', '2', '--skip-exact', '--skip-milp', '--skip-partition', '--no-write'] },
-  { name: 'service', file: 'tests/bench/service.ts', args: [], quickArgs: ['--runs', '8', '--paced', '5', '--no-write'] },
+  { name: 'service', file: 'tests/bench/service.ts', args: [], quickArgs: ['--runs', '8', '--paced', '5', '--cancels', '2', '--no-write'] },
   { name: 'load', file: 'tests/bench/load.ts', args: [], quickArgs: ['--quick'] },
 ];
 
@@ -95,6 +95,8 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
   if (bench === 'service') {
     const m = /throughput ratio: \*\*([\d.]+)\*\*/.exec(out);
     if (m) rows.push({ bench, metric: '2-worker / 1-worker throughput', measured: Number(m[1]), target: 1.5, better: 'higher', unit: '×' });
+    const c = /Cancel latency[^\n]*median: \*\*([\d.]+) ms\*\*/.exec(out);
+    if (c) rows.push({ bench, metric: 'cancel → cancelled, median of long runs', measured: Number(c[1]), target: 1000, better: 'lower', unit: 'ms' });
   }
   if (bench === 'load') {
     const m = /^LOAD-METRICS (.*)$/m.exec(out);

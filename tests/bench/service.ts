@@ -9,8 +9,10 @@
  * 2. Queue latency, creation (release, for the burst) → a worker starts the job (the worker's "running" event on Redis
  *    pub/sub, millisecond clock of this process): p50/p95 for the burst (includes waiting behind
  *    the backlog) and for paced instant runs, one every 500 ms on an idle worker (dispatch alone).
+ * 3. Cancel latency: a 60 s `tabu` run on a 300-depot network is cancelled once it reports
+ *    progress; time from cancelRun to the run's `cancelled` status (target about 1 s).
  *
- *   npx tsx tests/bench/service.ts [--runs 24] [--paced 20] [--depots 60] [--job-seconds 1] [--no-write]
+ *   npx tsx tests/bench/service.ts [--runs 24] [--paced 20] [--cancels 5] [--depots 60] [--job-seconds 1] [--no-write]
  * Rewrites the `## Service` section of docs/benchmarks.md.
  */
 import * as fs from 'node:fs';
@@ -26,6 +28,7 @@ const opt = (name: string, fallback: number): number => {
 };
 const RUNS = opt('--runs', 24);
 const PACED = opt('--paced', 20);
+const CANCELS = opt('--cancels', 5);
 const DEPOTS = opt('--depots', 60);
 const JOB_SECONDS = opt('--job-seconds', 1);
 const write = !args.includes('--no-write');
@@ -52,7 +55,7 @@ async function main() {
   const { createDeps, closeDeps } = await import('../../server/deps');
   const { migrate } = await import('../../server/migrate');
   const { createNetwork } = await import('../../server/services/networks');
-  const { createRun, releaseRun } = await import('../../server/services/runs');
+  const { cancelRun, createRun, releaseRun } = await import('../../server/services/runs');
   const { closeSolveQueue } = await import('../../server/services/queue');
   const { startWorkerChild, randomEdges, networkBody } = await import('../api/runs-support');
   const { createDatabase } = await import('../../server/db');
@@ -110,6 +113,31 @@ async function main() {
   };
   const latencies = (ids: number[]) => ids.map((id) => startedAt.get(id)! - createdAt.get(id)!).filter(Number.isFinite);
 
+  /** Cancel → `cancelled` for long runs already reporting progress on an idle worker (ms each). */
+  const cancelLatencies = async (): Promise<number[]> => {
+    const big = (await createNetwork(deps, { organisationId: org.id, userId: user.id }, networkBody('Bench cancel', 300, randomEdges(300, 0.02, 3)), { source: 'api' })).versionId;
+    const out: number[] = [];
+    for (let i = 0; i < CANCELS; i++) {
+      const { id } = await createRun(deps, actor, { versionId: big, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }], timeLimitSeconds: 60 });
+      for (const deadline = Date.now() + 60_000; ;) {
+        const job = await deps.models.RunJob.findOne({ where: { runId: id } });
+        if (job && job.get('status') === 'running' && Number(job.get('progress')) > 0) break;
+        if (Date.now() > deadline) throw new Error(`run ${id} did not start reporting progress in 60 s`);
+        await new Promise((r) => setTimeout(r, 50));
+      }
+      const t0 = performance.now();
+      await cancelRun(deps, org.id, id);
+      for (const deadline = Date.now() + 60_000; ;) {
+        if ((await deps.models.Run.findByPk(id))!.get('status') === 'cancelled') break;
+        if (Date.now() > deadline) throw new Error(`run ${id} was not cancelled within 60 s`);
+        await new Promise((r) => setTimeout(r, 20));
+      }
+      out.push(performance.now() - t0);
+    }
+    return out;
+  };
+  let cancelMs: number[] = [];
+
   const rows: { workers: number; seconds: number; perMinute: number; p50: number; p95: number }[] = [];
   for (const count of [1, 2]) {
     const workers = [];
@@ -132,6 +160,7 @@ async function main() {
       await allDone(paced, 120_000);
       const lat = latencies(paced);
       (rows as unknown as { paced?: number[] }).paced = [quantile(lat, 0.5), quantile(lat, 0.95)];
+      cancelMs = await cancelLatencies();
     }
     await Promise.all(workers.map((w) => w.kill('SIGTERM')));
   }
@@ -158,6 +187,10 @@ async function main() {
     '',
     `Paced runs (one instant \`greedy\` job every 500 ms, 1 idle worker, ${PACED} runs): creation → job start p50 **${paced[0].toFixed(0)} ms**, p95 **${paced[1].toFixed(0)} ms** (dispatch cost alone: commit, enqueue, the worker's blocking fetch, claim).`,
     '',
+    ...(cancelMs.length ? [
+      `Cancel latency (${cancelMs.length} runs of 60 s \`tabu\` on 300 depots, 1 worker, cancelled once progress shows; cancelRun → run \`cancelled\`, polled every 20 ms): median: **${quantile(cancelMs, 0.5).toFixed(0)} ms**, worst ${Math.max(...cancelMs).toFixed(0)} ms (target about 1 s: the solver's cancel check, the worker's store, the status refresh).`,
+      '',
+    ] : []),
   ].join('\n');
   console.log('\n' + section);
   if (write) {
