@@ -43,9 +43,19 @@ describe('the checker catches each way out', () => {
   });
 });
 
+/** Mentions that are not reads (file, path prefix, why); each must still occur, or it goes. */
+const NOT_READS: Array<[file: string, prefix: string, why: string]> = [
+  ['server/scripts/services.sh', '/work/services.lock', 'comment: an example caller holding a lock file'],
+  ['server/migrations/20261202-0600-job-errors-without-paths.ts', '/srv/', 'comment: what old error texts looked like'],
+  ['tests/api/job-error-migration.test.ts', '/srv/spinyard/', 'sample error texts that carry server paths'],
+];
+
 test('no file of the project points outside the repository', () => {
   const files = projectFiles(ROOT).filter((f) => f !== __filename);
   expect(files.length).toBeGreaterThan(300); // the walk really saw the project
   const found = files.flatMap((f) => findOutsidePaths(ROOT, f, fs.readFileSync(f, 'utf8')));
-  expect(found.map((f) => `${f.file}:${f.line} ${f.text} (${f.why})`)).toEqual([]);
+  const excused = (f: { file: string; text: string }) => NOT_READS.find(([file, prefix]) => f.file === file && f.text.startsWith(prefix));
+  expect(found.filter((f) => !excused(f)).map((f) => `${f.file}:${f.line} ${f.text} (${f.why})`)).toEqual([]);
+  const stale = NOT_READS.filter(([file, prefix]) => !found.some((f) => f.file === file && f.text.startsWith(prefix)));
+  expect(stale).toEqual([]);
 });
