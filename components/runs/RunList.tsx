@@ -27,7 +27,10 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
   const mayCompare = can(props.role, 'runs:compare');
   const [ticked, setTicked] = useState<number[]>(props.compareWith ? [props.compareWith] : []);
   const toggle = (id: number) => setTicked((t) => (t.includes(id) ? t.filter((x) => x !== id) : [...t, id]));
-  const compare = ticked.length >= 2 ? <Button label={`Compare ${ticked.length} runs`} onPress={() => router.push(`/runs/compare?ids=${ticked.join(',')}`)} testID="compare-runs" /> : null;
+  const compareButton = ticked.length >= 2 ? <Button label={`Compare ${ticked.length} runs`} onPress={() => router.push(`/runs/compare?ids=${ticked.join(',')}`)} testID="compare-runs" /> : null;
+  // Analysts (runs:advanced) reach operators of their own from here.
+  const operator = can(props.role, 'runs:advanced') ? <Button label="Operator of your own" tone="secondary" onPress={() => router.push('/runs/operator')} testID="open-operator" /> : null;
+  const compare = compareButton || operator ? <>{operator}{compareButton}</> : null;
 
   if (runs.isPending) return <Screen title="Runs"><Body>Loading runs…</Body></Screen>;
   if (runs.isError) return <Screen title="Runs"><Notice tone="error">{runs.error.message}</Notice></Screen>;

@@ -10,6 +10,7 @@ import { auditRoutes } from './audit';
 import { tokensRoutes } from './tokens';
 import { runsRoutes } from './runs';
 import { circuitsRoutes } from './circuits';
+import { operatorsRoutes } from './operators';
 import { solversRoutes } from './solvers';
 import { billingRoutes } from './billing';
 
@@ -26,6 +27,7 @@ export function apiRoutes(deps: Deps): RouteSpec[] {
     ...networksRoutes(deps),
     ...runsRoutes(deps),
     ...circuitsRoutes(deps),
+    ...operatorsRoutes(deps),
     ...solversRoutes(deps),
     ...billingRoutes(deps),
   ];
