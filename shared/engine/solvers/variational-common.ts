@@ -127,6 +127,11 @@ export async function solveVariational(problem: Problem, s: CommonSettings, ctx:
   };
   const notes: string[] = [];
   let stoppedAny = false;
+  // The noise simulation gets the run's time limit again (trajectories simulated so far are kept).
+  const noiseStop = () => {
+    const t0 = performance.now();
+    return () => ctx.cancel?.cancelled === true || (performance.now() - t0) / 1000 >= ctx.timeLimitSeconds;
+  };
   // Gate counts per qubit layout for the circuit the result's params belong to; device time
   // always, noise when asked (docs/runs.md), at those parameters.
   const circuitFields = (encoding: Encoding, warm: ArrayLike<number> | null, which: CircuitSpec['encoding'], out: VariationalOutcome): Partial<SolveResult> => {
@@ -135,7 +140,7 @@ export async function solveVariational(problem: Problem, s: CommonSettings, ctx:
     const analysis = analyseRun(problem, spec, out.params,
       { assumptions: defaultAssumptions(), settings: 1, shotsPerSetting: shots, estimates: out.evaluations, readoutShots: s.readoutShots },
       s.noise ? { layout: s.noiseLayout, trajectories: encoding.numQubits <= TRAJECTORY_MAX_QUBITS ? s.noiseTrajectories : 0, shotsPerTrajectory: 100, seed: ctx.seed, reference: null } : undefined,
-      () => ctx.cancel?.cancelled === true);
+      noiseStop());
     if (s.noise && encoding.numQubits > TRAJECTORY_MAX_QUBITS) notes.push(`noise: ${encoding.numQubits} qubits is above the trajectory simulation's ${TRAJECTORY_MAX_QUBITS}; the depolarizing estimate only`);
     return {
       circuit: circuitSummary(circuitOf(encoding, spec)),

@@ -91,3 +91,17 @@ describe('ladder ansatz (VQE)', () => {
     expect(s.layouts.line).toEqual(s.layouts.all);
   });
 });
+
+test('the grid never needs more two-qubit gates than the line (the snake is a line inside the grid)', () => {
+  let seed = 17;
+  const next = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+  for (let trial = 0; trial < 12; trial++) {
+    const n = 5 + Math.floor(next() * 8);
+    const edges: [number, number][] = [];
+    for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (next() < 0.35) edges.push([i, j]);
+    if (edges.length === 0) continue;
+    const s = circuitSummary(qaoaCircuit({ operator: maxcutOperator(n, edges), layers: 2 }));
+    expect(s.layouts.grid.twoQubitGates).toBeLessThanOrEqual(s.layouts.line.twoQubitGates);
+    expect(s.layouts.line.twoQubitGates).toBeGreaterThanOrEqual(s.layouts.all.twoQubitGates);
+  }
+});
