@@ -182,10 +182,10 @@ export function diagonalLevels(diag: Float64Array, maxLevels = 65536): DiagonalL
   return { levels: Float64Array.from(values), index };
 }
 
-type Diagonal = Float64Array | DiagonalLevels;
+export type Diagonal = Float64Array | DiagonalLevels;
 
 /** Interleaved [cos γE_k, sin γE_k] per level (one cache line serves both lookups). */
-function phaseTables(diag: Diagonal, gamma: number): Float64Array | null {
+export function phaseTables(diag: Diagonal, gamma: number): Float64Array | null {
   if (diag instanceof Float64Array) return null;
   const L = diag.levels;
   const t = new Float64Array(2 * L.length);
@@ -196,7 +196,7 @@ function phaseTables(diag: Diagonal, gamma: number): Float64Array | null {
   return t;
 }
 
-function checkDiagonal(s: StateVector, diag: Diagonal): void {
+export function checkDiagonal(s: StateVector, diag: Diagonal): void {
   const len = diag instanceof Float64Array ? diag.length : diag.index.length;
   if (len !== s.amps.length >> 1) {
     throw new RangeError(`diagonal has ${len} entries, the ${s.numQubits}-qubit state needs ${s.amps.length >> 1}`);
