@@ -15,6 +15,7 @@ type Registry = typeof import('../../shared/engine/solvers/registry');
 // Loaded on demand so file and flag errors are reported without loading every solver.
 const orchestrate = (): Orchestrate => require('../../shared/engine/solvers/orchestrate');
 const registry = (): Registry => require('../../shared/engine/solvers/registry');
+const simKernels = (): typeof import('../lib/sim-wasm') => require('../lib/sim-wasm');
 
 const OPTIONS = {
   problem: { type: 'string', default: 'maxcut' },
@@ -127,7 +128,7 @@ async function solveCommand(flags: Flags, positionals: string[], io: CliIo, sign
     if (p.energy !== undefined) parts.push(`energy ${p.energy.toPrecision(6)}${p.stdError !== undefined ? ` ± ${p.stdError.toPrecision(2)}` : ''}`);
     io.err(`spinyard: ${parts.join('  ')}`);
   };
-  const result = await solveProblem(problem, flags.solver, settings, { seed, timeLimitSeconds, cancel, onProgress }, { bounds: !flags['no-bounds'] });
+  const result = await solveProblem(problem, flags.solver, settings, { seed, timeLimitSeconds, cancel, onProgress, stateKernels: simKernels().simKernelsBackend() }, { bounds: !flags['no-bounds'] });
   signals.onInterrupt = null;
   const report = solveReport(file, problem, result, { qubits, seed, timeLimitSeconds, cancelled: cancel.cancelled, warnings: warningText });
   if (qasm) writeQasm(qasm, problem, result, io);

@@ -136,6 +136,12 @@ stop_redis() {
   rm -f "$DATA_DIR/redis/redis.pid"
 }
 
+# Assemble the simulator's WebAssembly kernels (server/wasm/sim-kernels.wat → .wasm, git-ignored)
+# when stale. Not fatal: without the .wasm the engine runs its JavaScript kernels.
+build_sim_kernels() {
+  (cd "$ROOT" && npx tsx server/scripts/build-wasm.ts) || say "simulator kernels not built; the JavaScript kernels will run"
+}
+
 # Rebuild the exported web app when any client source is newer than the build.
 build_web_if_stale() {
   local out="$ROOT/dist/web" marker="$ROOT/dist/web/index.html"

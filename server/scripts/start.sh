@@ -6,6 +6,7 @@ profile_env dev
 mkdir -p "$ROOT/.data"
 ensure_debian_packages
 ensure_node_modules
+build_sim_kernels
 port_busy "$PORT" && fail "port $PORT is in use; stop the other program or start with PORT=3001 npm start"
 build_web_if_stale
 

@@ -6,6 +6,7 @@ profile_env test
 mkdir -p "$ROOT/.data"
 ensure_debian_packages
 ensure_node_modules
+build_sim_kernels
 build_web_if_stale
 
 cleanup() { trap - INT TERM EXIT; stop_redis; stop_mariadb; }

@@ -8,6 +8,7 @@ import { buildCompactNetwork } from '../../shared/engine/network/build';
 import { bindProblem } from '../../shared/engine/problem/bind';
 import { solveProblem } from '../../shared/engine/solvers/orchestrate';
 import type { SolveProgress } from '../../shared/engine/solvers/types';
+import { simKernelsBackend } from '../lib/sim-wasm';
 import { INTERNAL_ERROR, type SolveTask, type SolveThreadMessage } from './solve-task';
 
 // Errors that describe the user's input (shown as they are) rather than a fault of ours.
@@ -31,7 +32,7 @@ async function handle(task: SolveTask): Promise<void> {
   try {
     const network = buildCompactNetwork(task.document);
     const problem = bindProblem(network, task.problem);
-    const result = await solveProblem(problem, task.solver, task.settings, { seed: task.seed, timeLimitSeconds: task.timeLimitSeconds, cancel, onProgress, knownOptimum });
+    const result = await solveProblem(problem, task.solver, task.settings, { seed: task.seed, timeLimitSeconds: task.timeLimitSeconds, cancel, onProgress, knownOptimum, stateKernels: simKernelsBackend() });
     post({ type: 'done', result, cancelled: cancel.cancelled });
   } catch (e) {
     const err = e as Error;

@@ -55,7 +55,11 @@ export function createQaoaAnsatz(opts: QaoaAnsatzOptions): Ansatz {
     prepare(params, into) {
       if (!theta || !initial) {
         const s = resetToPlus(n, into, opts.stateOptions);
-        for (let l = 0; l < p; l++) applyQaoaLayer(s, energyDiagonal, -params[l], params[p + l]);
+        // Injected kernels (e.g. WebAssembly) when they hold this state; the JS kernels otherwise.
+        const fast = opts.stateOptions?.kernels;
+        for (let l = 0; l < p; l++) {
+          if (!fast?.applyQaoaLayer(s, energyDiagonal, -params[l], params[p + l])) applyQaoaLayer(s, energyDiagonal, -params[l], params[p + l]);
+        }
         return s;
       }
       const s = resetToZero(n, into, opts.stateOptions);

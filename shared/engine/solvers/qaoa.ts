@@ -33,7 +33,7 @@ export const qaoaSolver = defineSolver({
         encoding, layers: s.layers, optimizer: s.optimizer, shots: s.shots, readoutShots: s.readoutShots,
         restarts: s.restarts, maxIterations: s.maxIterations, rng, shouldStop, onIteration,
         warmStart: warm ? { assignment: warm, epsilon: s.warmStartEpsilon } : undefined,
-        stateOptions: { maxQubits: s.maxQubits }, cvarAlpha: s.cvarAlpha,
+        stateOptions: { maxQubits: s.maxQubits, kernels: ctx.stateKernels }, cvarAlpha: s.cvarAlpha,
       }),
     }, s.warmStart ? () => warmStartFrom(problem, rng) : null);
   },

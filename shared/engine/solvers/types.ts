@@ -1,4 +1,5 @@
 import type { ZodType } from 'zod';
+import type { LayerBackend } from '../statevector/backend';
 import type { CircuitSpec } from '../circuits/of-run';
 import type { NoiseReport, RunDeviceTime } from '../circuits/run-analysis';
 import type { CircuitSummary } from '../circuits/summary';
@@ -97,6 +98,8 @@ export interface SolveContext {
    * orchestrator stops a heuristic that reaches it: searching on cannot find anything better.
    */
   knownOptimum?: () => number | null;
+  /** Faster statevector kernels the host loaded (server/CLI: WebAssembly); JS kernels without. */
+  stateKernels?: LayerBackend;
 }
 
 export type SolverFamily = 'exact' | 'bound' | 'heuristic' | 'variational';

@@ -6,6 +6,7 @@
  * The memory cost (16·2ⁿ bytes) is checked against a qubit limit BEFORE anything is allocated,
  * so an oversized request fails fast with a message instead of exhausting the machine.
  */
+import type { LayerBackend } from './backend';
 
 export interface StateVector {
   numQubits: number;
@@ -20,6 +21,8 @@ export interface StateOptions {
   maxQubits?: number;
   /** Allocate on a SharedArrayBuffer (needed by the worker-thread runner, parallel-layers.ts). */
   shared?: boolean;
+  /** Faster layer kernels (backend.ts); states are allocated through them when they can. */
+  kernels?: LayerBackend;
 }
 
 /** Bytes a state of n qubits needs: 2ⁿ complex doubles. */
@@ -69,6 +72,8 @@ function allocate(numQubits: number, opts?: StateOptions): Float64Array {
   checkQubitCount(numQubits, opts);
   try {
     const length = 2 * 2 ** numQubits;
+    const own = opts?.kernels?.allocate(numQubits);
+    if (own) return own;
     return opts?.shared ? new Float64Array(new SharedArrayBuffer(8 * length)) : new Float64Array(length);
   } catch {
     // The engine cannot see free memory (no process/os reads); report the failure in the same words.
