@@ -7,7 +7,10 @@
  */
 import { buildCompactNetwork } from '../../../shared/engine/network/build';
 import { bindProblem } from '../../../shared/engine/problem/bind';
-import { describeEncoding } from '../../../shared/engine/solvers/orchestrate';
+import { describeEncoding, solveProblem } from '../../../shared/engine/solvers/orchestrate';
+import { compactFromEdges } from '../../../shared/engine/network/build';
+import { bestOf } from '../../../shared/engine/problem/compare';
+import { isFeasible } from '../../../shared/engine/problem/evaluate';
 import { getSolver, listSolvers, solverRegistry } from '../../../shared/engine/solvers/registry';
 import { encodeBisection } from '../../../shared/engine/encodings/bisection';
 import { firstBisectionStep } from '../../../shared/engine/variational/recursive-bisection';
@@ -99,5 +102,20 @@ describe('honest names', () => {
     expect(getSolver('tabu').label).toMatch(/breakout-style/); // after Benlic & Hao 2013, simplified
     expect(getSolver('gw').label).toMatch(/Goemans–Williamson-style/); // low-rank SDP, not the full SDP
     expect(OPTIMIZER_LABELS.cobyla).toMatch(/COBYLA-style/); // optimizers/cobyla.ts: no constraints
+  });
+});
+
+describe('samples carry their feasibility', () => {
+  test('QAOA read-out on a balanced split: every sample says whether it keeps the balance rule, and the answer is the best feasible one', async () => {
+    // A 6-depot ring with one lane doubled: balanced bisections cut at least 2 lanes (ring, common practice).
+    const edges: [number, number, number][] = [[0, 1, 1], [1, 2, 1], [2, 3, 1], [3, 4, 1], [4, 5, 1], [5, 0, 1]];
+    const problem = bindProblem(compactFromEdges(6, edges), { kind: 'bisection', tolerance: 0 });
+    const r = await solveProblem(problem, 'qaoa', { layers: 1, restarts: 1, maxIterations: 20, readoutShots: 256 }, { seed: 3, timeLimitSeconds: 20 }, { bounds: false });
+    expect(r.samples!.length).toBeGreaterThan(1);
+    for (const x of r.samples!) expect(x.feasible).toBe(isFeasible(problem, x.assignment));
+    expect(r.samples!.some((x) => !x.feasible)).toBe(true); // the read-out does hold unbalanced samples
+    const best = bestOf('min', r.samples!, (x) => x);
+    expect(best!.feasible).toBe(true);
+    expect(r.value).toBeLessThanOrEqual(best!.value);
   });
 });
