@@ -87,7 +87,8 @@ async function signIn(context: BrowserContext, role: Role) {
 
 async function settle(page: Page) {
   await page.waitForLoadState('networkidle');
-  await page.waitForFunction(() => !/Loading/.test(document.body.innerText), undefined, { timeout: 15_000 }).catch(() => undefined);
+  // Audit the screen itself, not its loading state (a busy machine can take a while).
+  await page.waitForFunction(() => document.body.innerText.trim().length > 0 && !/Loading/.test(document.body.innerText), undefined, { timeout: 45_000 });
   await page.evaluate(() => document.fonts.ready);
   await page.waitForTimeout(300);
 }
