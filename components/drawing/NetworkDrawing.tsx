@@ -60,6 +60,10 @@ const LABEL_PX = 11;
 const LabelLayer = memo(function LabelLayer(p: { labels: readonly PlacedLabel[] }) {
   return (
     <G>
+      {/* A light plate under each name keeps it readable where lanes run behind it. */}
+      {p.labels.map((l) => (
+        <Rect key={`plate-${l.index}`} x={l.box.x} y={l.box.y + 1} width={l.box.w} height={l.box.h - 2} rx={3} fill={colors.surface} opacity={0.85} />
+      ))}
       {p.labels.map((l) => (
         <SvgText key={l.index} x={l.x} y={l.y} fontSize={LABEL_PX} fontFamily={fonts.medium} fill={colors.text} textAnchor={l.anchor} testID="depot-label">
           {l.text}
