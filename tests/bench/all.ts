@@ -1,6 +1,6 @@
 /**
  * `npm run bench`: runs every benchmark as its own process — simulator (sim.ts), classical
- * (classical.ts), solve service (service.ts), load (load.ts) — one after another (they would
+ * (classical.ts), solve service (service.ts), load (load.ts), large variational (large-variational.ts) — one after another (they would
  * disturb each other's timings on 2 cores), reads the markdown each prints, and prints ONE table
  * of ratios (metric, measured, target, ratio = measured / target, met?). Each benchmark rewrites
  * its own section of docs/benchmarks.md; this script writes the `## Summary` section at the top
@@ -29,7 +29,7 @@ const full = fullAt >= 0 ? args[fullAt + 1].split(',') : [];
 const shortFor = (b: { name: string }) => quick && !full.includes(b.name);
 const reuseAt = args.indexOf('--reuse');
 const reuse = reuseAt >= 0 ? args[reuseAt + 1].split(',') : [];
-const SECTION: Record<string, string> = { sim: '## Simulator', classical: '## Classical', service: '## Service', load: '## Load' };
+const SECTION: Record<string, string> = { sim: '## Simulator', classical: '## Classical', service: '## Service', load: '## Load', variational: '## Large variational' };
 
 /** The current section of docs/benchmarks.md for one benchmark, and the date its run wrote. */
 function sectionOf(name: string): { text: string; written: string } | null {
@@ -49,6 +49,7 @@ const BENCHES: Bench[] = [
   { name: 'classical', file: 'tests/bench/classical.ts', args: [], quickArgs: ['--limit', '2', '--skip-exact', '--skip-milp', '--skip-partition', '--no-write'] },
   { name: 'service', file: 'tests/bench/service.ts', args: [], quickArgs: ['--runs', '8', '--paced', '5', '--cancels', '2', '--no-write'] },
   { name: 'load', file: 'tests/bench/load.ts', args: [], quickArgs: ['--quick'] },
+  { name: 'variational', file: 'tests/bench/large-variational.ts', args: [], quickArgs: ['--limit', '20', '--instances', 'G11', '--batch-study', '', '--no-write'] },
 ];
 
 export interface RatioRow { bench: string; metric: string; measured: number; target: number; better: 'lower' | 'higher'; unit: string }
@@ -91,6 +92,13 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
   if (bench === 'classical') {
     const m = /Mean gap to best known: ([\d.]+) %/.exec(out);
     if (m) rows.push({ bench, metric: 'G-set tabu mean gap to best known', measured: Number(m[1]), target: 0.1, better: 'lower', unit: '%' });
+  }
+  if (bench === 'variational') {
+    const m = /Mean gap to best known: rqaoa ([\d.]+) % \(before refinement ([\d.]+) %\), qaoa-blocks ([\d.]+) %/.exec(out);
+    if (m) {
+      rows.push({ bench, metric: 'G-set rqaoa mean gap to best known (subset)', measured: Number(m[1]), target: 3, better: 'lower', unit: '%' });
+      rows.push({ bench, metric: 'G-set qaoa-blocks mean gap to best known (subset)', measured: Number(m[3]), target: 3, better: 'lower', unit: '%' });
+    }
   }
   if (bench === 'service') {
     const m = /throughput ratio: \*\*([\d.]+)\*\*/.exec(out);

@@ -4,11 +4,11 @@
  * over the blocks (after Zhou, Du, Tian, Tao, arXiv:2205.11762 (2022); see variational/decompose.ts).
  */
 import { freeDepots } from '../classical/result';
-import { crossingWeight } from '../problem/evaluate';
+import { crossingWeight, isBalanced } from '../problem/evaluate';
 import { createRng } from '../random';
 import { decomposeBisection, decomposeMaxcut } from '../variational/decompose';
 import { defineSolver } from './define';
-import { intField, settingsObject } from './settings';
+import { booleanField, intField, settingsObject } from './settings';
 import type { TracePoint } from './types';
 /** Depots per block unless the block size setting says otherwise. */
 const DEFAULT_BLOCK_SIZE = 14;
@@ -22,6 +22,8 @@ const settings = settingsObject({
   maxIterations: intField(150, 1, 5000),
   mergeExactLimit: intField(16, 1, 20),
   rounds: intField(3, 0, 20),
+  /** Classical local search on the answer (reported with the value before it; decompose.ts). */
+  refine: booleanField(true),
 });
 
 /** Most slack qubits a block's bisection encoding adds (encodings/bisection.ts maxSlackBits default). */
@@ -68,12 +70,17 @@ export const qaoaBlocksSolver = defineSolver({
     const notes = [
       `${outcome.merge.blocks} block(s) of at most ${s.blockSize} depots (largest circuit ${largest} qubits); block orientations by ${how}${problem.kind === 'bisection' ? ' under the balance rule' : ''} (gain ${outcome.merge.gain})`,
       problem.kind === 'maxcut'
-        ? `merged cut ${outcome.mergedValue}; block re-solves with fixed surroundings gained ${outcome.roundsGain}; 1-flip refinement made ${outcome.refineFlips} flip(s)`
-        : `merged crossing weight ${outcome.mergedValue}; flip-and-swap refinement inside the balance window made ${outcome.refineFlips} move(s)`,
+        ? `merged cut ${outcome.mergedValue}; block re-solves with fixed surroundings gained ${outcome.roundsGain}; ${s.refine ? `1-flip refinement made ${outcome.refineFlips} flip(s)` : 'no classical refinement'}`
+        : `merged crossing weight ${outcome.unrefinedValue}; ${s.refine ? `whole-block moves and flip-and-swap refinement inside the balance window made ${outcome.refineFlips} move(s)` : 'no classical refinement'}`,
+      s.refine ? `classical local search refined the answer: ${outcome.unrefinedValue} before it${problem.kind === 'maxcut' ? ' (after the merge; the improvement rounds interleave with it)' : ''}` : 'the answer is the blocks\' QAOA and the merge alone (refine off)',
       'heuristic: no optimality guarantee',
     ];
     if (outcome.stopped) notes.push('stopped early (time limit or cancel): later blocks kept their starting sides');
+    const feasible = isBalanced(problem, assignment);
+    if (!feasible) notes.push('the answer breaks the balance rule (reported, not hidden)');
     return {
+      ...(feasible ? {} : { infeasible: true }),
+      refinement: { applied: s.refine, unrefinedValue: outcome.unrefinedValue, unrefinedInfeasible: !outcome.unrefinedFeasible, moves: outcome.refineFlips },
       value: crossingWeight(problem, assignment),
       assignment,
       bound: null,

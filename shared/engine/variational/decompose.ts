@@ -46,6 +46,12 @@ export interface DecomposeOptions {
    * around it fixed at their current sides (lanes to them become fields); kept when the cut rises.
    */
   rounds: number;
+  /**
+   * Classical local search on the answer (max-cut: 1-flip between and after the rounds;
+   * bisection: whole-block pair moves, balance repair, flips and swaps). Off: the answer is the
+   * blocks' QAOA, the merge and the QAOA rounds alone (a bisection may then miss the balance).
+   */
+  refine: boolean;
 }
 
 export interface BlockReport {
@@ -67,6 +73,9 @@ export interface DecomposeOutcome {
   /** Cut gained by the improvement rounds (block re-solves with fixed surroundings). */
   roundsGain: number;
   refineFlips: number;
+  /** Value before any classical local search: after the merge (refine on) or the final one (off). */
+  unrefinedValue: number;
+  unrefinedFeasible: boolean;
   evaluations: number;
   shots: number;
   trace: VariationalTracePoint[];
@@ -285,9 +294,11 @@ export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: R
   let refineFlips = 0;
   let roundsGain = 0;
   for (let round = 0; round < opts.rounds && blockCount > 1 && !control.shouldStop(); round++) {
-    const polished = polish(current);
-    refineFlips += polished.flips;
-    current = polished.sides;
+    if (opts.refine) {
+      const polished = polish(current);
+      refineFlips += polished.flips;
+      current = polished.sides;
+    }
     const startValue = crossingWeight(problem, current);
     currentValue = startValue;
     for (const list of members) {
@@ -317,9 +328,11 @@ export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: R
 
   // 5. Final 1-flip refinement on the whole network (free depots only).
   const st = createFlipState(network, current);
-  refineFlips += polishMaxcut(problem, st, freeAll);
+  if (opts.refine) refineFlips += polishMaxcut(problem, st, freeAll);
   const final = Int32Array.from(st.side);
   return {
+    unrefinedValue: opts.refine ? mergedValue : crossingWeight(problem, final),
+    unrefinedFeasible: true,
     assignment: final,
     blocks,
     blockOf,
@@ -432,6 +445,7 @@ export function decomposeBisection(problem: Problem, opts: DecomposeOptions, rng
 
   const beforeMerge = crossingWeight(problem, assignment);
   let mergeMethod: DecomposeOutcome['merge']['method'] = 'single';
+  let blockFixed = new Uint8Array(blockCount);
   if (blockCount > 1) {
     const couplings = blockCouplings(network, blockOf, blockCount, assignment);
     const imbalance = new Float64Array(blockCount);
@@ -446,19 +460,27 @@ export function decomposeBisection(problem: Problem, opts: DecomposeOptions, rng
     const { flip, method } = orientForBisection(couplings, imbalance, total, balanceWindow(problem), fixed, opts.mergeExactLimit);
     mergeMethod = method;
     for (let i = 0; i < n; i++) if (flip[blockOf[i]] === 1) assignment[i] ^= 1;
-    // The split found few lanes between blocks, so a block kept whole on one side is often
-    // cheaper than the block's own bisection: try that per pair of free blocks (one whole on
-    // each side keeps the balance), kept when the crossing weight drops inside the window.
-    wholeBlockMoves(problem, members, fixed, assignment, () => control.shouldStop());
+    blockFixed = fixed;
   }
+  const unrefinedValue = crossingWeight(problem, assignment);
+  const unrefinedFeasible = isBalanced(problem, assignment);
+  let refineFlips = 0;
+  // The split found few lanes between blocks, so a block kept whole on one side is often
+  // cheaper than the block's own bisection: try that per pair of free blocks (one whole on
+  // each side keeps the balance), kept when the crossing weight drops inside the window.
+  if (opts.refine && blockCount > 1) refineFlips += wholeBlockMoves(problem, members, blockFixed, assignment, () => control.shouldStop());
   const mergedValue = crossingWeight(problem, assignment);
   control.onStep?.(blockCount / (blockCount + 1), mergedValue);
 
   const free = freeDepots(problem.pins);
   const st = createFlipState(network, assignment);
-  if (!isBalanced(problem, st.side)) repairBalance(problem, st, free);
-  const refineFlips = polishBisection(problem, st, free);
+  if (opts.refine) {
+    if (!isBalanced(problem, st.side)) refineFlips += repairBalance(problem, st, free);
+    refineFlips += polishBisection(problem, st, free);
+  }
   return {
+    unrefinedValue,
+    unrefinedFeasible,
     assignment: Int32Array.from(st.side),
     blocks,
     blockOf,

@@ -123,7 +123,7 @@ describe('qaoa-blocks solver', () => {
 
   test('keeps pins and merges by recursive QAOA when there are more free blocks than the exact limit', () => {
     const problem = maxcut(40, randomGraph(40, 0.15, 21), { 0: 1, 39: 0 });
-    const out = decomposeMaxcut(problem, { blockSize: 6, layers: 1, shots: 0, readoutShots: 256, restarts: 1, maxIterations: 40, mergeExactLimit: 3, rounds: 1 }, createRng(2), { shouldStop: () => false });
+    const out = decomposeMaxcut(problem, { blockSize: 6, layers: 1, shots: 0, readoutShots: 256, restarts: 1, maxIterations: 40, mergeExactLimit: 3, rounds: 1, refine: true }, createRng(2), { shouldStop: () => false });
     expect(out.merge.method).toBe('rqaoa');
     expect(out.assignment[0]).toBe(1);
     expect(out.assignment[39]).toBe(0);
@@ -193,7 +193,7 @@ describe('qaoa-blocks at sizes that used to crash', () => {
 
   test('400 depots, 50 free blocks: the merge runs recursive QAOA instead of a 50-qubit circuit', () => {
     const problem = maxcut(400, randomGraph(400, 0.015, 8), { 5: 1 });
-    const out = decomposeMaxcut(problem, { blockSize: 8, layers: 1, shots: 0, readoutShots: 64, restarts: 1, maxIterations: 15, mergeExactLimit: 16, rounds: 0 }, createRng(3), { shouldStop: () => false });
+    const out = decomposeMaxcut(problem, { blockSize: 8, layers: 1, shots: 0, readoutShots: 64, restarts: 1, maxIterations: 15, mergeExactLimit: 16, rounds: 0, refine: true }, createRng(3), { shouldStop: () => false });
     expect(out.merge.method).toBe('rqaoa');
     expect(out.merge.blocks).toBeGreaterThan(16);
     expect(out.assignment[5]).toBe(1);
@@ -216,5 +216,24 @@ describe('qaoa-blocks on the G-set instances that used to crash (tests/data/gset
     const r = await solveProblem(problem, 'qaoa-blocks', { maxIterations: 10, rounds: 0 }, { seed: 1, timeLimitSeconds: 3 }, { bounds: false });
     expect(r.assignment).toHaveLength(2000);
     expect(r.notes.join(' ')).toMatch(/1[4-9]\d block\(s\)/);
+  });
+});
+
+describe('qaoa-blocks refine setting (honest comparison with classical solvers)', () => {
+  test('max-cut: refine off reports no classical moves and its own value as unrefined; refine on keeps the value before it', async () => {
+    const problem = maxcut(60, randomGraph(60, 0.1, 7));
+    const off = await solveProblem(problem, 'qaoa-blocks', { refine: false, maxIterations: 30 }, { seed: 1, timeLimitSeconds: 30 }, { bounds: false });
+    expect(off.refinement).toEqual({ applied: false, unrefinedValue: off.value, unrefinedInfeasible: false, moves: 0 });
+    const on = await solveProblem(problem, 'qaoa-blocks', { maxIterations: 30 }, { seed: 1, timeLimitSeconds: 30 }, { bounds: false });
+    expect(on.refinement!.applied).toBe(true);
+    expect(on.value).toBeGreaterThanOrEqual(on.refinement!.unrefinedValue);
+    expect(on.notes.join(' ')).toMatch(/refined the answer/);
+  });
+
+  test('bisection with refine off: no balance repair — the answer is reported infeasible when it misses the window', async () => {
+    const problem = bindProblem(compactFromEdges(60, randomGraph(60, 0.1, 9)), { kind: 'bisection' });
+    const r = await solveProblem(problem, 'qaoa-blocks', { refine: false, maxIterations: 20 }, { seed: 2, timeLimitSeconds: 30 }, { bounds: false });
+    expect(r.refinement).toMatchObject({ applied: false, moves: 0, unrefinedValue: r.value });
+    expect(r.infeasible === true).toBe(!isBalanced(problem, r.assignment));
   });
 });
