@@ -78,7 +78,7 @@ export const RQAOA_MAX_REMAINDER = 20;
 /**
  * The batching rule both rqaoa and the block merge use: one elimination per round up to 300
  * spins (as in the paper), 1 % of the spins left per round above (measured on G11 and G14,
- * 800 depots: 1 % per round costs 0.2–1.1 % of the cut against one per round at a third of the
+ * 800 depots: 1 % per round costs 0.2–1.1 % of the cut against one per round at about a fifth of the
  * time; docs/benchmarks.md).
  */
 export function defaultBatchFraction(spins: number): number {
