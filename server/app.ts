@@ -10,6 +10,7 @@ import type { Deps } from './deps';
 import { apiRoutes } from './routes';
 import { errorBody, mountRoutes, type RouteSpec } from './lib/routes';
 import { throttleTouch } from './middleware/session-touch';
+import { serveWebAssets } from './lib/static-assets';
 
 export const SESSION_COOKIE = 'spinyard.sid';
 export const SESSION_MAX_AGE_MS = 14 * 24 * 3600 * 1000;
@@ -101,7 +102,8 @@ export function createApp(deps: Deps, extras: AppExtras = {}) {
 
   const webDir = config.WEB_DIR ?? path.resolve(__dirname, '..', 'dist', 'web');
   const indexHtml = path.join(webDir, 'index.html');
-  app.use(express.static(webDir, { index: false, maxAge: '1h', setHeaders: (res, file) => { if (file.includes(`${path.sep}_expo${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable'); } }));
+  // Brotli/gzip copies written at build; hashed names cached for a year, pages revalidated (lib/static-assets).
+  app.use(serveWebAssets(webDir));
   // Single-page app fallback (Express 5 has no '*' route): every other GET gets index.html.
   app.use((req, res, next) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') return next();

@@ -83,3 +83,12 @@ export const api = {
   delete: <T>(path: string, body?: unknown) => apiRequest<T>('DELETE', path, body),
   upload: <T>(path: string, form: FormData) => apiRequest<T>('POST', path, undefined, { form }),
 };
+
+/**
+ * A Server-Sent Events stream from the API (same origin, so the session cookie goes along), or
+ * null where the platform has no EventSource (callers then poll).
+ */
+export function openEventStream(path: string): EventSource | null {
+  const Source = (globalThis as { EventSource?: typeof EventSource }).EventSource;
+  return Source ? new Source(`${base()}/api${path}`, { withCredentials: true }) : null;
+}

@@ -1,23 +1,16 @@
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { keepPreviousData, useMutation, useQueries, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../api/client';
 import type { VersionDetail } from '../../shared/schemas/networks';
 import type { CreateRunBody, PreviewBody, RunDetail, RunListItem, RunPreview, RunProblem, SolverOption } from '../runs/types';
 import { STALE } from './staleTimes';
+import { runKeys } from './runKeys';
+import { useRunStream } from './useRunStream';
 
-/** While any job of a run is waiting or working, the run is polled this often (ms). */
+/** While any job of a run is waiting or working and its progress stream is not open, the run is polled this often (ms). */
 export const LIVE_POLL_MS = 1000;
 
-export const runKeys = {
-  root: ['runs'] as const,
-  lists: () => [...runKeys.root, 'list'] as const,
-  list: (filters: { networkId?: number; status?: string }) => [...runKeys.lists(), filters] as const,
-  detail: (id: number) => [...runKeys.root, 'detail', id] as const,
-  solvers: () => [...runKeys.root, 'solvers'] as const,
-  defaults: (versionId: number, problem: RunProblem) => [...runKeys.root, 'defaults', versionId, problem] as const,
-  preview: (body: PreviewBody) => [...runKeys.root, 'preview', body] as const,
-  version: (networkId: number, versionId: number) => [...runKeys.root, 'version', networkId, versionId] as const,
-};
+export { runKeys };
 
 /** True while the run still changes (some job queued or running). */
 export function isLive(run: Pick<RunDetail, 'status' | 'jobs'> | undefined | null): boolean {
@@ -43,19 +36,25 @@ export function useRunsQuery(filters: { networkId?: number; status?: string } = 
 }
 
 /**
- * One run with its jobs. Polls every second while any job is queued or running and stops by
- * itself when the run is done; the cache keeps the run, so leaving the screen and coming back
- * shows the latest state at once and polling resumes.
+ * One run with its jobs. While any job is queued or running, the server's progress stream
+ * (useRunStream) updates the cache as events arrive; only when the stream is not open (not yet,
+ * or it failed) is the run polled every second. Both stop by themselves when the run is done;
+ * the cache keeps the run, so leaving the screen and coming back shows the latest state at once.
  */
 export function useRunQuery(id: number | null | undefined) {
-  return useQuery({
+  const [live, setLive] = useState(false);
+  const streaming = useRunStream(id, live);
+  const query = useQuery({
     queryKey: runKeys.detail(id ?? 0),
     enabled: !!id,
     staleTime: STALE.live,
     queryFn: () => api.get<RunDetail>(`/runs/${id}`),
-    refetchInterval: (query) => (isLive(query.state.data) ? LIVE_POLL_MS : false),
+    refetchInterval: (q) => (isLive(q.state.data) && !streaming ? LIVE_POLL_MS : false),
     refetchIntervalInBackground: true,
   });
+  const nowLive = isLive(query.data);
+  if (nowLive !== live) setLive(nowLive);
+  return query;
 }
 
 /** Several runs at once (compare). Each polls while live, like useRunQuery. */

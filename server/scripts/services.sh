@@ -145,10 +145,13 @@ build_sim_kernels() {
 # Rebuild the exported web app when any client source is newer than the build.
 build_web_if_stale() {
   local out="$ROOT/dist/web" marker="$ROOT/dist/web/index.html"
-  if [ "${1:-}" != "--force" ] && [ -f "$marker" ] && [ -z "$(cd "$ROOT" && find app components shared assets app.json package-lock.json babel.config.js -newer "$marker" -type f -print -quit 2>/dev/null)" ]; then
+  if [ "${1:-}" != "--force" ] && [ -f "$marker" ] && [ -z "$(cd "$ROOT" && find app components shared assets app.json package-lock.json babel.config.js metro.config.js -newer "$marker" -type f -print -quit 2>/dev/null)" ]; then
     return 0
   fi
   say "building the web app (expo export)…"
-  (cd "$ROOT" && BROWSER=none npx expo export --platform web --output-dir dist/web >"$ROOT/.data/expo-export.log" 2>&1) \
+  (cd "$ROOT" && BROWSER=none npx expo export --platform web --source-maps --output-dir dist/web >"$ROOT/.data/expo-export.log" 2>&1) \
     || { tail -30 "$ROOT/.data/expo-export.log" >&2; fail "web build failed (full log: .data/expo-export.log)"; }
+  # Source maps out of the served folder (dist/web-maps), brotli and gzip copies beside the files.
+  (cd "$ROOT" && npx tsx server/scripts/finish-web-build.ts dist/web dist/web-maps >>"$ROOT/.data/expo-export.log" 2>&1) \
+    || { tail -30 "$ROOT/.data/expo-export.log" >&2; fail "finishing the web build failed (full log: .data/expo-export.log)"; }
 }

@@ -8,7 +8,9 @@
  *     (`tsx server/worker.ts`): drain time, runs per minute, p50/p95 time from release to finish.
  * Services first: `bash -c 'source server/scripts/services.sh; profile_env test; start_mariadb; start_redis'`.
  *
- *   npx tsx tests/bench/load.ts [--seconds 8] [--connections 50] [--runs 100] [--quick] [--no-write]
+ *   npx tsx tests/bench/load.ts [--seconds 8] [--connections 50] [--runs 100] [--quick] [--no-write] [--route /runs] [--no-drain]
+ * --route keeps only the routes whose name contains the text, --no-drain skips part 2 (both for
+ * looking into one route; they imply --no-write).
  * LOAD_SQL=1 prints the SQL of each counted answer.
  * Prints one line `LOAD-METRICS {json}` for tests/bench/all.ts and rewrites `## Load` in docs/benchmarks.md.
  */
@@ -26,7 +28,10 @@ const quick = args.includes('--quick');
 const SECONDS = opt('--seconds', quick ? 3 : 8);
 const CONNECTIONS = opt('--connections', 50);
 const RUNS = opt('--runs', quick ? 30 : 100);
-const write = !args.includes('--no-write') && !quick;
+const routeAt = args.indexOf('--route');
+const ROUTE = routeAt >= 0 ? args[routeAt + 1] : null;
+const DRAIN = !args.includes('--no-drain');
+const write = !args.includes('--no-write') && !quick && !ROUTE && DRAIN;
 const PORT = 3131;
 const DOC = path.join(__dirname, '../../docs/benchmarks.md');
 
@@ -121,7 +126,7 @@ async function main() {
   // Untimed warm-up: JIT, connection pools and caches, so the first measured route is not penalised.
   await autocannon({ url: `${base}/api/networks`, connections: CONNECTIONS, duration: 2, headers: { authorization: `Bearer ${token}` } });
   const rows: RouteRow[] = [];
-  for (const [route, url] of [...routes, ['GET /networks (cookie session)', '/api/networks'] as [string, string]]) {
+  for (const [route, url] of [...routes, ['GET /networks (cookie session)', '/api/networks'] as [string, string]].filter(([r]) => !ROUTE || r.includes(ROUTE))) {
     const headers: Record<string, string> = route.includes('cookie') ? { cookie } : { authorization: `Bearer ${token}` };
     // SQL statements for one answer (N+1 queries show here whatever the machine's load).
     await new Promise((r) => setTimeout(r, 1500)); // answers still in flight from the previous route finish first
@@ -141,29 +146,33 @@ async function main() {
   }
 
   // Queue drain: runs created held (not timed), released at once, two worker processes.
-  const small = networks.slice(0, 4);
-  const smallVersions: number[] = [];
-  for (let i = 0; i < small.length; i++) smallVersions.push((await createNetwork(deps, actor, networkBody(`Small ${i}`, 24, randomEdges(24, 0.2, 50 + i)), { source: 'api' })).versionId);
-  const held: number[] = [];
-  for (let i = 0; i < RUNS; i++) held.push((await createRun(deps, { ...actor, role: 'owner' } as never, { versionId: smallVersions[i % smallVersions.length], problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 1, seed: i }, { hold: true })).id);
-  const workers = [startWorkerProcess({ WORKER_CONCURRENCY: '1' }), startWorkerProcess({ WORKER_CONCURRENCY: '1' })];
-  await new Promise((r) => setTimeout(r, 4000)); // workers load the engine before the clock starts
-  const t0 = performance.now();
-  await Promise.all(held.map((id) => releaseRun(deps, id)));
-  const finishedAt = new Map<number, number>();
-  const deadline = Date.now() + 600_000;
-  while (finishedAt.size < held.length && Date.now() < deadline) {
-    const done = await deps.models.Run.findAll({ where: { id: held.filter((id) => !finishedAt.has(id)), status: ['succeeded', 'failed', 'partial', 'cancelled'] }, attributes: ['id'] });
-    const now = performance.now();
-    for (const d of done) finishedAt.set(d.get('id') as number, now - t0);
-    await new Promise((r) => setTimeout(r, 100));
+  const drain = DRAIN ? await drainQueue() : { runs: 0, finished: 0, succeeded: 0, seconds: NaN, perMinute: NaN, p50: NaN, p95: NaN };
+  async function drainQueue() {
+    const small = networks.slice(0, 4);
+    const smallVersions: number[] = [];
+    for (let i = 0; i < small.length; i++) smallVersions.push((await createNetwork(deps, actor, networkBody(`Small ${i}`, 24, randomEdges(24, 0.2, 50 + i)), { source: 'api' })).versionId);
+    const held: number[] = [];
+    for (let i = 0; i < RUNS; i++) held.push((await createRun(deps, { ...actor, role: 'owner' } as never, { versionId: smallVersions[i % smallVersions.length], problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 1, seed: i }, { hold: true })).id);
+    const workers = [startWorkerProcess({ WORKER_CONCURRENCY: '1' }), startWorkerProcess({ WORKER_CONCURRENCY: '1' })];
+    await new Promise((r) => setTimeout(r, 4000)); // workers load the engine before the clock starts
+    const t0 = performance.now();
+    await Promise.all(held.map((id) => releaseRun(deps, id)));
+    const finishedAt = new Map<number, number>();
+    const deadline = Date.now() + 600_000;
+    while (finishedAt.size < held.length && Date.now() < deadline) {
+      const done = await deps.models.Run.findAll({ where: { id: held.filter((id) => !finishedAt.has(id)), status: ['succeeded', 'failed', 'partial', 'cancelled'] }, attributes: ['id'] });
+      const now = performance.now();
+      for (const d of done) finishedAt.set(d.get('id') as number, now - t0);
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    const drainSeconds = (performance.now() - t0) / 1000;
+    const succeeded = await deps.models.Run.count({ where: { id: held, status: 'succeeded' } });
+    await Promise.all(workers.map((w) => w.stop()));
+    const finish = [...finishedAt.values()];
+    const result = { runs: held.length, finished: finishedAt.size, succeeded, seconds: drainSeconds, perMinute: (60 * finishedAt.size) / drainSeconds, p50: quantile(finish, 0.5) / 1000, p95: quantile(finish, 0.95) / 1000 };
+    console.log(`drain: ${result.finished}/${result.runs} runs in ${drainSeconds.toFixed(1)} s (${result.succeeded} succeeded)`);
+    return result;
   }
-  const drainSeconds = (performance.now() - t0) / 1000;
-  const succeeded = await deps.models.Run.count({ where: { id: held, status: 'succeeded' } });
-  await Promise.all(workers.map((w) => w.stop()));
-  const finish = [...finishedAt.values()];
-  const drain = { runs: held.length, finished: finishedAt.size, succeeded, seconds: drainSeconds, perMinute: (60 * finishedAt.size) / drainSeconds, p50: quantile(finish, 0.5) / 1000, p95: quantile(finish, 0.95) / 1000 };
-  console.log(`drain: ${drain.finished}/${drain.runs} runs in ${drainSeconds.toFixed(1)} s (${drain.succeeded} succeeded)`);
 
   await closeSolveQueue(deps).catch(() => undefined);
   await started.stop();

@@ -11,6 +11,7 @@ const mockPost = jest.fn(async (_path: string) => ({}));
 jest.mock('../../components/api/client', () => ({
   api: { get: (path: string) => mockGet(path), post: (path: string) => mockPost(path), delete: jest.fn() },
   ApiError: class extends Error {},
+  openEventStream: () => null, // no progress stream here: the screen falls back to polling (runs-stream.test.tsx has the stream)
 }));
 
 // Triangle, unit lanes: max cut = 2 (odd cycle C3: n − 1, common practice).
@@ -31,7 +32,7 @@ function runAt(step: number): RunDetail {
   };
 }
 
-test('the run screen polls about every second while a job runs, shows progress, cancels, and stops polling when done', async () => {
+test('without a progress stream the run screen polls about every second while a job runs, shows progress, cancels, and stops polling when done', async () => {
   let step = 0;
   const runCalls = () => mockGet.mock.calls.filter(([p]) => p === '/runs/9').length;
   mockGet.mockImplementation(async (path: string) => {

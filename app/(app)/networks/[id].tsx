@@ -1,5 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
-import { NetworkScreen } from '../../../components/networks/NetworkScreen';
+import { lazyScreen } from '../../../components/shell/lazy-screen';
+
+const NetworkScreen = lazyScreen('NetworkScreen'); // drawing code loads with the screen, not with sign-in
 
 export default function NetworkRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();

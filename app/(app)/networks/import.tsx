@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { ImportScreen } from '../../../components/networks/ImportScreen';
+import { lazyScreen } from '../../../components/shell/lazy-screen';
 import { RequirePermission } from '../../../components/shell/RequirePermission';
+
+const ImportScreen = lazyScreen('ImportScreen'); // drawing code loads with the screen, not with sign-in
 
 export default function ImportRoute() {
   const { networkId } = useLocalSearchParams<{ networkId?: string }>();

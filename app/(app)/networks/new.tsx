@@ -1,5 +1,7 @@
-import { NewNetworkScreen } from '../../../components/networks/NewNetworkScreen';
+import { lazyScreen } from '../../../components/shell/lazy-screen';
 import { RequirePermission } from '../../../components/shell/RequirePermission';
+
+const NewNetworkScreen = lazyScreen('NewNetworkScreen'); // drawing code loads with the screen, not with sign-in
 
 export default function NewNetworkRoute() {
   return (

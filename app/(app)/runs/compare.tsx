@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { CompareView } from '../../../components/runs/CompareView';
+import { lazyScreen } from '../../../components/shell/lazy-screen';
 import { useMeQuery } from '../../../components/queries/auth';
+
+const CompareView = lazyScreen('CompareView'); // drawing code loads with the screen, not with sign-in
 
 /** /runs/compare?ids=1,2,3 — runs side by side (analysts). */
 export default function CompareRunsScreen() {

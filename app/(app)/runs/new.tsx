@@ -1,9 +1,11 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
-import { RunSetup } from '../../../components/runs/RunSetup';
+import { lazyScreen } from '../../../components/shell/lazy-screen';
 import { useMeQuery } from '../../../components/queries/auth';
 import { Screen } from '../../../components/ui/Screen';
 import { Notice } from '../../../components/ui/Notice';
 import { Button } from '../../../components/ui/Button';
+
+const RunSetup = lazyScreen('RunSetup'); // drawing code loads with the screen, not with sign-in
 
 /** /runs/new?networkId=…&versionId=… — set up a run on one network version. */
 export default function NewRunScreen() {

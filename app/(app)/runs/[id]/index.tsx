@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { RunView } from '../../../../components/runs/RunView';
+import { lazyScreen } from '../../../../components/shell/lazy-screen';
 import { useMeQuery } from '../../../../components/queries/auth';
+
+const RunView = lazyScreen('RunView'); // drawing code loads with the screen, not with sign-in
 
 /** /runs/:id — live progress, then the scorecard and the partition (read-only for every member). */
 export default function RunDetailScreen() {

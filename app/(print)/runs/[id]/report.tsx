@@ -1,5 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
-import { RunReport } from '../../../../components/runs/RunReport';
+import { lazyScreen } from '../../../../components/shell/lazy-screen';
+
+const RunReport = lazyScreen('RunReport'); // drawing code loads with the screen, not with sign-in
 
 /** /runs/:id/report — the print-friendly report of a run. */
 export default function RunReportScreen() {
