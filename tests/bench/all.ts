@@ -1,12 +1,12 @@
 /**
  * `npm run bench`: runs every benchmark as its own process — simulator (sim.ts), classical
- * (classical.ts), solve service (service.ts), load (load.ts), large variational (large-variational.ts) — one after another (they would
+ * (classical.ts), solve service (service.ts), load (load.ts), large variational (large-variational.ts), web (web.ts) — one after another (they would
  * disturb each other's timings on 2 cores), reads the markdown each prints, and prints ONE table
  * of ratios (metric, measured, target, ratio = measured / target, met?). Each benchmark rewrites
  * its own section of docs/benchmarks.md; this script writes the `## Summary` section at the top
  * (machine, date, what ran) and leaves the other sections alone.
  *
- *   npx tsx tests/bench/all.ts [--quick] [--full load,…] [--only sim,classical,service,load] [--no-write]
+ *   npx tsx tests/bench/all.ts [--quick] [--full load,…] [--only sim,classical,service,load,web] [--no-write]
  * --quick passes each benchmark its short options (and they then leave their sections alone);
  * --full names benchmarks that run with their full options even under --quick; --reuse names
  * benchmarks that are not run again: their ratios are read from their current section of
@@ -29,7 +29,7 @@ const full = fullAt >= 0 ? args[fullAt + 1].split(',') : [];
 const shortFor = (b: { name: string }) => quick && !full.includes(b.name);
 const reuseAt = args.indexOf('--reuse');
 const reuse = reuseAt >= 0 ? args[reuseAt + 1].split(',') : [];
-const SECTION: Record<string, string> = { sim: '## Simulator', classical: '## Classical', service: '## Service', load: '## Load', variational: '## Large variational' };
+const SECTION: Record<string, string> = { sim: '## Simulator', classical: '## Classical', service: '## Service', load: '## Load', variational: '## Large variational', web: '## Web' };
 
 /** The current section of docs/benchmarks.md for one benchmark, and the date its run wrote. */
 function sectionOf(name: string): { text: string; written: string } | null {
@@ -50,6 +50,7 @@ const BENCHES: Bench[] = [
   { name: 'service', file: 'tests/bench/service.ts', args: [], quickArgs: ['--runs', '8', '--paced', '5', '--cancels', '2', '--no-write'] },
   { name: 'load', file: 'tests/bench/load.ts', args: [], quickArgs: ['--quick'] },
   { name: 'variational', file: 'tests/bench/large-variational.ts', args: [], quickArgs: ['--limit', '20', '--instances', 'G11', '--batch-study', '', '--no-write'] },
+  { name: 'web', file: 'tests/bench/web.ts', args: [], quickArgs: ['--quick'] },
 ];
 
 export interface RatioRow { bench: string; metric: string; measured: number; target: number; better: 'lower' | 'higher'; unit: string }
@@ -114,6 +115,28 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
       rows.push({ bench, metric: 'worst p99 latency, list/get routes, 50 connections', measured: j.worstP99Ms, target: 500, better: 'lower', unit: 'ms' });
       rows.push({ bench, metric: `drain ${j.drainRuns} small runs with 2 workers`, measured: j.drainSeconds, target: 120, better: 'lower', unit: 's' });
     }
+    // The runs list (the busiest list of a team with live runs) has its own, tighter target.
+    const runsRow = m ? (JSON.parse(m[1]) as { rows?: Array<{ route: string; p95: number }> }).rows?.find((r) => r.route === 'GET /runs') : undefined;
+    const fromTable = tableAfter(out, 'List and get routes')?.rows.find((r) => r[0] === '`GET /runs`');
+    const runsP95 = runsRow?.p95 ?? (fromTable ? num(fromTable[5]) : NaN);
+    if (Number.isFinite(runsP95)) rows.push({ bench, metric: 'runs list p95 latency, 50 connections', measured: runsP95, target: 100, better: 'lower', unit: 'ms' });
+  }
+  if (bench === 'web') {
+    const m = /^WEB-METRICS (.*)$/m.exec(out);
+    const j = m ? (JSON.parse(m[1]) as Record<string, number>) : null;
+    const t = tableAfter(out, 'Web');
+    const cell = (label: string) => {
+      const row = t?.rows.find((r) => r[0].startsWith(label));
+      return row ? num(row[1].split(/\s/)[0]) : NaN;
+    };
+    const first = j?.firstFormSeconds ?? cell('first visit: sign-in form shown');
+    const bytes = j ? j.firstBytes / 1000 : cell('first visit: bytes to the sign-in form');
+    const repeat = j?.repeatFormSeconds ?? cell('repeat visit: sign-in form shown');
+    const list = j ? Math.max(j.firstListSeconds, j.repeatListSeconds) : Math.max(cell('first visit: signing in'), cell('repeat visit: signing in'));
+    if (Number.isFinite(first)) rows.push({ bench, metric: 'first visit: sign-in form, throttled phone', measured: first, target: 3, better: 'lower', unit: 's' });
+    if (Number.isFinite(bytes)) rows.push({ bench, metric: 'first visit: bytes to the sign-in form', measured: bytes, target: 1000, better: 'lower', unit: 'kB' });
+    if (Number.isFinite(repeat)) rows.push({ bench, metric: 'repeat visit: sign-in form, throttled phone', measured: repeat, target: 1, better: 'lower', unit: 's' });
+    if (Number.isFinite(list)) rows.push({ bench, metric: 'signing in → networks list (slower of first/repeat)', measured: list, target: 2, better: 'lower', unit: 's' });
   }
   return rows;
 }

@@ -12,14 +12,15 @@
  * Services first: `bash -c 'source server/scripts/services.sh; profile_env test; start_mariadb; start_redis'`.
  * The web app is (re)built when stale (server/scripts/build-web.sh); --web-dir serves another export.
  *
- *   npx tsx tests/bench/web.ts [--repeat 3] [--live-seconds 20] [--web-dir dist/web] [--quick] [--no-write]
+ *   npx tsx tests/bench/web.ts [--repeat 3] [--live-seconds 20] [--web-dir dist/web] [--compare-with /tmp/old-export] [--quick] [--no-write] [--no-throttle]
+ * (an export folder must not sit under a dot-folder such as .data: Express will not send files there).
  * Prints one line `WEB-METRICS {json}` for tests/bench/all.ts and rewrites `## Web` in docs/benchmarks.md.
  */
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { BrowserContext, CDPSession, Page } from 'playwright-core';
+import type { Browser, BrowserContext, CDPSession, Page } from 'playwright-core';
 import { launchBrowser, PHONE } from '../support/browser';
 import { applyTestEnv } from '../support/env';
 
@@ -34,6 +35,8 @@ const quick = args.includes('--quick');
 const REPEAT = Number(opt('--repeat', quick ? '1' : '3'));
 const LIVE_SECONDS = Number(opt('--live-seconds', quick ? '10' : '20'));
 const WEB_DIR = path.resolve(ROOT, opt('--web-dir', 'dist/web'));
+/** Another export (an earlier build) measured first in the same run, for a before/after table. */
+const COMPARE = args.includes('--compare-with') ? path.resolve(ROOT, opt('--compare-with', '')) : null;
 const write = !args.includes('--no-write') && !quick;
 const throttled = !args.includes('--no-throttle'); // for finding faults only: the targets hold under throttling
 const PORT = 3133;
@@ -56,7 +59,6 @@ Object.assign(process.env, {
   LOG_LEVEL: 'silent',
   PORT: String(PORT),
   HOST: '127.0.0.1',
-  WEB_DIR,
 });
 
 interface Transfer { url: string; type: string; bytes: number; encoding: string; fromCache: boolean }
@@ -101,15 +103,74 @@ const LIST = '[data-testid="networks-list"], [data-testid="networks-table"]';
 
 interface Visit { formSeconds: number; formBytes: number; listSeconds: number; listBytes: number; transfers: Transfer[] }
 
+interface Metrics {
+  firstFormSeconds: number; firstBytes: number; firstListSeconds: number; firstListBytes: number;
+  repeatFormSeconds: number; repeatBytes: number; repeatListSeconds: number; repeatListBytes: number;
+  runScreenRequestsPerMinute: number;
+}
+interface Measured { metrics: Metrics; largest: Transfer[]; liveNote: string }
+
 async function main() {
-  execFileSync('bash', [path.join(ROOT, 'server', 'scripts', 'build-web.sh')], { cwd: ROOT, stdio: 'inherit', env: { ...process.env, WEB_DIR: '' } });
-  if (!fs.existsSync(path.join(WEB_DIR, 'index.html'))) throw new Error(`no web export in ${WEB_DIR}`);
+  execFileSync('bash', [path.join(ROOT, 'server', 'scripts', 'build-web.sh')], { cwd: ROOT, stdio: 'inherit' });
+  for (const dir of [WEB_DIR, ...(COMPARE ? [COMPARE] : [])]) if (!fs.existsSync(path.join(dir, 'index.html'))) throw new Error(`no web export in ${dir}`);
   const { loadConfig } = await import('../../server/config');
   const { createDatabase } = await import('../../server/db');
   const admin = createDatabase({ ...loadConfig(), DB_NAME: 'mysql' });
   await admin.query('CREATE DATABASE IF NOT EXISTS `spinyard_web` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci');
   await admin.close();
+  const browser = await launchBrowser();
+  const chromium = browser.version();
+  const before = COMPARE ? await measure(browser, COMPARE) : null;
+  const now = await measure(browser, WEB_DIR);
+  await browser.close();
 
+  const m = now.metrics;
+  const cpu = os.cpus()[0]?.model ?? 'unknown CPU';
+  const when = new Date().toISOString().slice(0, 16).replace('T', ' ');
+  const kb = (b: number) => `${(b / 1000).toFixed(0)} kB`;
+  const sec = (x: number) => `${x.toFixed(2)} s`;
+  const ratio = (x: number, t: number) => (x / t).toFixed(2);
+  const was = (f: (x: Metrics) => string) => (before ? ` | ${f(before.metrics)}` : '');
+  const section = [
+    '## Web',
+    '',
+    `Written by \`npx tsx tests/bench/web.ts${COMPARE ? ` --compare-with ${path.relative(ROOT, COMPARE) || COMPARE}` : ''}\` on ${when} UTC — ${cpu}, ${os.cpus().length} cores (load average ${os.loadavg().map((l) => l.toFixed(1)).join(' / ')} when it ended: the machine was shared, so times carry that load), ${(os.totalmem() / 2 ** 30).toFixed(1)} GiB RAM, Node ${process.version}, Chromium ${chromium}.`,
+    '',
+    `The exported web app served by the API server on loopback; Chromium at ${PHONE.width}×${PHONE.height}${throttled ? `, throttled through the DevTools protocol: ${THROTTLE.latencyMs} ms latency per request, ${THROTTLE.downBitsPerSecond / 1e6} Mbit/s down, ${THROTTLE.upBitsPerSecond / 1e3} kbit/s up, CPU slowed ${THROTTLE.cpuSlowdown}× (the mobile row of page-speed audits, common practice)` : ', NOT throttled'}. Median of ${REPEAT} fresh browser contexts; bytes are on the wire, headers included. Repeat visit = the same browser cache, signed out. Signing in includes the server's password check at the test profile's bcrypt cost.${before ? ' "Before" is the export in the --compare-with folder (an earlier build), measured in the same run.' : ''}`,
+    '',
+    `| metric${before ? ' | before' : ''} | now | target | ratio (now / target) |`,
+    `|---${before ? '|---' : ''}|---|---|---|`,
+    `| first visit: sign-in form shown${was((x) => sec(x.firstFormSeconds))} | ${sec(m.firstFormSeconds)} | ≤ ${WEB_TARGETS.firstFormSeconds} s | ${ratio(m.firstFormSeconds, WEB_TARGETS.firstFormSeconds)} |`,
+    `| first visit: bytes to the sign-in form${was((x) => kb(x.firstBytes))} | ${kb(m.firstBytes)} | ≤ ${kb(WEB_TARGETS.firstBytes)} | ${ratio(m.firstBytes, WEB_TARGETS.firstBytes)} |`,
+    `| first visit: signing in → networks list${was((x) => `${sec(x.firstListSeconds)} (${kb(x.firstListBytes)})`)} | ${sec(m.firstListSeconds)} (${kb(m.firstListBytes)}) | ≤ ${WEB_TARGETS.signInToListSeconds} s | ${ratio(m.firstListSeconds, WEB_TARGETS.signInToListSeconds)} |`,
+    `| repeat visit: sign-in form shown${was((x) => `${sec(x.repeatFormSeconds)} (${kb(x.repeatBytes)})`)} | ${sec(m.repeatFormSeconds)} (${kb(m.repeatBytes)}) | ≤ ${WEB_TARGETS.repeatFormSeconds} s | ${ratio(m.repeatFormSeconds, WEB_TARGETS.repeatFormSeconds)} |`,
+    `| repeat visit: signing in → networks list${was((x) => `${sec(x.repeatListSeconds)} (${kb(x.repeatListBytes)})`)} | ${sec(m.repeatListSeconds)} (${kb(m.repeatListBytes)}) | ≤ ${WEB_TARGETS.signInToListSeconds} s | ${ratio(m.repeatListSeconds, WEB_TARGETS.signInToListSeconds)} |`,
+    `| open run screen while solving: API requests per minute${was((x) => x.runScreenRequestsPerMinute.toFixed(1))} | ${m.runScreenRequestsPerMinute.toFixed(1)} | — | — |`,
+    '',
+    ...(before ? [`Run screen before: ${before.liveNote}.`, ''] : []),
+    `Run screen now: ${now.liveNote}.`,
+    '',
+    'Largest responses of the first visit (now):',
+    '',
+    '| response | type | encoding | bytes |',
+    '|---|---|---|---|',
+    ...now.largest.map((t) => `| \`${new URL(t.url).pathname.replace(/[0-9a-f]{32}/, '…')}\` | ${t.type} | ${t.encoding || 'none'} | ${kb(t.bytes)} |`),
+    '',
+  ].join('\n');
+  console.log('\n' + section);
+  console.log(`WEB-METRICS ${JSON.stringify(m)}`);
+  if (write) {
+    const doc = fs.existsSync(DOC) ? fs.readFileSync(DOC, 'utf8') : '# Benchmarks\n';
+    const re = /## Web\n[\s\S]*?(?=\n## |$)/;
+    fs.writeFileSync(DOC, re.test(doc) ? doc.replace(re, section) : `${doc.trimEnd()}\n\n${section}`);
+    console.log(`updated ${path.relative(process.cwd(), DOC)}`);
+  }
+}
+
+/** Serve one web export and measure it: visits, then an open run screen. */
+async function measure(browser: Browser, webDir: string): Promise<Measured> {
+  process.env.WEB_DIR = webDir;
+  console.log(`measuring ${path.relative(ROOT, webDir) || webDir}`);
   const { startServer } = await import('../../server/index');
   const { ensureDemoOrganisation, DEMO_PASSWORD } = await import('../../server/services/seed-demo');
   const { ensureDemoNetworks } = await import('../../server/services/demo-networks');
@@ -122,8 +183,6 @@ async function main() {
   const demo = await ensureDemoOrganisation(deps);
   await ensureDemoNetworks(deps, demo.organisationId);
   const analyst = demo.users.analyst;
-  const browser = await launchBrowser();
-
   /** Open /sign-in on a throttled page, then sign in and wait for the networks list. */
   async function visit(context: BrowserContext): Promise<Visit> {
     const page = await context.newPage();
@@ -199,11 +258,10 @@ async function main() {
   console.log(`run screen: ${requests.length} API requests in ${watched.toFixed(1)} s (${perMinute.toFixed(1)}/min${stillLive ? '' : ', run ended early'}): ${kinds}`);
   await context.close();
   await worker.stop();
-  await browser.close();
   await closeSolveQueue(deps).catch(() => undefined);
   await started.stop();
 
-  const m = {
+  const metrics: Metrics = {
     firstFormSeconds: median(first.map((v) => v.formSeconds)),
     firstBytes: median(first.map((v) => v.formBytes)),
     firstListSeconds: median(first.map((v) => v.listSeconds)),
@@ -215,44 +273,8 @@ async function main() {
     runScreenRequestsPerMinute: perMinute,
   };
   // The heaviest responses of the first visit, to show where the bytes go.
-  const byUrl = first[0].transfers.filter((t) => t.bytes > 0).sort((a, b) => b.bytes - a.bytes).slice(0, 8);
-  const cpu = os.cpus()[0]?.model ?? 'unknown CPU';
-  const when = new Date().toISOString().slice(0, 16).replace('T', ' ');
-  const kb = (b: number) => `${(b / 1000).toFixed(0)} kB`;
-  const ratio = (x: number, t: number) => (x / t).toFixed(2);
-  const section = [
-    '## Web',
-    '',
-    `Written by \`npx tsx tests/bench/web.ts\` on ${when} UTC — ${cpu}, ${os.cpus().length} cores (load average ${os.loadavg().map((l) => l.toFixed(1)).join(' / ')} when it ended: the machine was shared), ${(os.totalmem() / 2 ** 30).toFixed(1)} GiB RAM, Node ${process.version}, Chromium ${browser.version()}.`,
-    '',
-    `The exported web app served by the API server on loopback; Chromium at ${PHONE.width}×${PHONE.height}, throttled through the DevTools protocol: ${THROTTLE.latencyMs} ms latency per request, ${THROTTLE.downBitsPerSecond / 1e6} Mbit/s down, ${THROTTLE.upBitsPerSecond / 1e3} kbit/s up, CPU slowed ${THROTTLE.cpuSlowdown}× (the mobile row of page-speed audits, common practice). Median of ${REPEAT} fresh browser contexts; bytes are on the wire, headers included. Repeat visit = the same browser cache, signed out. The sign-in time includes the server's password check at the test profile's bcrypt cost.`,
-    '',
-    '| metric | measured | target | ratio (measured / target) |',
-    '|---|---|---|---|',
-    `| first visit: sign-in form shown | ${m.firstFormSeconds.toFixed(2)} s | ≤ ${WEB_TARGETS.firstFormSeconds} s | ${ratio(m.firstFormSeconds, WEB_TARGETS.firstFormSeconds)} |`,
-    `| first visit: bytes to the sign-in form | ${kb(m.firstBytes)} | ≤ ${kb(WEB_TARGETS.firstBytes)} | ${ratio(m.firstBytes, WEB_TARGETS.firstBytes)} |`,
-    `| first visit: signing in → networks list | ${m.firstListSeconds.toFixed(2)} s (${kb(m.firstListBytes)}) | ≤ ${WEB_TARGETS.signInToListSeconds} s | ${ratio(m.firstListSeconds, WEB_TARGETS.signInToListSeconds)} |`,
-    `| repeat visit: sign-in form shown | ${m.repeatFormSeconds.toFixed(2)} s (${kb(m.repeatBytes)}) | ≤ ${WEB_TARGETS.repeatFormSeconds} s | ${ratio(m.repeatFormSeconds, WEB_TARGETS.repeatFormSeconds)} |`,
-    `| repeat visit: signing in → networks list | ${m.repeatListSeconds.toFixed(2)} s (${kb(m.repeatListBytes)}) | ≤ ${WEB_TARGETS.signInToListSeconds} s | ${ratio(m.repeatListSeconds, WEB_TARGETS.signInToListSeconds)} |`,
-    `| open run screen while solving: API requests per minute | ${perMinute.toFixed(1)} | — | — |`,
-    '',
-    `Run screen (tabu on the demo network, one worker, watched ${watched.toFixed(0)} s): ${kinds || 'no API requests'}.`,
-    '',
-    'Largest responses of the first visit:',
-    '',
-    '| response | type | encoding | bytes |',
-    '|---|---|---|---|',
-    ...byUrl.map((t) => `| \`${new URL(t.url).pathname.replace(/[0-9a-f]{16,}/, '…')}\` | ${t.type} | ${t.encoding || 'none'} | ${kb(t.bytes)} |`),
-    '',
-  ].join('\n');
-  console.log('\n' + section);
-  console.log(`WEB-METRICS ${JSON.stringify(m)}`);
-  if (write) {
-    const doc = fs.existsSync(DOC) ? fs.readFileSync(DOC, 'utf8') : '# Benchmarks\n';
-    const re = /## Web\n[\s\S]*?(?=\n## |$)/;
-    fs.writeFileSync(DOC, re.test(doc) ? doc.replace(re, section) : `${doc.trimEnd()}\n\n${section}`);
-    console.log(`updated ${path.relative(process.cwd(), DOC)}`);
-  }
+  const largest = first[0].transfers.filter((t) => t.bytes > 0).sort((a, b) => b.bytes - a.bytes).slice(0, 8);
+  return { metrics, largest, liveNote: `tabu on the demo network, one worker, watched ${watched.toFixed(0)} s${stillLive ? '' : ' (the run ended early)'}: ${kinds || 'no API requests'}` };
 }
 
 main().then(

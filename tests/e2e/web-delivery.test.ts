@@ -19,7 +19,7 @@ const MAPS = path.join(ROOT, 'dist', 'web-maps');
 const SERVER_ONLY = ['sequelize', 'bullmq', 'express', 'mariadb', 'pino', 'pino-http', 'highs', 'ioredis', 'nodemailer', 'stripe', 'bcryptjs', 'multer', 'umzug', 'smtp-server', 'mailparser', 'express-session', 'helmet'];
 const serverPackage = new RegExp(`node_modules/(${SERVER_ONLY.join('|')})/`);
 /** Code the sign-in page has no use for. */
-const NOT_AT_SIGN_IN = [/\/components\/drawing\//, /\/components\/charts\//, /\/components\/api-docs\//, /node_modules\/d3-/, /node_modules\/react-native-svg\//];
+const NOT_AT_SIGN_IN = [/\/components\/drawing\//, /\/components\/charts\//, /\/components\/api-docs\//, /node_modules\/d3-/];
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let browser: Browser;
