@@ -225,11 +225,9 @@ export async function listRuns(deps: RunServiceDeps, organisationId: number, que
   const where: WhereOptions<RunRow> = { organisationId, deletedAt: null };
   if (query.networkId) Object.assign(where, { networkId: query.networkId });
   if (query.status) Object.assign(where, { status: query.status });
-  // Plain rows of just the listed columns: building model instances was most of this route's time under load.
-  const rows = (await deps.models.Run.findAll({
-    where, order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: query.limit, raw: true,
-    attributes: ['id', 'status', 'problem', 'networkId', 'versionId', 'depotCount', 'createdAt', 'finishedAt'],
-  })) as unknown as RunRow[];
+  // Plain rows of just the listed columns (no model instances): the busiest list under load (docs/benchmarks.md, Load).
+  const listed = ['id', 'status', 'problem', 'networkId', 'versionId', 'depotCount', 'createdAt', 'finishedAt'] as const;
+  const rows = (await deps.models.Run.findAll({ where, order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: query.limit, raw: true, attributes: [...listed] })) as unknown as Array<Pick<RunRow, (typeof listed)[number]>>;
   const ids = rows.map((r) => r.id);
   const jobs = ids.length ? ((await deps.models.RunJob.findAll({ where: { runId: { [Op.in]: ids } }, attributes: ['runId', 'solver'], order: [['runId', 'ASC'], ['position', 'ASC']], raw: true })) as unknown as Array<{ runId: number; solver: string }>) : [];
   const solversOf = new Map<number, string[]>();

@@ -125,9 +125,10 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
     const m = /^WEB-METRICS (.*)$/m.exec(out);
     const j = m ? (JSON.parse(m[1]) as Record<string, number>) : null;
     const t = tableAfter(out, 'Web');
+    const col = t ? Math.max(1, t.head.indexOf('now')) : 1; // with a "before" column, "now" is the third
     const cell = (label: string) => {
       const row = t?.rows.find((r) => r[0].startsWith(label));
-      return row ? num(row[1].split(/\s/)[0]) : NaN;
+      return row ? num(row[col].split(/\s/)[0]) : NaN;
     };
     const first = j?.firstFormSeconds ?? cell('first visit: sign-in form shown');
     const bytes = j ? j.firstBytes / 1000 : cell('first visit: bytes to the sign-in form');
