@@ -134,7 +134,7 @@ async function main() {
   const section = [
     '## Web',
     '',
-    `Written by \`npx tsx tests/bench/web.ts${COMPARE ? ` --compare-with ${path.relative(ROOT, COMPARE) || COMPARE}` : ''}\` on ${when} UTC — ${cpu}, ${os.cpus().length} cores (load average ${os.loadavg().map((l) => l.toFixed(1)).join(' / ')} when it ended: the machine was shared, so times carry that load), ${(os.totalmem() / 2 ** 30).toFixed(1)} GiB RAM, Node ${process.version}, Chromium ${chromium}.`,
+    `Written by \`npx tsx tests/bench/web.ts${COMPARE ? ` --compare-with ${path.relative(ROOT, COMPARE).startsWith('..') ? COMPARE : path.relative(ROOT, COMPARE)}` : ''}\` on ${when} UTC — ${cpu}, ${os.cpus().length} cores (load average ${os.loadavg().map((l) => l.toFixed(1)).join(' / ')} when it ended: the machine was shared, so times carry that load), ${(os.totalmem() / 2 ** 30).toFixed(1)} GiB RAM, Node ${process.version}, Chromium ${chromium}.`,
     '',
     `The exported web app served by the API server on loopback; Chromium at ${PHONE.width}×${PHONE.height}${throttled ? `, throttled through the DevTools protocol: ${THROTTLE.latencyMs} ms latency per request, ${THROTTLE.downBitsPerSecond / 1e6} Mbit/s down, ${THROTTLE.upBitsPerSecond / 1e3} kbit/s up, CPU slowed ${THROTTLE.cpuSlowdown}× (the mobile row of page-speed audits, common practice)` : ', NOT throttled'}. Median of ${REPEAT} fresh browser contexts; bytes are on the wire, headers included. Repeat visit = the same browser cache, signed out. Signing in includes the server's password check at the test profile's bcrypt cost.${before ? ' "Before" is the export in the --compare-with folder (an earlier build), measured in the same run.' : ''}`,
     '',
