@@ -114,3 +114,38 @@ test('run setup: a bad advanced value is a sentence on its field, never a path',
   ]);
   expect(typedProblems(DEFAULT_ADVANCED)).toEqual([]);
 });
+
+import { SampleHistogram } from '../../components/charts/SampleHistogram';
+import { ConvergenceChart } from '../../components/charts/ConvergenceChart';
+import { colors } from '../../components/theme';
+
+test('the histogram has a count scale: whole-shot ticks from 0 to the tallest bar', () => {
+  const samples = [
+    { assignment: [0, 1, 1], count: 300, value: 5 },
+    { assignment: [1, 0, 0], count: 120, value: 5 },
+    { assignment: [0, 0, 1], count: 40, value: 3 },
+  ];
+  const { container } = render(<SampleHistogram samples={samples} sense="max" width={360} />);
+  const ticks = Array.from(container.querySelectorAll('[data-testid="histogram-tick"]')).map((t) => Number((t.textContent ?? '').replace(/,/g, '')));
+  expect(ticks[0]).toBe(0);
+  expect(ticks.length).toBeGreaterThan(2);
+  expect(Math.max(...ticks)).toBeLessThanOrEqual(300);
+  expect(Math.max(...ticks)).toBeGreaterThanOrEqual(200);
+  expect(ticks.every(Number.isInteger)).toBe(true);
+  expect(container.textContent).toMatch(/shots/);
+});
+
+test('the convergence chart explains restarts and draws a visible standard-error band with its typical size', () => {
+  const trace = [
+    { iteration: 0, energy: -10, stdError: 1.5 },
+    { iteration: 1, energy: -12, stdError: 1.5 },
+    { iteration: 2, energy: -8, stdError: 2 }, // a new start: the energy jumps up
+    { iteration: 3, energy: -13, stdError: 1.5 },
+  ];
+  const { container, getByTestId } = render(<ConvergenceChart trace={trace} width={360} restarts={2} />);
+  expect(getByTestId('convergence-restarts').textContent).toMatch(/starts 2 times .* jump upward/);
+  const band = container.querySelector('[data-testid="convergence-band"]')!;
+  expect(Number(band.getAttribute('fill-opacity'))).toBeGreaterThanOrEqual(0.45);
+  expect(band.getAttribute('stroke')).toBe(colors.signalDeep);
+  expect(container.textContent).toMatch(/typically ± 1\.5/);
+});
