@@ -64,7 +64,7 @@ afterAll(async () => {
 
 describe('a run from creation to stored result', () => {
   test('exact on the Petersen graph: queued → running → succeeded with cut 12, proven optimal; e-mail with the link', async () => {
-    const created = await as(org.tokens.dispatcher).post('/runs', { versionId: petersen.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'exact' }, { solver: 'tabu' }], timeLimitSeconds: 2 });
+    const created = await as(org.tokens.analyst).post('/runs', { versionId: petersen.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'exact' }, { solver: 'tabu' }], timeLimitSeconds: 2 });
     expect(created.status).toBe(201);
     const run = await finished(org.tokens.viewer, created.body.id);
     expect(run.status).toBe('succeeded');
@@ -137,7 +137,7 @@ describe('cancel and retry', () => {
   test('cancel stops a running job and keeps its best answer; retry runs it again (cancel latency: npm run bench:service)', async () => {
     const edges = randomEdges(300, 0.02, 3);
     const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Three hundred', 300, edges));
-    const created = await as(org.tokens.dispatcher).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }], timeLimitSeconds: 60 });
+    const created = await as(org.tokens.analyst).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }], timeLimitSeconds: 60 });
     expect(created.status).toBe(201);
     const id = created.body.id;
     await waitFor('the job to run', async () => (await as(org.tokens.viewer).get(`/runs/${id}`)).body.jobs[0].status === 'running', 30_000);
@@ -171,7 +171,7 @@ describe('cancel and retry', () => {
   test('a queued job is cancelled at once and never runs', async () => {
     const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Queued only', 200, randomEdges(200, 0.03, 9)));
     // Three 20 s jobs on a worker with two slots: the third is still queued when the cancel comes.
-    const created = await as(org.tokens.dispatcher).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }, { solver: 'anneal' }, { solver: 'tabu' }], timeLimitSeconds: 20 });
+    const created = await as(org.tokens.analyst).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }, { solver: 'anneal' }, { solver: 'tabu' }], timeLimitSeconds: 20 });
     expect(created.status).toBe(201);
     const cancelled = await as(org.tokens.dispatcher).post(`/runs/${created.body.id}/cancel`);
     expect(cancelled.status).toBe(200);
@@ -187,7 +187,7 @@ describe('cancel and retry', () => {
 test('20 concurrent runs all complete, each with a correct cut', async () => {
   const graphs = Array.from({ length: 20 }, (_, i) => randomEdges(12, 0.4, 100 + i));
   const nets = await Promise.all(graphs.map((g, i) => saveNetwork(t.app, org.tokens.dispatcher, networkBody(`Small ${i}`, 12, g))));
-  const created = await Promise.all(nets.map((n) => as(org.tokens.dispatcher).post('/runs', { versionId: n.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'exact' }], timeLimitSeconds: 5 })));
+  const created = await Promise.all(nets.map((n) => as(org.tokens.analyst).post('/runs', { versionId: n.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'exact' }], timeLimitSeconds: 5 })));
   expect(created.map((c) => c.status)).toEqual(new Array(20).fill(201));
   const runs = await Promise.all(created.map((c) => finished(org.tokens.viewer, c.body.id, 120_000)));
   runs.forEach((run, i) => {
@@ -202,7 +202,7 @@ test('20 concurrent runs all complete, each with a correct cut', async () => {
 });
 
 test('decomposition (qaoa-blocks) on a 60-depot seeded random graph G(60, 0.1) is within 5 % of the classical best', async () => {
-  const created = await as(org.tokens.dispatcher).post('/runs', { versionId: big.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa-blocks' }, { solver: 'tabu' }], timeLimitSeconds: 20 });
+  const created = await as(org.tokens.analyst).post('/runs', { versionId: big.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa-blocks' }, { solver: 'tabu' }], timeLimitSeconds: 20 });
   expect(created.status).toBe(201);
   const run = await finished(org.tokens.viewer, created.body.id, 120_000);
   const [blocks, tabu] = run.jobs;

@@ -44,7 +44,7 @@ test('a worker whose claim was taken over mid-solve stores neither its result no
 
   // No worker listens on this file's queue: the entry waits, and this test hands it to its own processor.
   const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Claim test', 200, randomEdges(200, 0.03, 43)));
-  const created = await request(t.app).post('/api/runs').set('Authorization', `Bearer ${org.tokens.dispatcher}`)
+  const created = await request(t.app).post('/api/runs').set('Authorization', `Bearer ${org.tokens.analyst}`) // a time limit is an analyst's setting
     .send({ versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }], timeLimitSeconds: 5 });
   expect(created.status).toBe(201);
   const detail = await request(t.app).get(`/api/runs/${created.body.id}`).set('Authorization', `Bearer ${org.tokens.viewer}`);

@@ -53,7 +53,7 @@ test('a worker killed with SIGKILL mid-job: another worker takes the job over an
   const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Kill test', 200, edges));
   const first = await startWorkerChild();
   workers.push(first);
-  const created = await as(t.app, org.tokens.dispatcher).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }], timeLimitSeconds: 4 });
+  const created = await as(t.app, org.tokens.analyst).post('/runs', { versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'tabu' }], timeLimitSeconds: 4 }); // a time limit is an analyst's setting
   expect(created.status).toBe(201);
   const jobId = (await as(t.app, org.tokens.viewer).get(`/runs/${created.body.id}`)).body.jobs[0].id;
   await waitFor('the first worker to start the job', async () => {
