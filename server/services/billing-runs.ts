@@ -8,7 +8,7 @@ import { appendEntry, balanceOf, hasEntry, lockOrganisationRow, spendCredits } f
 import { paymentClient } from './billing-client';
 import { recordAudit } from './audit';
 import { refundDue } from './refund-rule';
-import { releaseRun } from './runs';
+import { releaseRun } from './runs/start';
 
 /**
  * Paid runs: the price held with a run created awaiting payment, paying it from the credits
