@@ -82,6 +82,14 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
       const last = layer.rows[layer.rows.length - 1];
       if (last && fused >= 0) rows.push({ bench, metric: `QAOA layer cost in streaming passes (n = ${last[n]})`, measured: num(last[fused]), target: 3, better: 'lower', unit: 'passes' });
     }
+    const wasmCol = layer ? layer.head.indexOf('Hadamard + WASM passes') : -1;
+    const lastLayer = layer?.rows[layer.rows.length - 1];
+    if (layer && lastLayer && wasmCol >= 0 && Number.isFinite(num(lastLayer[wasmCol]))) {
+      rows.push({ bench, metric: `QAOA layer, Hadamard basis + WebAssembly, 1 thread (n = ${lastLayer[layer.head.indexOf('n')]})`, measured: num(lastLayer[wasmCol]), target: 6, better: 'lower', unit: 'passes' });
+    }
+    const opt = tableAfter(out, 'Default QAOA optimisation');
+    const optRow = opt?.rows[opt.rows.length - 1];
+    if (opt && optRow) rows.push({ bench, metric: `default QAOA p = 2 optimisation speed-up, WASM vs JS (${optRow[0]} depots)`, measured: num(optRow[opt.head.indexOf('speed-up')]), target: 3, better: 'higher', unit: '×' });
     const ref = tableAfter(out, 'quantum-circuit');
     if (ref) {
       const n = ref.head.indexOf('n');
