@@ -80,7 +80,7 @@ describe('a run from creation to stored result', () => {
     }
     expect(run.jobs[0].result.provenOptimal).toBe(true);
     const message = await mail.waitFor((m) => m.subject.includes(`#${run.id}`), 15_000);
-    expect(message.to).toContain(org.users.dispatcher.email);
+    expect(message.to).toContain(org.users.analyst.email); // the one who started the run
     expect(message.text).toContain(`/runs/${run.id}`);
     expect(message.text).toMatch(/exact: succeeded, value 12/);
   });
