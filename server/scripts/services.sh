@@ -59,7 +59,7 @@ ensure_node_modules() {
 export PATH="$PATH:/usr/sbin:/sbin"
 
 # Runs a long-lived service without the caller's open files beyond stdin/out/err. A caller that
-# holds a lock through an open file (flock /work/services.lock …) would otherwise pass that file
+# holds a lock through an open file (for example `flock some.lock npm test`) would otherwise pass that file
 # to MariaDB and Redis, which outlive the caller and keep the lock held for everyone.
 # Started in the background (one process: the subshell closes the files, then becomes the service).
 detached() {

@@ -12,7 +12,7 @@
  * Services first: `bash -c 'source server/scripts/services.sh; profile_env test; start_mariadb; start_redis'`.
  * The web app is (re)built when stale (server/scripts/build-web.sh); --web-dir serves another export.
  *
- *   npx tsx tests/bench/web.ts [--repeat 3] [--live-seconds 20] [--web-dir dist/web] [--compare-with /tmp/old-export] [--quick] [--no-write] [--no-throttle]
+ *   npx tsx tests/bench/web.ts [--repeat 3] [--live-seconds 20] [--web-dir dist/web] [--compare-with OLD_EXPORT_DIR] [--quick] [--no-write] [--no-throttle]
  * (an export folder must not sit under a dot-folder such as .data: Express will not send files there).
  * Prints one line `WEB-METRICS {json}` for tests/bench/all.ts and rewrites `## Web` in docs/benchmarks.md.
  */

@@ -45,9 +45,9 @@ describe('the checker catches each way out', () => {
 
 /** Mentions that are not reads (file, path prefix, why); each must still occur, or it goes. */
 const NOT_READS: Array<[file: string, prefix: string, why: string]> = [
-  ['server/scripts/services.sh', '/work/services.lock', 'comment: an example caller holding a lock file'],
   ['server/migrations/20261202-0600-job-errors-without-paths.ts', '/srv/', 'comment: what old error texts looked like'],
   ['tests/api/job-error-migration.test.ts', '/srv/spinyard/', 'sample error texts that carry server paths'],
+  ['metro.config.js', '../locales/index.js', "a module name inside zod's package that the resolver swaps, not a path of ours"],
 ];
 
 test('no file of the project points outside the repository', () => {
