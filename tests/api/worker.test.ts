@@ -189,7 +189,7 @@ describe('held runs and priorities', () => {
     await t.deps.models.Organisation.update({ plan: 'free' }, { where: { id: org.organisationId } });
     try {
       const body = (versionId: number) => ({ versionId, problem: { kind: 'maxcut' as const }, solvers: [{ solver: 'exact' }], timeLimitSeconds: 5 });
-      const actor = (o: typeof org) => ({ organisationId: o.organisationId, userId: o.users.dispatcher.id, role: 'dispatcher' as const });
+      const actor = (o: typeof org) => ({ organisationId: o.organisationId, userId: o.users.analyst.id, role: 'analyst' as const });
       const held = await createRun(t.deps, actor(org), body(freeNet.versionId), { hold: true });
       expect(held.status).toBe('awaiting_payment');
       // The free run takes its full 2 s (tabu); the fleet one is instant (exact on 10 depots).
