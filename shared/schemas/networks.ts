@@ -1,5 +1,8 @@
 import { z } from 'zod';
+import { DEPOT_ID_MAX, DEPOT_NAME_MAX } from '../engine/network/limits';
 import { MAX_DEPOTS, MAX_LANES } from '../formats/types';
+
+export { DEPOT_ID_MAX, DEPOT_NAME_MAX };
 
 /**
  * Shapes of the networks API, shared by the server (validation) and the app (forms, inline
@@ -9,7 +12,6 @@ import { MAX_DEPOTS, MAX_LANES } from '../formats/types';
  * come in through the import endpoint.
  */
 
-export const DEPOT_ID_MAX = 120;
 export const NETWORK_NAME_MAX = 160;
 /** Characters of a version note (the column's size; longer notes from imports are shortened). */
 export const VERSION_NOTE_MAX = 300;
@@ -20,7 +22,7 @@ export const DepotIdSchema = z.string({ error: 'depot id must be text' }).trim()
 
 export const DepotInputSchema = z.object({
   id: DepotIdSchema,
-  name: z.string().trim().max(200, 'keep depot names to 200 characters').optional(),
+  name: z.string().trim().max(DEPOT_NAME_MAX, `keep depot names to ${DEPOT_NAME_MAX} characters`).optional(),
   lat: finite('latitude').refine((v) => Math.abs(v) <= 90, 'latitude must lie in −90…90').optional(),
   lon: finite('longitude').refine((v) => Math.abs(v) <= 180, 'longitude must lie in −180…180').optional(),
   weight: finite('depot weight').refine((v) => v >= 0, 'depot weight (demand) must be ≥ 0').optional(),

@@ -1,3 +1,4 @@
+import { DEPOT_ID_MAX } from '../engine/network/limits';
 import type { CircuitSpec } from '../engine/circuits/of-run';
 import type { NoiseReport, RunDeviceTime } from '../engine/circuits/run-analysis';
 import type { CircuitSummary } from '../engine/circuits/summary';
@@ -56,7 +57,7 @@ export const ProblemInputSchema = z.object({
   kind: z.enum(['maxcut', 'bisection', 'kway'], { error: 'choose maxcut, bisection or kway' }),
   k: z.number().int('k must be a whole number').min(2).max(8).optional(),
   /** Depot id → side (0/1) or region (0…k−1). */
-  pins: z.record(z.string().min(1).max(120), z.number().int('a pin is a side or region number').min(0).max(7)).optional(),
+  pins: z.record(z.string().min(1).max(DEPOT_ID_MAX), z.number().int('a pin is a side or region number').min(0).max(7)).optional(),
   tolerance: z.number().min(0, 'tolerance must be ≥ 0').lt(1, 'tolerance must be below 1 (a share of total depot weight)').optional(),
 });
 export type ProblemInput = z.infer<typeof ProblemInputSchema>;

@@ -1,3 +1,4 @@
+import { DEPOT_ID_MAX, DEPOT_NAME_MAX } from './limits';
 import type { CompactNetwork, NetworkDocument, NetworkIssue } from './types';
 
 /** Thrown when a network document cannot be used; every issue names its row. */
@@ -47,6 +48,8 @@ export function checkNetwork(doc: NetworkDocument): NetworkIssue[] {
       issues.push({ where: 'depots', row, message: 'depot id is empty; give every depot an id' });
       return;
     }
+    if (d.id.trim().length > DEPOT_ID_MAX) issues.push({ where: 'depots', row, message: `depot id "${d.id.slice(0, 40)}…" has ${d.id.trim().length} characters; keep depot ids to ${DEPOT_ID_MAX} characters` });
+    if (typeof d.name === 'string' && d.name.trim().length > DEPOT_NAME_MAX) issues.push({ where: 'depots', row, message: `depot "${d.id.slice(0, 40)}" has a ${d.name.trim().length}-character name; keep depot names to ${DEPOT_NAME_MAX} characters` });
     if (seen.has(d.id)) issues.push({ where: 'depots', row, message: `depot id "${d.id}" appears twice; ids must be unique` });
     seen.add(d.id);
     if (d.weight !== undefined && (!Number.isFinite(d.weight) || d.weight < 0)) {
