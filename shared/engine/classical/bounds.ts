@@ -1,3 +1,4 @@
+import { laneScale, scaleLanes } from '../network/scale';
 import { Matrix } from 'ml-matrix';
 import { maxPartWeight } from '../problem/evaluate';
 import type { Problem } from '../problem/types';
@@ -78,6 +79,13 @@ function certifiedEigenBound(problem: Problem, shift: Float64Array | null, estim
  * candidate), or null when n is above the dense limit or certification fails.
  */
 export function certifiedShiftBound(problem: Problem, u: Float64Array, denseLimit = 1500, seed = 1): number | null {
+  const f = laneScale(problem.network);
+  if (f === 1) return shiftBoundUnscaled(problem, u, denseLimit, seed);
+  const b = shiftBoundUnscaled(scaledProblem(problem, f), u.map((x) => x / f), denseLimit, seed);
+  return b === null ? null : b * f;
+}
+
+function shiftBoundUnscaled(problem: Problem, u: Float64Array, denseLimit: number, seed: number): number | null {
   const n = problem.network.n;
   if (n === 0) return 0;
   const est = lanczosTop(n, (x, out) => laplacianApply(problem.network, u, x, out), createRng(seed), { steps: 100, restarts: 8 });
@@ -85,6 +93,17 @@ export function certifiedShiftBound(problem: Problem, u: Float64Array, denseLimi
 }
 
 export function maxcutEigenBound(problem: Problem, opts: BoundOptions = {}): EigenBound | null {
+  const f = laneScale(problem.network);
+  if (f === 1) return eigenBoundUnscaled(problem, opts);
+  const scaled = eigenBoundUnscaled(scaledProblem(problem, f), {
+    ...opts,
+    knownValue: opts.knownValue === undefined || opts.knownValue === null ? opts.knownValue : opts.knownValue / f,
+    ...(opts.dualShift ? { dualShift: opts.dualShift.map((x) => x / f) } : {}),
+  });
+  return scaled === null ? null : { ...scaled, plain: scaled.plain * f, shifted: scaled.shifted * f };
+}
+
+function eigenBoundUnscaled(problem: Problem, opts: BoundOptions): EigenBound | null {
   const net = problem.network;
   const n = net.n;
   if (n === 0) return { plain: 0, shifted: 0, method: 'empty network' };
@@ -148,6 +167,18 @@ export function maxcutEigenBound(problem: Problem, opts: BoundOptions = {}): Eig
 
 /** Smallest eigenvalue of L on 1⊥, certified (lower estimate), or null. */
 export function fiedlerValue(problem: Problem, denseLimit = 2500, seed = 1): number | null {
+  const f = laneScale(problem.network);
+  if (f === 1) return fiedlerUnscaled(problem, denseLimit, seed);
+  const lam = fiedlerUnscaled(scaledProblem(problem, f), denseLimit, seed);
+  return lam === null ? null : lam * f;
+}
+
+/** The problem with lane weights divided by f (see network/scale.ts): bounds scale back linearly. */
+function scaledProblem(problem: Problem, f: number): Problem {
+  return { ...problem, network: scaleLanes(problem.network, f) };
+}
+
+function fiedlerUnscaled(problem: Problem, denseLimit: number, seed: number): number | null {
   const net = problem.network;
   const n = net.n;
   if (n < 2) return null;

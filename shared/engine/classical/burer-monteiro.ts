@@ -1,3 +1,4 @@
+import { laneScale } from '../network/scale';
 import type { CompactNetwork } from '../network/types';
 import type { Rng } from '../random';
 
@@ -41,6 +42,7 @@ export function createLowRank(net: CompactNetwork, rank: number, rng: Rng): LowR
     return dot;
   };
   const g = new Float64Array(r);
+  const scale = laneScale(net);
   const objective = (): number => {
     let s = 0;
     for (let e = 0; e < m; e++) s += (laneWeight[e] * (1 - dotLane(e))) / 2;
@@ -57,8 +59,9 @@ export function createLowRank(net: CompactNetwork, rank: number, rng: Rng): LowR
           const j = adjIndex[p] * r, w = adjWeight[p];
           for (let d = 0; d < r; d++) g[d] += w * V[j + d];
         }
+        // g's direction is all that matters; dividing by the weight scale keeps Σg² finite.
         let norm = 0;
-        for (let d = 0; d < r; d++) norm += g[d] * g[d];
+        for (let d = 0; d < r; d++) { g[d] /= scale; norm += g[d] * g[d]; }
         norm = Math.sqrt(norm);
         if (norm < 1e-12) continue;
         for (let d = 0; d < r; d++) V[i * r + d] = -g[d] / norm;
