@@ -8,7 +8,7 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import type { LayerBackend } from '../../shared/engine/statevector/backend';
-import { createWasmBackend } from '../../shared/engine/statevector/wasm-kernels';
+import { createParallelWasmBackend } from '../../shared/engine/statevector/parallel-wasm';
 
 export const SIM_WAT_PATH = path.resolve(__dirname, '../wasm/sim-kernels.wat');
 export const SIM_WASM_PATH = path.resolve(__dirname, '../wasm/sim-kernels.wasm');
@@ -56,12 +56,19 @@ export function loadSimKernels(): WebAssembly.Module | null {
   }
 }
 
+/** Threads per statevector layer when the host does not say: the product's machines have two cores. */
+export const DEFAULT_SIM_THREADS = 2;
+
 let backend: LayerBackend | null | undefined;
-/** One backend per process (thread) over the built module, or undefined (JS kernels) when it is missing. */
-export function simKernelsBackend(): LayerBackend | undefined {
+/**
+ * One backend per process (thread) over the built module, or undefined (JS kernels) when it is
+ * missing. Each layer of a state of 16 qubits or more is split over `threads` threads (the
+ * caller plus worker threads started on first use: parallel-wasm.ts); the first call fixes it.
+ */
+export function simKernelsBackend(threads: number = DEFAULT_SIM_THREADS): LayerBackend | undefined {
   if (backend === undefined) {
     const m = loadSimKernels();
-    backend = m ? createWasmBackend(m) : null;
+    backend = m ? createParallelWasmBackend(m, { threads }) : null;
   }
   return backend ?? undefined;
 }

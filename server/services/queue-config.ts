@@ -18,6 +18,11 @@ const RunsConfigSchema = z.object({
   RUN_GRACE_SECONDS: z.coerce.number().min(0).max(3600).default(30),
   /** Jobs one worker process runs at once (each in its own thread). */
   WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(1),
+  /**
+   * Threads one statevector layer (QAOA/VQE on 16 qubits or more, WebAssembly kernels) is split
+   * over inside a solve thread: the solve thread plus SIM_THREADS − 1 workers started on first use.
+   */
+  SIM_THREADS: z.coerce.number().int().min(1).max(7).default(2),
   /** Runs that took longer than this get a "run finished" e-mail to their creator. */
   RUN_MAIL_AFTER_SECONDS: z.coerce.number().min(0).default(30),
   /** Minimum time between progress writes to the job row (pub/sub is every 200 ms). */

@@ -9,10 +9,13 @@ import { bindProblem } from '../../shared/engine/problem/bind';
 import { solveProblem } from '../../shared/engine/solvers/orchestrate';
 import type { SolveProgress } from '../../shared/engine/solvers/types';
 import { simKernelsBackend } from '../lib/sim-wasm';
+import { loadRunsConfig } from '../services/queue-config';
 import { INTERNAL_ERROR, type SolveTask, type SolveThreadMessage } from './solve-task';
 
 // Errors that describe the user's input (shown as they are) rather than a fault of ours.
 const USER_ERRORS = new Set(['SettingsError', 'SolverRefusedError', 'ProblemError', 'NetworkError', 'UnknownSolverError']);
+
+const simThreads = loadRunsConfig().SIM_THREADS;
 
 const post = (msg: SolveThreadMessage) => parentPort!.postMessage(msg);
 
@@ -32,7 +35,7 @@ async function handle(task: SolveTask): Promise<void> {
   try {
     const network = buildCompactNetwork(task.document);
     const problem = bindProblem(network, task.problem);
-    const result = await solveProblem(problem, task.solver, task.settings, { seed: task.seed, timeLimitSeconds: task.timeLimitSeconds, cancel, onProgress, knownOptimum, stateKernels: simKernelsBackend() });
+    const result = await solveProblem(problem, task.solver, task.settings, { seed: task.seed, timeLimitSeconds: task.timeLimitSeconds, cancel, onProgress, knownOptimum, stateKernels: simKernelsBackend(simThreads) });
     post({ type: 'done', result, cancelled: cancel.cancelled });
   } catch (e) {
     const err = e as Error;

@@ -87,6 +87,11 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
     if (layer && lastLayer && wasmCol >= 0 && Number.isFinite(num(lastLayer[wasmCol]))) {
       rows.push({ bench, metric: `QAOA layer, Hadamard basis + WebAssembly, 1 thread (n = ${lastLayer[layer.head.indexOf('n')]})`, measured: num(lastLayer[wasmCol]), target: 6, better: 'lower', unit: 'passes' });
     }
+    const dual = tableAfter(out, 'on 1 and 2 threads');
+    const dualRow = dual?.rows[dual.rows.length - 1];
+    if (dual && dualRow && Number.isFinite(num(dualRow[dual.head.indexOf('2 threads passes')]))) {
+      rows.push({ bench, metric: `QAOA layer, Hadamard basis + WebAssembly, 2 threads (n = ${dualRow[0]})`, measured: num(dualRow[dual.head.indexOf('2 threads passes')]), target: 4, better: 'lower', unit: 'passes' });
+    }
     const opt = tableAfter(out, 'Default QAOA optimisation');
     const optRow = opt?.rows[opt.rows.length - 1];
     if (opt && optRow) rows.push({ bench, metric: `default QAOA p = 2 optimisation speed-up, WASM vs JS (${optRow[0]} depots)`, measured: num(optRow[opt.head.indexOf('speed-up')]), target: 3, better: 'higher', unit: '×' });

@@ -5,7 +5,8 @@
  *
  * Each allocated state gets its own shared WebAssembly memory (so worker threads can map it):
  *   [0, 1 KiB)       weight phase table, 32 bytes per Hamming weight: (c, c, s, −s)·2^{−n}
- *   [1 KiB, 2 MiB)   tile scratch (the plan needs ≤ 256 KiB with the default blocking)
+ *   [1 KiB, 2 MiB)   tile scratch, 256 KiB per thread (the plan needs ≤ 256 KiB with WASM_BLOCKING
+ *                    and DEFAULT_BLOCKING), so up to 7 threads can share one state (parallel-wasm.ts)
  *   [2 MiB, 4 MiB)   cost level table, 32 bytes per level (≤ 65536 levels)
  *   [4 MiB, …)       the state (16·2ⁿ bytes), then the level index of the last diagonal used
  *                    (2 or 4 bytes per basis state, copied in once per diagonal).
@@ -13,21 +14,49 @@
  * qubits); when the memory cannot be had allocate() returns null and the JS kernels are used.
  */
 import type { LayerBackend } from './backend';
-import { DEFAULT_BLOCKING, phaseTables } from './gates';
+import { phaseTables, type LayerBlocking } from './gates';
 import { hadamardMixerPlan, planScratchDoubles, weightPhaseTable } from './hadamard-mixer';
 import { phaseRange, tileCount, type DiagonalLevels } from './layer-kernels';
 
 const WTAB = 0;
 const SCRATCH = 1024;
+/** Tile scratch per thread: thread t of a split pass uses [SCRATCH + t·SCRATCH_SLOT, …). */
+export const SCRATCH_SLOT = 256 << 10;
 const TAB = 2 << 20;
 const STATE = 4 << 20;
 const PAGE = 65536;
 const MAX_LEVELS = 65536;
+/** Threads whose scratch fits below the level table. */
+export const MAX_PASS_THREADS = Math.floor((TAB - SCRATCH) / SCRATCH_SLOT);
 
-interface Exports {
+export interface WasmKernelExports {
   lowSweep(s: number, low: number, wtab: number, idx: number, wide: number, tab: number, from: number, to: number): void;
   highSweep(s: number, lo: number, hi: number, run: number, wtab: number, scratch: number, from: number, to: number): void;
 }
+type Exports = WasmKernelExports;
+
+/**
+ * One pass of the plan as a kernel call: args are the kernel's first six parameters (for
+ * highSweep the sixth is thread 0's scratch), then items [0, count) — blocks or tiles, each
+ * independent of the others within the pass.
+ */
+export interface WasmPass {
+  kernel: 'lowSweep' | 'highSweep';
+  args: [number, number, number, number, number, number];
+  count: number;
+}
+/**
+ * Runs one pass to completion on the state's memory (the default: all items on this thread).
+ * A splitter (parallel-wasm.ts) may spread the items over threads that share `memory`; it must
+ * return only when every item is done, and give thread t the scratch at args[5] + t·SCRATCH_SLOT.
+ */
+export type WasmPassRunner = (memory: WebAssembly.Memory, k: WasmKernelExports, pass: WasmPass) => void;
+
+const runHere: WasmPassRunner = (_memory, k, p) => {
+  if (p.kernel === 'lowSweep') k.lowSweep(...p.args, 0, p.count);
+  else k.highSweep(...p.args, 0, p.count);
+};
+
 interface Slot {
   memory: WebAssembly.Memory;
   k: Exports;
@@ -37,9 +66,22 @@ interface Slot {
   wide: number;
 }
 
+/**
+ * The WebAssembly plan's blocking: 256 KiB low blocks (L2-resident) and tiles of 2^10 rows × 4
+ * amplitudes (one 64-byte cache line per row, 256 KiB of scratch), so one tile sweep covers ten
+ * high qubits: 3 passes from n = 15 to 24 instead of DEFAULT_BLOCKING's 5. The SIMD kernels are
+ * fast enough for the passes to count (measured in tests/bench/sim.ts: about 15 % less time at
+ * n = 22 and 24 than with DEFAULT_BLOCKING, same run; the scalar JS kernels are compute-bound).
+ */
+export const WASM_BLOCKING: LayerBlocking = { lowBits: 14, runBits: 4, tileBits: 14 };
+
 export interface WasmBackendOptions {
   /** Largest state (qubits) to put in WebAssembly memory; larger ones use the JS kernels. Default 26. */
   maxQubits?: number;
+  /** Pass plan's blocking (default WASM_BLOCKING); its tile scratch must fit SCRATCH_SLOT. */
+  blocking?: LayerBlocking;
+  /** How each pass runs (default: on the calling thread). */
+  runPass?: WasmPassRunner;
 }
 
 /** Interleaved (c, s) pairs → the kernels' 32-byte entries (c, c, s, −s). */
@@ -52,8 +94,10 @@ function writeTable(view: Float64Array, at: number, pairs: Float64Array): void {
 
 export function createWasmBackend(module: WebAssembly.Module, opts: WasmBackendOptions = {}): LayerBackend {
   const maxQubits = Math.min(26, opts.maxQubits ?? 26);
+  const runPass = opts.runPass ?? runHere;
+  const blocking = opts.blocking ?? WASM_BLOCKING;
   const slots = new WeakMap<ArrayBufferLike, Slot>();
-  if (planScratchDoubles(hadamardMixerPlan(maxQubits)) * 8 > TAB - SCRATCH) throw new RangeError('tile scratch does not fit');
+  if (planScratchDoubles(hadamardMixerPlan(maxQubits, blocking)) * 8 > SCRATCH_SLOT) throw new RangeError('tile scratch does not fit');
 
   const slotOf = (s: { numQubits: number; amps: Float64Array }): Slot | null => {
     const slot = slots.get(s.amps.buffer);
@@ -89,11 +133,11 @@ export function createWasmBackend(module: WebAssembly.Module, opts: WasmBackendO
       writeTable(heap, TAB, phaseTables(diag, gamma)!);
       idx = STATE + 16 * dim;
     }
-    for (const p of hadamardMixerPlan(n, DEFAULT_BLOCKING)) {
+    for (const p of hadamardMixerPlan(n, blocking)) {
       if (p.kind === 'low') {
-        slot.k.lowSweep(STATE, p.low, p.middle ? WTAB : -1, p.phase ? idx : -1, slot.wide, TAB, 0, dim / 2 ** p.low);
+        runPass(slot.memory, slot.k, { kernel: 'lowSweep', args: [STATE, p.low, p.middle ? WTAB : -1, p.phase ? idx : -1, slot.wide, TAB], count: dim / 2 ** p.low });
       } else {
-        slot.k.highSweep(STATE, p.lo, p.hi, p.run, p.middle ? WTAB : -1, SCRATCH, 0, tileCount(n, p.lo, p.hi, p.run));
+        runPass(slot.memory, slot.k, { kernel: 'highSweep', args: [STATE, p.lo, p.hi, p.run, p.middle ? WTAB : -1, SCRATCH], count: tileCount(n, p.lo, p.hi, p.run) });
       }
     }
     return true;
