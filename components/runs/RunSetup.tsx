@@ -19,6 +19,7 @@ import { KIND_HINTS, KIND_LABELS } from './format';
 import { PinPicker } from './PinPicker';
 import { createBody, DEFAULT_ADVANCED, initialSetup, partsOf, problemOf, refusedChosen, startBlockers, type SetupState } from './setup';
 import { fieldProblems, solverLine, typedProblems, type AdvancedField } from './setup-words';
+import { REGION_CHOICES } from '../../shared/engine/problem/limits';
 import type { ProblemKind } from '../../shared/engine/problem/types';
 
 const KINDS: ProblemKind[] = ['maxcut', 'bisection', 'kway'];
@@ -92,7 +93,7 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
           <ChoiceCard key={k} title={k === 'kway' ? `${KIND_LABELS.kway} (several regions)` : KIND_LABELS[k]} hint={KIND_HINTS[k]} selected={s.kind === k} onPress={() => set({ kind: k })} testID={`kind-${k}`} />
         ))}
       </ChoiceGroup>
-      {s.kind === 'kway' ? <Segmented label="Number of regions k" options={[3, 4, 5, 6, 7, 8] as const} value={s.k as 3} onChange={(k) => set({ k })} testID="k-choice" /> : null}
+      {s.kind === 'kway' ? <Segmented label="Number of regions k" options={REGION_CHOICES} value={s.k} onChange={(k) => set({ k })} testID="k-choice" /> : null}
       {s.kind !== 'maxcut' ? (
         <TextField label="Balance tolerance (% of total demand)" value={s.tolerancePercent} onChangeText={(t) => set({ tolerancePercent: t })} keyboardType="numeric" hint="0 = as even as possible; 5 = regions may differ by about 5 % of total demand." testID="tolerance" />
       ) : null}

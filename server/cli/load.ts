@@ -2,6 +2,7 @@ import { readFileSync, statSync } from 'node:fs';
 import { buildCompactNetwork } from '../../shared/engine/network/build';
 import type { CompactNetwork, NetworkDocument } from '../../shared/engine/network/types';
 import { bindProblem } from '../../shared/engine/problem/bind';
+import { isRegionCount, MAX_REGIONS, MIN_REGIONS } from '../../shared/engine/problem/limits';
 import type { Problem, ProblemKind } from '../../shared/engine/problem/types';
 import { formatIssue, MAX_FILE_BYTES, readNetwork, type FormatIssue, type NetworkFormat } from '../../shared/formats';
 
@@ -70,7 +71,7 @@ export function numberFlag(name: string, raw: string | undefined, check: (v: num
 export function problemFrom(network: CompactNetwork, flags: ProblemFlags): Problem {
   if (!KINDS.includes(flags.problem as ProblemKind)) throw new UserError(`--problem ${flags.problem}: choose one of ${KINDS.join(', ')}`);
   const kind = flags.problem as ProblemKind;
-  const k = numberFlag('k', flags.k, Number.isInteger, 'a whole number of regions (3…8)');
+  const k = numberFlag('k', flags.k, isRegionCount, `a whole number of regions (${MIN_REGIONS}…${MAX_REGIONS})`);
   if (k !== undefined && kind !== 'kway') throw new UserError(`--k only applies to --problem kway (regions); max-cut and bisection have 2 sides`);
   const tolerance = numberFlag('tolerance', flags.tolerance, (v) => v >= 0, 'a share of the total depot weight, e.g. 0.05');
   const pins: Record<string, number> = {};

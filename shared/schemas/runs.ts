@@ -3,6 +3,7 @@ import type { CircuitSpec } from '../engine/circuits/of-run';
 import type { NoiseReport, RunDeviceTime } from '../engine/circuits/run-analysis';
 import type { CircuitSummary } from '../engine/circuits/summary';
 import { z } from 'zod';
+import { MAX_REGIONS } from '../engine/problem/limits';
 
 /**
  * Shapes of the runs API (solve service), shared by the server (validation) and the app.
@@ -55,9 +56,9 @@ export const MAX_SOLVERS_PER_RUN = 8;
 
 export const ProblemInputSchema = z.object({
   kind: z.enum(['maxcut', 'bisection', 'kway'], { error: 'choose maxcut, bisection or kway' }),
-  k: z.number().int('k must be a whole number').min(2).max(8).optional(),
+  k: z.number().int('k must be a whole number').min(2).max(MAX_REGIONS, `k may be at most ${MAX_REGIONS} regions`).optional(),
   /** Depot id → side (0/1) or region (0…k−1). */
-  pins: z.record(z.string().min(1).max(DEPOT_ID_MAX), z.number().int('a pin is a side or region number').min(0).max(7)).optional(),
+  pins: z.record(z.string().min(1).max(DEPOT_ID_MAX), z.number().int('a pin is a side or region number').min(0).max(MAX_REGIONS - 1)).optional(),
   tolerance: z.number().min(0, 'tolerance must be ≥ 0').lt(1, 'tolerance must be below 1 (a share of total depot weight)').optional(),
 });
 export type ProblemInput = z.infer<typeof ProblemInputSchema>;

@@ -1,5 +1,8 @@
 import type { CompactNetwork } from '../network/types';
+import { isRegionCount, MAX_REGIONS, MIN_REGIONS } from './limits';
 import type { Problem, ProblemSpec } from './types';
+
+export { MAX_REGIONS, MIN_REGIONS };
 
 export class ProblemError extends Error {
   constructor(message: string) {
@@ -8,13 +11,10 @@ export class ProblemError extends Error {
   }
 }
 
-export const MIN_REGIONS = 3;
-export const MAX_REGIONS = 8;
-
 /** Bind a user's question to a network: checks k, pins and tolerance, turns pins into indices. */
 export function bindProblem(network: CompactNetwork, spec: ProblemSpec): Problem {
   const k = spec.kind === 'kway' ? spec.k ?? MIN_REGIONS : 2;
-  if (spec.kind === 'kway' && (!Number.isInteger(k) || k < MIN_REGIONS || k > MAX_REGIONS)) {
+  if (spec.kind === 'kway' && !isRegionCount(k)) {
     throw new ProblemError(`k must be a whole number from ${MIN_REGIONS} to ${MAX_REGIONS} for k regions (got ${spec.k})`);
   }
   const tolerance = spec.tolerance ?? 0;

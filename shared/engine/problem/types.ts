@@ -5,7 +5,7 @@ export type ProblemKind = 'maxcut' | 'bisection' | 'kway';
 /** The splitting question as users ask it (depot ids, not indices). */
 export interface ProblemSpec {
   kind: ProblemKind;
-  /** Number of regions for kway (3…8); 2 for the other kinds. */
+  /** Number of regions for kway (MIN_REGIONS…MAX_REGIONS in limits.ts: 3…32); 2 for the other kinds. */
   k?: number;
   /** Depot id → side (0/1) or region (0…k−1) that the depot must take. */
   pins?: Record<string, number>;
