@@ -166,26 +166,28 @@ export function coarsen(g: PartGraph, rng: Rng, maxVertexWeight: number, keep: I
   for (let u = 0; u < n; u++) members[fill[map[u]]++] = u;
   const marker = new Int32Array(cn).fill(-1);
   const starts = new Int32Array(cn + 1);
-  const idx: number[] = [];
-  const wts: number[] = [];
+  // Typed scratch of the fine size (a coarse graph never has more adjacency entries).
+  const idx = new Int32Array(adjIndex.length);
+  const wts = new Float64Array(adjIndex.length);
+  let len = 0;
   for (let c = 0; c < cn; c++) {
-    const begin = idx.length;
+    const begin = len;
     for (let q = memberStart[c]; q < memberStart[c + 1]; q++) {
       const u = members[q];
       for (let p = adjStart[u]; p < adjStart[u + 1]; p++) {
         const d = map[adjIndex[p]];
         if (d === c) continue;
         if (marker[d] < begin) {
-          marker[d] = idx.length;
-          idx.push(d);
-          wts.push(adjWeight[p]);
+          marker[d] = len;
+          idx[len] = d;
+          wts[len++] = adjWeight[p];
         } else wts[marker[d]] += adjWeight[p];
       }
     }
-    starts[c + 1] = idx.length;
+    starts[c + 1] = len;
   }
   return {
-    coarse: { n: cn, adjStart: starts, adjIndex: Int32Array.from(idx), adjWeight: Float64Array.from(wts), vw: cvw, pin: cpin },
+    coarse: { n: cn, adjStart: starts, adjIndex: idx.slice(0, len), adjWeight: wts.slice(0, len), vw: cvw, pin: cpin },
     map,
     keep: keepCoarse,
   };

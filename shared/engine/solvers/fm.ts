@@ -1,7 +1,10 @@
-/** `fm`: multilevel Fiduccia–Mattheyses bisection; k regions by recursive bisection. */
+/**
+ * `fm`: multilevel Fiduccia–Mattheyses bisection; k regions by recursive multilevel bisection,
+ * direct k-way FM refinement and iterated V-cycles from the best answer (kway-multilevel.ts).
+ */
 import { balanceWindow } from '../classical/balance';
 import { multilevelBisect } from '../classical/fm-bisection';
-import { kwayDefaults, kwayPartition } from '../classical/kway';
+import { kwaySearch } from '../classical/kway-search';
 import { classicalResult } from '../classical/result';
 import { createRunControl } from '../classical/run-control';
 import { better, type Ranked } from '../problem/compare';
@@ -12,6 +15,7 @@ import { partGraph } from './classical-common';
 import { defineSolver } from './define';
 import { intField, settingsObject } from './settings';
 
+// coarsestSize … stall tune the bisection; k regions use kway-multilevel.ts's defaults and `vcycles`.
 const settings = settingsObject({
   coarsestSize: intField(80, 2, 100000),
   initialTries: intField(8, 1, 1000),
@@ -19,11 +23,13 @@ const settings = settingsObject({
   stall: intField(200, 1, 1e6),
   /** Most V-cycles to run (they repeat with new seeds while time remains). */
   cycles: intField(1000, 1, 1e6),
+  /** k regions: iterated V-cycles from the best answer after each fresh one. */
+  vcycles: intField(2, 0, 1000),
 });
 
 export const fmSolver = defineSolver({
   name: 'fm',
-  label: 'Multilevel Fiduccia–Mattheyses (bisection; k-way by recursive bisection)',
+  label: 'Multilevel Fiduccia–Mattheyses (bisection; k-way by recursive bisection and k-way FM)',
   family: 'heuristic',
   kinds: ['bisection', 'kway'],
   otherwise: 'tabu, gw or milp for max-cut',
@@ -36,15 +42,17 @@ export const fmSolver = defineSolver({
     const win = balanceWindow(problem);
     const limit = maxPartWeight(problem);
     const sense = senseOf(problem.kind);
+    if (problem.kind === 'kway') {
+      const r = await kwaySearch(g, problem.k, limit, rng, control, { vcycles: s.vcycles, cycles: s.cycles });
+      return classicalResult(problem, { assignment: Array.from(r.part), seconds: control.elapsed(), evaluations: r.cycles, notes: [`${r.cycles} multilevel cycles (fresh and V-cycles)`] });
+    }
     let best: number[] | null = null;
     let bestRank: Ranked = { value: Infinity, feasible: false };
     let cycles = 0;
     while (cycles < s.cycles) {
-      // Bisection: fresh V-cycles alternate with iterated ones from the best split so far.
-      const iterate: boolean = problem.kind === 'bisection' && best !== null && bestRank.feasible && cycles % 2 === 1;
-      const side: Int8Array = problem.kind === 'bisection'
-        ? multilevelBisect(g, win, rng, s, iterate ? Int8Array.from(best!) : null)
-        : kwayPartition(g, problem.pins, problem.k, limit, rng, { ...kwayDefaults, ...s });
+      // Fresh V-cycles alternate with iterated ones from the best split so far.
+      const iterate: boolean = best !== null && bestRank.feasible && cycles % 2 === 1;
+      const side = multilevelBisect(g, win, rng, s, iterate ? Int8Array.from(best!) : null);
       cycles++;
       const a: number[] = Array.from(side);
       const rank = { value: crossingWeight(problem, a), feasible: isFeasible(problem, a) };
