@@ -31,8 +31,8 @@ export async function kwaySearch(
   // A graph already at the coarsest size has no levels to cycle through: fresh answers only.
   const vcycles = g.n > Math.max(ml.minCoarsest, ml.perRegion * k) ? opts.vcycles : 0;
   while (cycles < opts.cycles) {
-    const iterate = best !== null && bestFeasible && cycles % (vcycles + 1) !== 0;
-    const part = iterate ? kwayVcycle(g, k, limit, rng, best!, ml) : kwayFresh(g, k, limit, rng, ml);
+    const iterate: boolean = best !== null && bestFeasible && cycles % (vcycles + 1) !== 0;
+    const part: Int8Array = iterate ? kwayVcycle(g, k, limit, rng, best!, ml) : kwayFresh(g, k, limit, rng, ml);
     cycles++;
     const cut = crossingOf(g, part);
     const feasible = regionLoads(g, part, k).every((w) => w <= limit);
