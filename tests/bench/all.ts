@@ -105,7 +105,9 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
   }
   if (bench === 'classical') {
     const m = /Mean gap to best known: ([\d.]+) %/.exec(out);
-    if (m) rows.push({ bench, metric: 'G-set tabu mean gap to best known', measured: Number(m[1]), target: 0.1, better: 'lower', unit: '%' });
+    if (m) rows.push({ bench, metric: 'G-set tabu mean gap to best known', measured: Number(m[1]), target: 0.03, better: 'lower', unit: '%' });
+    const matched = /over (\d+) instances[^\n]*; matched: (\d+)/.exec(out);
+    if (matched && matched[1] === '30') rows.push({ bench, metric: 'G-set instances at the best known cut (of 30)', measured: Number(matched[2]), target: 24, better: 'higher', unit: '' });
   }
   if (bench === 'variational') {
     const m = /Mean gap to best known: rqaoa ([\d.]+) % \(before refinement ([\d.]+) %\), qaoa-blocks ([\d.]+) %/.exec(out);

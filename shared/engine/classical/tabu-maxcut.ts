@@ -1,5 +1,6 @@
 import type { Problem } from '../problem/types';
 import type { Rng } from '../random';
+import { createElitePool } from './elite-pool';
 import { createFlipState, flipDepot } from './flip-state';
 import type { RunControl } from './run-control';
 
@@ -13,6 +14,10 @@ import type { RunControl } from './run-control';
  *     allowed when it beats the best cut) with probability max(e^(−ω/T), P0), ω = local
  *     optima in a row without a new best; otherwise recency-based (the depot left alone the
  *     longest) or random; after T optima without progress a strong random jump of Lmax.
+ * Opt-in (off by default, see the defaults): kicks (that strong jump, and the kick of a stalled
+ * tabu walk, below) may restart from a child of two elite solutions (elite-pool.ts, after Wu &
+ * Hao 2012; the best cut of each period between kicks is offered to the pool), and a search with
+ * no new best for restartStagnation·n moves may restart from a random assignment.
  * Each moved depot stays tabu for a tenure drawn uniformly from [tenureMin, tenureMax]
  * (a random tenure matters a lot on the G-set, see references.md).
  * Moves scan the free depots' delta array (works for real weights, no buckets needed).
@@ -37,6 +42,12 @@ export interface TabuMaxcutOptions {
   walkTenureMin: number;
   /** Walk moves without a new best (× free depots) before a random kick. */
   walkStagnation: number;
+  /** Moves without a new best (× free depots) before the search restarts from a random assignment (0 = never). */
+  restartStagnation: number;
+  /** Elite solutions kept for recombination at kicks (0 = random kicks only). */
+  eliteSize: number;
+  /** Share of kicks that restart from a combination of two elite solutions instead of a random jump. */
+  combineShare: number;
 }
 
 export const tabuMaxcutDefaults: TabuMaxcutOptions = {
@@ -53,6 +64,11 @@ export const tabuMaxcutDefaults: TabuMaxcutOptions = {
   epochMoves: 200,
   walkTenureMin: 20,
   walkStagnation: 100,
+  // Both off: on G14–G20 and G51 at 5 CPU s (several seeds) neither beat the plain schedule
+  // beyond the seed-to-seed spread; tests/bench/classical.ts keeps measuring them on G18–G20.
+  restartStagnation: 0,
+  eliteSize: 0,
+  combineShare: 0.5,
 };
 
 export interface TabuRun {
@@ -231,26 +247,63 @@ export async function tabuMaxcut(
   let walking = false;
   let epochEnd = iter + epoch;
   let lastImprove = 0;
+  // The best cut since the last kick (offered to the elite pool at the next kick).
+  const pool = opts.eliteSize >= 2 ? createElitePool(opts.eliteSize, n) : null;
+  let periodBest = -Infinity;
+  const periodSide = new Int8Array(n);
+  const childSide = new Int8Array(n);
+  const mirrorable = f === n;
+  const kick = (): void => {
+    if (pool) {
+      pool.admit(periodSide, periodBest);
+      periodBest = -Infinity;
+    }
+    if (pool && rng.next() < opts.combineShare && pool.child(rng, free, mirrorable, childSide)) {
+      // Plain flips: the restart is a new start, not a sequence of tabu moves.
+      for (let t = 0; t < f; t++) if (side[free[t]] !== childSide[free[t]]) flip(free[t]);
+    } else {
+      for (let j = 0; j < Lmax; j++) move(free[rng.int(f)]);
+    }
+  };
   const record = (): void => {
+    if (pool && st.cut > periodBest) {
+      periodBest = st.cut;
+      periodSide.set(side);
+    }
     if (st.cut > best + eps) {
       best = st.cut;
       bestSide.set(st.side);
       bestAt = control.elapsed();
       omega = 0;
       lastImprove = iter;
+      lastBest = iter;
     }
   };
   const bTenure = [tMin, tMax];
   const wMin = Math.max(1, Math.min(opts.walkTenureMin, f - 1));
   const wTenure = [wMin, Math.max(wMin, tMax)];
+  let nextTick = 0;
+  let lastBest = 0;
+  const restartAfter = opts.restartStagnation > 0 ? opts.restartStagnation * f : Infinity;
   while (best < target - eps) {
+    if (iter - lastBest > restartAfter) {
+      for (let t = 0; t < f; t++) if (rng.int(2) === 1) flip(free[t]);
+      tabuUntil.fill(0);
+      walking = false;
+      [tMinNow, tMaxNow] = bTenure;
+      epochEnd = iter + epoch;
+      omega = 0;
+      L = L0;
+      lastImprove = lastBest = iter;
+      periodBest = -Infinity;
+    }
     if (walking) {
       for (let j = 0; j < 1000; j++) {
         directedMove();
         record();
       }
       if (iter - lastImprove > opts.walkStagnation * f) {
-        for (let j = 0; j < Lmax; j++) move(free[rng.int(f)]);
+        kick();
         lastImprove = iter;
       }
     } else {
@@ -261,7 +314,7 @@ export async function tabuMaxcut(
       L = Math.abs(st.cut - previousOptimum) <= eps ? L + 1 : L0;
       previousOptimum = st.cut;
       if (omega > opts.stagnation) {
-        for (let j = 0; j < Lmax; j++) move(free[rng.int(f)]);
+        kick();
         omega = 0;
       } else {
         const pDirected = Math.max(Math.exp(-omega / opts.stagnation), opts.directedFloor);
@@ -281,7 +334,12 @@ export async function tabuMaxcut(
       epochEnd = iter + epoch;
       lastImprove = iter;
     }
-    if (await control.tick(best, iter)) break;
+    // The clock and the event loop every ~1000 moves, not after every local optimum: a tick
+    // (an await, and a clock read) costs as much as dozens of moves.
+    if (iter >= nextTick) {
+      nextTick = iter + 1024;
+      if (await control.tick(best, iter)) break;
+    }
   }
   bestSide = bestSide.slice();
   return { side: bestSide, cut: best, moves: iter, bestAt };

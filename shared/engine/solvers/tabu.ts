@@ -24,6 +24,9 @@ const settings = settingsObject({
   epochMoves: numberField(d.epochMoves, 0, 1e6),
   walkTenureMin: intField(d.walkTenureMin, 1, 1000),
   walkStagnation: numberField(d.walkStagnation, 1, 1e6),
+  restartStagnation: numberField(d.restartStagnation, 0, 1e6),
+  eliteSize: intField(d.eliteSize, 0, 64),
+  combineShare: numberField(d.combineShare, 0, 1),
   /** Stop early once this value is reached (0 = never; for max-cut benchmarks). */
   target: numberField(0, -1e15, 1e15),
 });
