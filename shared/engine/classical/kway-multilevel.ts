@@ -24,11 +24,11 @@ export interface MultilevelKwayOptions {
 }
 
 export const multilevelKwayDefaults: MultilevelKwayOptions = {
-  perRegion: 20,
+  perRegion: 4,
   minCoarsest: 80,
   fm: kwayFmDefaults,
   // Splits need not be polished: k-way FM refines the whole answer afterwards.
-  bisect: { ...kwayDefaults, refinePasses: 0 },
+  bisect: { ...kwayDefaults, initialTries: 2, maxPasses: 4, stall: 50, refinePasses: 0 },
 };
 
 /** A fresh answer: recursive multilevel bisection on the whole graph, then direct k-way FM. */
