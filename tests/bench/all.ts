@@ -1,6 +1,6 @@
 /**
  * `npm run bench`: runs every benchmark as its own process — simulator (sim.ts), classical
- * (classical.ts), solve service (service.ts), load (load.ts), large variational (large-variational.ts), web (web.ts) — one after another (they would
+ * (classical.ts), partitioning against METIS (partition.ts), solve service (service.ts), load (load.ts), large variational (large-variational.ts), web (web.ts) — one after another (they would
  * disturb each other's timings on 2 cores), reads the markdown each prints, and prints ONE table
  * of ratios (metric, measured, target, ratio = measured / target, met?). Each benchmark rewrites
  * its own section of docs/benchmarks.md; this script writes the `## Summary` section at the top
@@ -29,7 +29,7 @@ const full = fullAt >= 0 ? args[fullAt + 1].split(',') : [];
 const shortFor = (b: { name: string }) => quick && !full.includes(b.name);
 const reuseAt = args.indexOf('--reuse');
 const reuse = reuseAt >= 0 ? args[reuseAt + 1].split(',') : [];
-const SECTION: Record<string, string> = { sim: '## Simulator', classical: '## Classical', service: '## Service', load: '## Load', variational: '## Large variational', web: '## Web' };
+const SECTION: Record<string, string> = { sim: '## Simulator', classical: '## Classical', partition: '## Partitioning vs METIS', service: '## Service', load: '## Load', variational: '## Large variational', web: '## Web' };
 
 /** The current section of docs/benchmarks.md for one benchmark, and the date its run wrote. */
 function sectionOf(name: string): { text: string; written: string } | null {
@@ -47,13 +47,14 @@ interface Bench { name: string; file: string; args: string[]; quickArgs: string[
 const BENCHES: Bench[] = [
   { name: 'sim', file: 'tests/bench/sim.ts', args: [], quickArgs: ['--quick'] },
   { name: 'classical', file: 'tests/bench/classical.ts', args: [], quickArgs: ['--limit', '2', '--skip-exact', '--skip-milp', '--skip-partition', '--no-write'] },
+  { name: 'partition', file: 'tests/bench/partition.ts', args: [], quickArgs: ['--seconds', '2', '--ks', '2,8', '--no-write'] },
   { name: 'service', file: 'tests/bench/service.ts', args: [], quickArgs: ['--runs', '8', '--paced', '5', '--cancels', '2', '--no-write'] },
   { name: 'load', file: 'tests/bench/load.ts', args: [], quickArgs: ['--quick'] },
   { name: 'variational', file: 'tests/bench/large-variational.ts', args: [], quickArgs: ['--limit', '20', '--instances', 'G11', '--batch-study', '', '--no-write'] },
   { name: 'web', file: 'tests/bench/web.ts', args: [], quickArgs: ['--quick'] },
 ];
 
-export interface RatioRow { bench: string; metric: string; measured: number; target: number; better: 'lower' | 'higher'; unit: string }
+export interface RatioRow { bench: string; metric: string; measured: number; target: number; better: 'lower' | 'higher'; unit: string; /** decimals to print (cut ratios near 1 need four) */ digits?: number }
 
 /** Markdown tables after a heading containing `heading`: header cells and rows of cells. */
 export function tableAfter(text: string, heading: string): { head: string[]; rows: string[][] } | null {
@@ -67,6 +68,21 @@ export function tableAfter(text: string, heading: string): { head: string[]; row
   const rows: string[][] = [];
   for (let i = start + 2; i < lines.length && lines[i].trim().startsWith('|'); i++) rows.push(cells(lines[i]));
   return { head, rows };
+}
+
+/** Every table under the `###` headings that follow the heading containing `heading`, with its title. */
+export function tablesAfter(text: string, heading: string, sub: string): Array<{ title: string; head: string[]; rows: string[][] }> {
+  const lines = text.split(/\r?\n/);
+  const at = lines.findIndex((l) => l.startsWith('#') && l.includes(heading));
+  const out: Array<{ title: string; head: string[]; rows: string[][] }> = [];
+  if (at < 0) return out;
+  for (let i = at + 1; i < lines.length && !/^## /.test(lines[i]); i++) {
+    if (!lines[i].startsWith(`${sub} `)) continue;
+    const title = lines[i].slice(sub.length + 1).split(' (')[0].trim();
+    const t = tableAfter(lines.slice(i).join('\n'), lines[i].trim());
+    if (t) out.push({ title, ...t });
+  }
+  return out;
 }
 
 const num = (s: string | undefined) => Number(String(s ?? '').replace(/[*`%,\s]/g, ''));
@@ -108,6 +124,19 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
     if (m) rows.push({ bench, metric: 'G-set tabu mean gap to best known', measured: Number(m[1]), target: 0.03, better: 'lower', unit: '%' });
     const matched = /over (\d+) instances[^\n]*; matched: (\d+)/.exec(out);
     if (matched && matched[1] === '30') rows.push({ bench, metric: 'G-set instances at the best known cut (of 30)', measured: Number(matched[2]), target: 24, better: 'higher', unit: '' });
+  }
+  if (bench === 'partition') {
+    // Ours / METIS's best of 50 per k (lower is better; ≤ 1 meets it), at 1 CPU s and at the full budget.
+    for (const t of tablesAfter(out, 'Partitioning vs METIS', '###')) {
+      const col = (label: string) => t.head.findIndex((h) => h.startsWith(label));
+      const r1 = col('ratio at 1 s'), rEnd = t.head.findIndex((h, i) => i > r1 && h.startsWith('ratio at'));
+      const endLabel = rEnd >= 0 ? t.head[rEnd].replace('ratio at ', '') : '';
+      for (const row of t.rows) {
+        const k = row[0];
+        if (r1 >= 0 && Number.isFinite(num(row[r1]))) rows.push({ bench, metric: `${t.title}: fm / METIS cut, k = ${k}, at 1 CPU s`, measured: num(row[r1]), target: 1, better: 'lower', unit: '×', digits: 4 });
+        if (rEnd >= 0 && Number.isFinite(num(row[rEnd]))) rows.push({ bench, metric: `${t.title}: fm / METIS cut, k = ${k}, at ${endLabel}`, measured: num(row[rEnd]), target: 1, better: 'lower', unit: '×', digits: 4 });
+      }
+    }
   }
   if (bench === 'variational') {
     const m = /Mean gap to best known: rqaoa ([\d.]+) % \(before refinement ([\d.]+) %\), qaoa-blocks ([\d.]+) %/.exec(out);
@@ -195,7 +224,8 @@ async function main() {
     ...ratios.map((r) => {
       const ratio = r.measured / r.target;
       const met = r.better === 'lower' ? ratio <= 1 : ratio >= 1;
-      return `| ${r.bench} | ${r.metric} | ${fmt(r.measured)} ${r.unit} | ${r.better === 'lower' ? '≤' : '≥'} ${r.target} ${r.unit} | ${fmt(ratio)} | ${met ? 'yes' : '**no**'} |`;
+      const f = (x: number) => (r.digits !== undefined && Number.isFinite(x) ? x.toFixed(r.digits) : fmt(x));
+      return `| ${r.bench} | ${r.metric} | ${f(r.measured)} ${r.unit} | ${r.better === 'lower' ? '≤' : '≥'} ${r.target} ${r.unit} | ${f(ratio)} | ${met ? 'yes' : '**no**'} |`;
     }),
   ].join('\n');
   const cpu = os.cpus()[0]?.model ?? 'unknown CPU';
