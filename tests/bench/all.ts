@@ -134,7 +134,7 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
       for (const row of t.rows) {
         const k = row[0];
         if (r1 >= 0 && Number.isFinite(num(row[r1]))) rows.push({ bench, metric: `${t.title}: fm / METIS cut, k = ${k}, at 1 CPU s`, measured: num(row[r1]), target: 1, better: 'lower', unit: '×', digits: 4 });
-        if (rEnd >= 0 && Number.isFinite(num(row[rEnd]))) rows.push({ bench, metric: `${t.title}: fm / METIS cut, k = ${k}, at ${endLabel}`, measured: num(row[rEnd]), target: 1, better: 'lower', unit: '×', digits: 4 });
+        if (rEnd >= 0 && Number.isFinite(num(row[rEnd]))) rows.push({ bench, metric: `${t.title}: fm / METIS cut, k = ${k}, at ${endLabel.replace(/ s$/, " CPU s")}`, measured: num(row[rEnd]), target: 1, better: 'lower', unit: '×', digits: 4 });
       }
     }
   }
