@@ -9,29 +9,12 @@ import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
 import { TextField } from '../ui/TextField';
 import { Body, Heading, Label, Small } from '../ui/Text';
-import { deviceTimeRows, deviceTimeRule, LAYOUT_LABEL, noiseRows, qasmLinks, resourceRows, type LayoutKey } from './circuit-view';
+import { deviceTimeRows, deviceTimeRule, LAYOUT_LABEL, noiseRows, qasmLinks, type LayoutKey } from './circuit-view';
+import { ResourceTable, Row } from './ResourceTable';
 import { Segmented } from './controls';
 import type { RunJob } from './types';
 
 type Result = NonNullable<RunJob['result']>;
-
-/** A row of cells: a table row from 1024 px, label-value lines on phones. */
-function Row(props: { cells: string[]; head?: boolean; wide: boolean; names: string[]; testID?: string }) {
-  if (!props.wide && !props.head) {
-    return (
-      <View style={styles.cardRow} testID={props.testID}>
-        <Label>{props.cells[0]}</Label>
-        {props.cells.slice(1).map((c, i) => <Small key={i}>{props.names[i + 1]}: {c}</Small>)}
-      </View>
-    );
-  }
-  if (!props.wide) return null;
-  return (
-    <View style={styles.tableRow} accessibilityRole={props.head ? 'header' : undefined} testID={props.testID}>
-      {props.cells.map((c, i) => <Text key={i} style={[styles.cell, i === 0 ? styles.first : null, props.head ? styles.head : null]}>{c}</Text>)}
-    </View>
-  );
-}
 
 function DownloadLink(props: { href: string; fileName: string; label: string; testID?: string }) {
   const linkProps = Platform.OS === 'web' ? { href: props.href, hrefAttrs: { download: props.fileName, rel: 'noopener' } } : {};
@@ -55,14 +38,12 @@ export function CircuitPanel(props: { runId: number; job: RunJob; result: Result
   const deviceTime = mine?.deviceTime ?? props.result.deviceTime;
   const noise = props.result.noise ?? mine?.noise;
   const assumptions = deviceTime?.assumptions;
-  const rows = resourceRows(props.result);
   const analyst = can(props.role, 'runs:advanced');
   const submit = () => {
     const changed: Partial<DeviceAssumptions> = {};
     for (const k of FIELDS) if (draft[k] !== undefined && draft[k] !== '') changed[k] = parsed(k, draft[k]);
     recompute.mutate({ job: props.job.id, assumptions: changed, noiseLayout: noise?.layout ?? 'line' });
   };
-  const resourceNames = ['Layout', 'One-qubit gates', 'Two-qubit gates', 'Two-qubit depth', 'Depth', 'Swaps'];
   const timeNames = ['Layout', 'Circuit', 'One energy estimate', 'Whole run'];
   const noiseNames = ['', `Expected ${props.valueName.toLowerCase()}`, 'Approximation ratio'];
   return (
@@ -70,10 +51,7 @@ export function CircuitPanel(props: { runId: number; job: RunJob; result: Result
       <Heading>On a real device</Heading>
       <Small>What this circuit would need on quantum hardware, counted by stated rules (docs: runs, "Circuit resources"). Estimates for planning, not quotes: decision support.</Small>
       <Label>Circuit resources · {props.result.circuit!.qubits} qubits</Label>
-      <View testID="circuit-resources">
-        <Row head wide={props.wide} names={resourceNames} cells={resourceNames} />
-        {rows.map((r) => <Row key={r.layout} wide={props.wide} names={resourceNames} testID={`resources-${r.layout}`} cells={[r.label, String(r.oneQubitGates), String(r.twoQubitGates), String(r.twoQubitDepth), String(r.depth), String(r.swaps)]} />)}
-      </View>
+      <ResourceTable circuit={props.result.circuit!} wide={props.wide} testID="circuit-resources" rowID={(l) => `resources-${l}`} />
       {deviceTime ? (
         <View testID="device-time">
           <Label>Time on a device{mine ? ' (your assumptions)' : ''}</Label>
@@ -128,11 +106,6 @@ export function CircuitPanel(props: { runId: number; job: RunJob; result: Result
 }
 
 const styles = StyleSheet.create({
-  tableRow: { flexDirection: 'row', borderBottomWidth: StyleSheet.hairlineWidth, borderColor: colors.line, paddingVertical: space.xs },
-  cell: { flex: 1, textAlign: 'right', fontVariant: ['tabular-nums'], color: colors.ink },
-  first: { flex: 2, textAlign: 'left' },
-  head: { fontWeight: '600' },
-  cardRow: { paddingVertical: space.xs, gap: 2 },
   form: { gap: space.sm },
   buttons: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
   links: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },

@@ -1,7 +1,8 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { Button } from '../ui/Button';
-import { aboutSeconds, costLine } from './setup-words';
+import { aboutSeconds, circuitLine, costLine } from './setup-words';
+import { ResourceTable } from './ResourceTable';
 import { space } from '../theme';
 import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
@@ -39,7 +40,7 @@ const money = (p: NonNullable<RunPreview['price']>) => p.label ?? formatMoney(p)
  * operator — qubits, Pauli terms, offset, penalty weights and their rule, measurement groups, the
  * shots for the chosen precision and the price's make-up. Refusals of the chosen solvers last.
  */
-export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOption[]; title?: string; children?: React.ReactNode; /** Only these solvers' refusals are shown (the rest are not in the run). */ chosen?: readonly string[]; /** An analyst's view of an existing run: the details shown, no cost lines. */ analyst?: boolean }) {
+export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOption[]; title?: string; children?: React.ReactNode; /** Only these solvers' refusals are shown (the rest are not in the run). */ chosen?: readonly string[]; /** An analyst's view of an existing run: the details shown, no cost lines. */ analyst?: boolean; /** Tables as rows from 1024 px; label-value lines on phones. */ wide?: boolean }) {
   const { preview } = props;
   const enc = preview.encoding;
   const [open, setDetails] = useState(false);
@@ -49,6 +50,9 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
   const refusals = preview.solvers.filter((s) => s.refusal && inRun(s.solver));
   const notAllowed = preview.solvers.filter((s) => s.allowed === false && inRun(s.solver));
   const estimate = estimatedSeconds(preview);
+  // "QAOA (simulated quantum circuit)" → "QAOA": the circuit lines name the method only.
+  const short = (name: string) => label(name).replace(/\s*\(.*\)$/, '');
+  const circuits = preview.solvers.filter((s) => s.circuit && !s.refusal && inRun(s.solver));
   return (
     <Card testID="encoding-summary">
       <Heading>{props.title ?? 'Before you start'}</Heading>
@@ -57,13 +61,14 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
           <Body testID="run-cost" numberOfLines={2}>{costLine(preview.price)}</Body>
           {estimate !== null ? <Small testID="run-time">Each solver takes {aboutSeconds(estimate)} at most; they run side by side.</Small> : null}
           {preview.quote?.note && preview.price ? <Small testID="enc-price-note">{preview.quote.note}</Small> : null}
+          {circuits.map((c) => <Small key={c.solver} testID={`circuit-line-${c.solver}`}>{circuitLine(short(c.solver), c.circuit!)}</Small>)}
         </>
       ) : null}
       {!props.analyst ? <Button
         label={details ? 'Hide the encoding details' : 'Encoding details (for analysts)'}
         tone="quiet"
         onPress={() => setDetails((d) => !d)}
-        accessibilityHint="Qubits, Pauli terms, penalty weights, shots and how the price is made up"
+        accessibilityHint="Qubits, Pauli terms, penalty weights, shots, gate counts per qubit layout and how the price is made up"
         testID="encoding-details-toggle"
       /> : null}
       {!details ? null : enc ? (
@@ -113,6 +118,18 @@ export function EncodingSummary(props: { preview: RunPreview; solvers?: SolverOp
           {preview.solvers.filter((s) => typeof s.qubits === 'number' && s.qubits > 0).map((s) => (
             <Small key={s.solver}>{label(s.solver)}: {formatCount(s.qubits as number)}</Small>
           ))}
+        </View>
+      ) : null}
+      {details && circuits.length > 0 ? (
+        <View style={styles.list} testID="enc-resources">
+          <Label>Circuit resources per qubit layout</Label>
+          {circuits.map((c) => (
+            <View key={c.solver} style={styles.list} testID={`enc-resources-${c.solver}`}>
+              <Small>{short(c.solver)} · {formatCount(c.circuit!.qubits)} qubits</Small>
+              <ResourceTable circuit={c.circuit!} wide={!!props.wide} rowID={(l) => `enc-${c.solver}-${l}`} />
+            </View>
+          ))}
+          <Small>The same counts the finished run reports. A line or grid of qubits needs swaps to bring interacting qubits together; counting rules in the docs (runs, “Circuit resources”).</Small>
         </View>
       ) : null}
       {preview.quote?.ceiling && preview.price ? (

@@ -142,6 +142,8 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
           <TextField label="Shots per energy estimate (0 = exact expectation)" value={adv.shots} onChangeText={(t) => setAdv({ shots: t })} keyboardType="numeric" error={fieldError('shots')} testID="adv-shots" />
           <TextField label="Seed (blank = random)" value={adv.seed} onChangeText={(t) => setAdv({ seed: t })} keyboardType="numeric" error={fieldError('seed')} testID="adv-seed" />
           <TextField label="Time limit per solver (seconds)" value={adv.timeLimitSeconds} onChangeText={(t) => setAdv({ timeLimitSeconds: t })} keyboardType="numeric" error={fieldError('timeLimitSeconds')} testID="adv-time" />
+          <CheckRow title="Noise comparison (QAOA, VQE)" hint="Adds the expected value under device noise on a line of qubits: a quick depolarizing estimate and, up to 20 qubits, a noisy simulation within the time limit again" checked={adv.noise} onPress={() => setAdv({ noise: !adv.noise })} testID="adv-noise" />
+          {fieldError('noise') ? <Small style={styles.error}>{fieldError('noise')}</Small> : null}
         </View>
       ) : null}
     </Card>
@@ -150,7 +152,7 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
   const summary = (
     <View style={styles.stack}>
       {preview.data ? (
-        <EncodingSummary preview={preview.data} solvers={solvers.data} chosen={chosen}>
+        <EncodingSummary preview={preview.data} solvers={solvers.data} chosen={chosen} wide={wide}>
           {preview.data.encoding ? (
             <TextField label="Precision for the shot estimate (standard error of the energy)" value={s.precision} onChangeText={(t) => set({ precision: t })} keyboardType="numeric" hint={`Blank = 1 % of total lane weight (${preview.data.encoding.precision}).`} testID="precision" />
           ) : null}

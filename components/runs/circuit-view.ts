@@ -18,6 +18,9 @@ export interface ResourceRow {
   swaps: number;
 }
 
+/** Column names of the resources table (first: the layout). */
+export const RESOURCE_COLUMNS = ['Layout', 'One-qubit gates', 'Two-qubit gates', 'Two-qubit depth', 'Depth', 'Swaps'];
+
 export function resourceRows(result: Pick<JobResultView, 'circuit'>): ResourceRow[] {
   const c = result.circuit;
   if (!c) return [];

@@ -16,6 +16,7 @@ export const FIELD_LABELS: Record<AdvancedField, string> = {
   shots: 'Shots per energy estimate',
   seed: 'Seed',
   timeLimitSeconds: 'Time limit per solver',
+  noise: 'Noise comparison',
 };
 
 const perSeconds = (e: PreviewSolver['estimatedSeconds']): number | null => (typeof e === 'number' ? e : e && typeof e.atMost === 'number' ? e.atMost : null);
@@ -42,6 +43,18 @@ export function solverLine(answer: PreviewSolver | undefined, price: Price | nul
     parts.push(own ? `${formatMoney({ amount: own.amount, currency: price.currency })} for its qubits` : 'in the run price');
   }
   return parts.join(' · ');
+}
+
+const count = (n: number) => n.toLocaleString('en-US');
+
+/**
+ * What a circuit would need on real hardware, in one plain line for dispatchers: qubits and the
+ * two-qubit gates (the noisy ones) when the qubits sit in a line — the layout most devices can
+ * offer — and when every pair is connected. The table per layout is for analysts.
+ */
+export function circuitLine(label: string, circuit: NonNullable<PreviewSolver['circuit']>): string {
+  const line = circuit.layouts.line.twoQubitGates, all = circuit.layouts.all.twoQubitGates;
+  return `${label} on a real device: ${count(circuit.qubits)} qubits and ${count(line)} two-qubit gates with the qubits in a line${line === all ? '' : ` (${count(all)} if every pair were connected)`}.`;
 }
 
 /** The run's cost in one line. */

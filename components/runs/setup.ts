@@ -26,9 +26,11 @@ export interface AdvancedSettings {
   shots: string;
   seed: string;
   timeLimitSeconds: string;
+  /** Add the noise comparison to QAOA/VQE results (the solvers' `noise` setting; docs/runs.md, "Noise"). */
+  noise: boolean;
 }
 
-export const DEFAULT_ADVANCED: AdvancedSettings = { layers: '2', ansatz: 'ladder', optimizer: 'auto', shots: '0', seed: '', timeLimitSeconds: '10' };
+export const DEFAULT_ADVANCED: AdvancedSettings = { layers: '2', ansatz: 'ladder', optimizer: 'auto', shots: '0', seed: '', timeLimitSeconds: '10', noise: false };
 
 export const initialSetup = (): SetupState => ({ kind: 'maxcut', k: 3, tolerancePercent: '5', pins: {}, solvers: null, advanced: null, precision: '' });
 
@@ -77,6 +79,7 @@ export function solverEntries(names: readonly string[], families: Record<string,
     if (shots !== undefined && shots !== 0) settings.shots = shots;
     if (adv.optimizer !== 'auto') settings.optimizer = adv.optimizer;
     if (solver === 'vqe' && adv.ansatz !== 'ladder') settings.ansatz = adv.ansatz;
+    if (adv.noise) settings.noise = true;
     return Object.keys(settings).length ? { solver, settings } : { solver };
   });
 }

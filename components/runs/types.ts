@@ -56,6 +56,10 @@ export interface PreviewSolver {
   /** Whether the current role may start this entry with its settings (non-default needs runs:advanced). */
   allowed?: boolean;
   qubits?: number | null;
+  /** QAOA/VQE: qubits and gate counts per layout of the circuit this entry will run (what its finished job reports). */
+  circuit?: NonNullable<JobResultView['circuit']> | null;
+  /** Why no circuit is counted, when so. */
+  circuitNote?: string | null;
   /** Seconds, or the service's {atMost, note} budget. */
   estimatedSeconds?: number | { atMost: number; note?: string } | null;
 }

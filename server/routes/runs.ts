@@ -3,7 +3,7 @@ import type { Deps } from '../deps';
 import { NoBodySchema, type AuthContext, type RouteSpec } from '../lib/routes';
 import { unauthorized, unavailable } from '../lib/http-error';
 import { CreateRunBodySchema, PreviewBodySchema, RunIdParamsSchema, RunListQuerySchema, type RunStatus } from '../../shared/schemas/runs';
-import { RunViewSchema } from '../../shared/schemas/run-view';
+import { RunPreviewSchema, RunViewSchema } from '../../shared/schemas/run-view';
 import { assignmentCsv, cancelRun, createRun, deleteRun, getRun, listRuns, previewRun, retryRun, runReport, type RunActor } from '../services/runs';
 import { assertQueueUp, runChannel } from '../services/queue';
 
@@ -46,7 +46,7 @@ export function runsRoutes(deps: Deps): RouteSpec[] {
       handler: ({ body, auth }) => createRun(deps, actorOf(auth), body),
     },
     {
-      method: 'post', path: '/runs/preview', summary: 'Encoding summary, refusals and time budget for a run, without creating it', access: read, body: PreviewBodySchema,
+      method: 'post', path: '/runs/preview', summary: 'Encoding summary, circuit resources per solver, refusals and time budget for a run, without creating it', access: read, body: PreviewBodySchema, response: RunPreviewSchema,
       handler: ({ body, auth }) => previewRun(deps, actorOf(auth), body),
     },
     {

@@ -86,6 +86,8 @@ function valleyNetwork(name: string, count: number, seed: number, withCoordinate
 
 export const DEMO_NETWORKS: readonly DemoNetwork[] = [
   { key: 'quillmere-core', name: 'Quillmere Valley — core', description: '12 depots around Quillmere Cross, with coordinates', document: valleyNetwork('Quillmere Valley — core', 12, 1207, true) },
+  // 20 depots: the largest max-cut whose direct encoding the default QAOA and VQE still take (20 qubits).
+  { key: 'quillmere-west', name: 'Quillmere Valley — west', description: '20 depots of the western valley, with coordinates (a 20-qubit circuit)', document: valleyNetwork('Quillmere Valley — west', 20, 2003, true) },
   { key: 'quillmere-full', name: 'Quillmere Valley — full', description: '40 depots along the whole valley, with coordinates', document: valleyNetwork('Quillmere Valley — full', 40, 4011, true) },
   { key: 'ridge-couriers', name: 'Ridge couriers (no map)', description: '24 courier depots without coordinates (drawn by force layout)', document: valleyNetwork('Ridge couriers (no map)', 24, 2417, false) },
 ];

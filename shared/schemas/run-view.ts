@@ -36,3 +36,26 @@ export const RunViewSchema = z.looseObject({
     error: z.string().nullable(),
   })),
 });
+
+/**
+ * The answer of POST /api/runs/preview for the OpenAPI document (server/services/runs/preview.ts;
+ * the app's type is RunPreview in components/runs/types.ts). Loose: other fields are allowed.
+ */
+export const RunPreviewSchema = z.looseObject({
+  depots: z.number().int(),
+  lanes: z.number().int(),
+  encoding: z.looseObject({ qubits: z.number().int(), pauliTerms: z.number().int(), commutingGroups: z.number().int(), shots: z.number().int() }).nullable()
+    .describe('the cost operator of the widest circuit a chosen solver simulates'),
+  circuit: z.string().describe('which circuit the encoding summary describes, in words'),
+  encodingNote: z.string().nullable(),
+  blockers: z.array(z.string()).describe('every reason the run would not start; empty = startable'),
+  startable: z.boolean(),
+  solvers: z.array(z.looseObject({
+    solver: z.string(),
+    refusal: z.string().nullable(),
+    allowed: z.boolean(),
+    qubits: z.number().int(),
+    circuit: CircuitSummarySchema.nullable().describe('QAOA/VQE: the circuit this entry will run, counted as its finished run reports it (null: classical, several circuits, or refused)'),
+    circuitNote: z.string().nullable().describe('why no circuit is counted, when so'),
+  })),
+});

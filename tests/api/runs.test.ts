@@ -313,6 +313,27 @@ describe('k regions with the default solvers on the 12-depot demo network (Team 
     await as(org.tokens.dispatcher).post(`/runs/${created.body.id}/cancel`); // no need to solve it here
   });
 
+  test('circuit resources before launch: the preview counts what the finished QAOA and VQE jobs report', async () => {
+    const { RunPreviewSchema } = await import('../../shared/schemas/run-view');
+    const body = {
+      versionId: petersen.versionId, problem: { kind: 'maxcut' }, seed: 5, timeLimitSeconds: 5,
+      solvers: [{ solver: 'qaoa', settings: { layers: 2, warmStart: true, maxIterations: 5, restarts: 1 } }, { solver: 'vqe', settings: { layers: 1, maxIterations: 5, restarts: 1 } }, { solver: 'greedy' }],
+    };
+    const preview = await as(org.tokens.analyst).post('/runs/preview', body);
+    expect(preview.status).toBe(200);
+    expect(() => RunPreviewSchema.parse(preview.body)).not.toThrow(); // the OpenAPI document's shape
+    const [qaoa, vqe, greedy] = preview.body.solvers;
+    expect(qaoa.circuit.qubits).toBe(10);
+    expect(Object.keys(qaoa.circuit.layouts).sort()).toEqual(['all', 'grid', 'line']);
+    expect(greedy.circuit).toBeNull();
+    const created = await as(org.tokens.analyst).post('/runs', body);
+    expect(created.status).toBe(201);
+    const run = await finished(org.tokens.viewer, created.body.id);
+    const job = (name: string) => run.jobs.find((j: { solver: string }) => j.solver === name);
+    expect(job('qaoa').result.circuit).toEqual(qaoa.circuit);
+    expect(job('vqe').result.circuit).toEqual(vqe.circuit);
+  });
+
   test('a size beyond the paid ceiling gets a refusal before launch, never a price', async () => {
     const big = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Twenty-six', 26, randomEdges(26, 0.3, 9)));
     // The solver itself would take 26 qubits (maxQubits 26, an analyst's setting); the plan would not.

@@ -35,6 +35,11 @@ describe('run setup rules', () => {
     expect(body.timeLimitSeconds).toBe(30);
   });
 
+  test('the noise comparison goes to the circuit solvers only, as their noise setting', () => {
+    const s = { ...initialSetup(), advanced: { ...DEFAULT_ADVANCED, noise: true } };
+    expect(createBody(3, s, ['tabu', 'qaoa', 'vqe'], families).solvers).toEqual([{ solver: 'tabu' }, { solver: 'qaoa', settings: { noise: true } }, { solver: 'vqe', settings: { noise: true } }]);
+  });
+
   test('k-way pins past the last region are dropped when k is lowered', () => {
     expect(problemOf({ ...initialSetup(), kind: 'kway', k: 3, pins: { A: 0, B: 4 } })).toEqual({ kind: 'kway', k: 3, tolerance: 0.05, pins: { A: 0 } });
   });

@@ -11,8 +11,9 @@ const PREVIEW_MAX_TERMS = 300_000;
 /**
  * The preview: the same planning as createRun (nothing is written) shown per solver — qubits,
  * refusal, whether the role may use its settings — plus the encoding summary of the widest circuit
- * a chosen solver simulates, the price or the size refusal, and `blockers`: every reason the run
- * would not start (the app disables Start while there is one).
+ * a chosen solver simulates, each QAOA/VQE entry's circuit resources (qubits, gate counts and
+ * depths on the three layouts — what its finished run reports), the price or the size refusal,
+ * and `blockers`: every reason the run would not start (the app disables Start while there is one).
  */
 export async function previewRun(deps: RunServiceDeps, actor: RunActor, body: PreviewBody) {
   const planned = await planRun(deps, actor, body);
@@ -36,6 +37,17 @@ export async function previewRun(deps: RunServiceDeps, actor: RunActor, body: Pr
     ...(planned.forbidden ? [planned.forbidden] : []),
     ...(limitProblem ? [limitProblem] : []),
   ];
+  // Circuit resources before launch: the circuit each chosen QAOA/VQE entry will simulate, by the
+  // rule the run itself follows (shared/engine/solvers/circuit-plan.ts); none for refused entries.
+  const circuits = solvers.map((c) => {
+    if (c.refusal !== null || c.definition.family !== 'variational') return { circuit: null, circuitNote: null };
+    try {
+      if (estimatedPauliTerms(c.definition.circuit(problem, c.parsed)?.problem ?? problem) > PREVIEW_MAX_TERMS) return { circuit: null, circuitNote: 'too large to count here' };
+      return { circuit: c.definition.plannedCircuit(problem, c.parsed, body.seed ?? 0)?.summary ?? null, circuitNote: null };
+    } catch (e) {
+      return { circuit: null, circuitNote: (e as Error).message };
+    }
+  });
   // Each solver may use its time limit, then the orchestrator spends up to min(10 s, limit/5) on bounds.
   const boundSeconds = Math.min(10, Math.max(0.5, seconds / 5));
   return {
@@ -54,7 +66,7 @@ export async function previewRun(deps: RunServiceDeps, actor: RunActor, body: Pr
     forbidden: planned.forbidden,
     blockers,
     startable: blockers.length === 0,
-    solvers: solvers.map((c) => ({
+    solvers: solvers.map((c, i) => ({
       solver: c.definition.name,
       label: c.definition.label,
       family: c.definition.family,
@@ -64,6 +76,9 @@ export async function previewRun(deps: RunServiceDeps, actor: RunActor, body: Pr
       needsAdvanced: !c.isDefault,
       allowed: c.isDefault || can(actor.role, 'runs:advanced'),
       qubits: c.qubits,
+      /** Qubits and gate counts per layout of the circuit this entry will run (null: none or refused). */
+      circuit: circuits[i].circuit,
+      circuitNote: circuits[i].circuitNote,
       estimatedSeconds: { atMost: seconds + boundSeconds, note: 'anytime solvers stop at the time limit; exact ones may finish sooner' },
     })),
   };

@@ -17,7 +17,8 @@ import type { Gate, Interaction, LayoutName, LogicalCircuit, PhysicalCircuit } f
  *   n steps of the full network reverse the order, so every pair meets within n steps
  *   whatever the starting order; the order reached carries over to the next stage.
  * - grid: the better of that rule and the same with interactions across snake rows applied as
- *   soon as their qubits are grid neighbours (see routeCircuit).
+ *   soon as their qubits are grid neighbours (see routeCircuit). This is the line's network laid
+ *   on the grid, not a two-dimensional swap network: its counts are an upper bound for a grid.
  */
 export function routeCircuit(circuit: LogicalCircuit, layoutName: LayoutName): PhysicalCircuit {
   if (layoutName !== 'grid') return route(circuit, layoutName, false);

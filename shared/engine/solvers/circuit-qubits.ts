@@ -9,11 +9,9 @@ import type { Problem } from '../problem/types';
 import type { CircuitTarget } from './types';
 import { DEFAULT_MAX_QUBITS } from '../statevector/state';
 import { firstBisectionStep } from '../variational/recursive-bisection';
+import type { CircuitChoice } from './circuit-plan';
 
-export interface CircuitChoice {
-  kwayStrategy: 'recursive' | 'onehot';
-  penaltyRule: 'lucas' | 'dominant';
-}
+export type { CircuitChoice };
 
 export interface CircuitSize {
   qubits: number;

@@ -6,6 +6,7 @@
  */
 import type { ZodType } from 'zod';
 import type { Problem, ProblemKind } from '../problem/types';
+import type { PlannedCircuit } from './circuit-plan';
 import { parseSettingsWith } from './settings';
 import type { CircuitTarget, SolveContext, SolveResult, SolverDefinition, SolverFamily } from './types';
 
@@ -22,6 +23,8 @@ export interface SolverSpec<Settings> {
   qubits?: (problem: Problem, settings: Settings) => number;
   /** The widest circuit as a problem to encode (variational solvers with one fixed circuit). */
   circuit?: (problem: Problem, settings: Settings) => CircuitTarget | null;
+  /** The circuit a run will simulate, for the preview (circuit-plan.ts; the run follows the same rule). */
+  plannedCircuit?: (problem: Problem, settings: Settings, seed: number) => PlannedCircuit | null;
   /** Refusals beyond the problem kind (the factory checks the kind first). */
   refuses?: (problem: Problem, settings: Settings) => string | null;
   solve: (problem: Problem, settings: Settings, ctx: SolveContext) => Promise<SolveResult>;
@@ -42,6 +45,7 @@ export function defineSolver<Settings>(spec: SolverSpec<Settings>): SolverDefini
     parseSettings: (input: unknown) => parseSettingsWith(spec.settings, input),
     qubits: (problem: Problem, settings: Settings) => (spec.kinds.includes(problem.kind) ? qubits(problem, settings) : 0),
     circuit: (problem: Problem, settings: Settings) => (spec.kinds.includes(problem.kind) && spec.circuit ? spec.circuit(problem, settings) : null),
+    plannedCircuit: (problem: Problem, settings: Settings, seed: number) => (spec.kinds.includes(problem.kind) && spec.plannedCircuit ? spec.plannedCircuit(problem, settings, seed) : null),
     refuses(problem: Problem, settings: Settings): string | null {
       if (!spec.kinds.includes(problem.kind)) {
         return `${spec.name} handles ${spec.kinds.map((k) => KIND_WORDS[k]).join(' and ')}, not ${KIND_WORDS[problem.kind]}${spec.otherwise ? `; use ${spec.otherwise}` : ''}`;

@@ -2,6 +2,7 @@
 import { warmProbabilities } from '../circuits/warm';
 import { createRng } from '../random';
 import { runQaoa } from '../variational/qaoa-run';
+import { plannedCircuit, type AnsatzOf } from './circuit-plan';
 import { widestCircuit } from './circuit-qubits';
 import { defineSolver } from './define';
 import { booleanField, numberField, settingsObject } from './settings';
@@ -15,6 +16,10 @@ const settings = settingsObject({
 
 export type QaoaSettings = ReturnType<typeof qaoaSolver.parseSettings>;
 
+/** QAOA's circuit: p layers, warm-started from the classical answer when there is one. */
+const qaoaAnsatz = (s: { layers: number; warmStartEpsilon: number }): AnsatzOf => (encoding, warm) =>
+  ({ ansatz: 'qaoa', layers: s.layers, ...(warm ? { warmStart: { probabilities: warmProbabilities(encoding, warm), epsilon: s.warmStartEpsilon } } : {}) });
+
 export const qaoaSolver = defineSolver({
   name: 'qaoa',
   label: 'QAOA (simulated quantum circuit)',
@@ -24,11 +29,13 @@ export const qaoaSolver = defineSolver({
   settings,
   qubits: circuitQubits,
   circuit: widestCircuit,
+  // The same warm-start call as solve (its first use of the seeded generator).
+  plannedCircuit: (problem, s, seed) => plannedCircuit(problem, s, qaoaAnsatz(s), s.warmStart ? () => warmStartFrom(problem, createRng(seed)) : null),
   refuses: refuseWide,
   async solve(problem, s, ctx) {
     const rng = createRng(ctx.seed);
     return solveVariational(problem, s, ctx, {
-      spec: (encoding, warm) => ({ ansatz: 'qaoa', layers: s.layers, ...(warm ? { warmStart: { probabilities: warmProbabilities(encoding, warm), epsilon: s.warmStartEpsilon } } : {}) }),
+      spec: qaoaAnsatz(s),
       run: (encoding, warm, shouldStop, onIteration) => runQaoa({
         encoding, layers: s.layers, optimizer: s.optimizer, shots: s.shots, readoutShots: s.readoutShots,
         restarts: s.restarts, maxIterations: s.maxIterations, rng, shouldStop, onIteration,

@@ -3,6 +3,7 @@ import type { LayerBackend } from '../statevector/backend';
 import type { CircuitSpec } from '../circuits/of-run';
 import type { NoiseReport, RunDeviceTime } from '../circuits/run-analysis';
 import type { CircuitSummary } from '../circuits/summary';
+import type { PlannedCircuit } from './circuit-plan';
 import type { EncodingOptions } from '../encodings';
 import type { Problem, ProblemKind } from '../problem/types';
 
@@ -132,6 +133,12 @@ export interface SolverDefinition<Settings = Record<string, unknown>> {
    * describes it), or null when the solver simulates no single fixed circuit (classical; blocks).
    */
   circuit(problem: Problem, settings: Settings): CircuitTarget | null;
+  /**
+   * The circuit a run with these settings will simulate and its resources per layout, before it
+   * runs (the run setup's summary); null for solvers without one fixed circuit (classical, blocks,
+   * recursive QAOA) or when nothing is left to simulate. `seed` only moves warm-start angles.
+   */
+  plannedCircuit(problem: Problem, settings: Settings, seed: number): PlannedCircuit | null;
   /** Null when the solver can take the problem, else the reason it refuses (wrong kind, too large, …). */
   refuses(problem: Problem, settings: Settings): string | null;
   solve(problem: Problem, settings: Settings, ctx: SolveContext): Promise<SolveResult>;

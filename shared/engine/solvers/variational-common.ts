@@ -6,6 +6,7 @@
  */
 import { z } from 'zod';
 import { circuitOf, type CircuitSpec } from '../circuits/of-run';
+import { encodingChoice, specOf, type AnsatzOf } from './circuit-plan';
 import { defaultAssumptions, EXACT_RUN_SHOTS } from '../circuits/device';
 import { TRAJECTORY_MAX_QUBITS } from '../circuits/noise';
 import { analyseRun } from '../circuits/run-analysis';
@@ -101,8 +102,8 @@ function classicalStart(problem: Problem, rng: Rng): Int8Array | null {
 }
 
 export interface CircuitRun {
-  /** The circuit the run simulates (without the encoding choice, added by the shared loop). */
-  spec(encoding: Encoding, warm: ArrayLike<number> | null): Omit<CircuitSpec, 'encoding' | 'penaltyRule'>;
+  /** The circuit the run simulates (without the encoding choice, added by the shared loop; circuit-plan.ts). */
+  spec: AnsatzOf;
   run(encoding: Encoding, warm: ArrayLike<number> | null, shouldStop: () => boolean, onIteration: (p: VariationalTracePoint) => void): VariationalOutcome;
 }
 
@@ -111,7 +112,7 @@ export async function solveVariational(problem: Problem, s: CommonSettings, ctx:
   const start = performance.now();
   const elapsed = () => (performance.now() - start) / 1000;
   const shouldStop = () => elapsed() >= ctx.timeLimitSeconds || ctx.cancel?.cancelled === true;
-  const recursive = problem.kind === 'kway' && s.kwayStrategy === 'recursive';
+  const recursive = encodingChoice(problem, s) === 'first-split';
   const splits = recursive ? problem.k - 1 : 1; // k − 1 bisections in all
   const budget = s.maxIterations * s.restarts * splits;
   let lastReport = -Infinity, iterationBase = 0, lastIteration = 0;
@@ -135,7 +136,7 @@ export async function solveVariational(problem: Problem, s: CommonSettings, ctx:
   // Gate counts per qubit layout for the circuit the result's params belong to; device time
   // always, noise when asked (docs/runs.md), at those parameters.
   const circuitFields = (encoding: Encoding, warm: ArrayLike<number> | null, which: CircuitSpec['encoding'], out: VariationalOutcome): Partial<SolveResult> => {
-    const spec: CircuitSpec = { ...plan.spec(encoding, warm), encoding: which, penaltyRule: s.penaltyRule };
+    const spec = specOf(plan.spec, s, which, encoding, warm);
     const shots = s.shots > 0 ? s.shots : EXACT_RUN_SHOTS;
     const analysis = analyseRun(problem, spec, out.params,
       { assumptions: defaultAssumptions(), settings: 1, shotsPerSetting: shots, estimates: out.evaluations, readoutShots: s.readoutShots },

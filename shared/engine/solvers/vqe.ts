@@ -1,6 +1,7 @@
 /** `vqe`: a hardware-efficient ansatz (ladder or alternating) on the CPU statevector, optimised, then read out. */
 import { createRng } from '../random';
 import { runVqeOnEncoding } from '../variational/vqe-run';
+import { plannedCircuit, type AnsatzOf } from './circuit-plan';
 import { widestCircuit } from './circuit-qubits';
 import { defineSolver } from './define';
 import { choiceField, numberField, settingsObject } from './settings';
@@ -24,6 +25,10 @@ const settings = settingsObject({
 
 export type VqeSettings = ReturnType<typeof vqeSolver.parseSettings>;
 
+/** VQE's circuit: the ladder (with its entangler) or the alternating ansatz, counted as QAOA's. */
+const vqeAnsatz = (s: { ansatz: 'ladder' | 'alternating'; layers: number; entangler: 'ring' | 'line' }): AnsatzOf => () =>
+  (s.ansatz === 'ladder' ? { ansatz: 'ladder', layers: s.layers, entangler: s.entangler } : { ansatz: 'qaoa', layers: s.layers });
+
 export const vqeSolver = defineSolver({
   name: 'vqe',
   label: 'VQE (simulated quantum circuit)',
@@ -33,11 +38,12 @@ export const vqeSolver = defineSolver({
   settings,
   qubits: circuitQubits,
   circuit: widestCircuit,
+  plannedCircuit: (problem, s) => plannedCircuit(problem, s, vqeAnsatz(s), null),
   refuses: refuseWide,
   async solve(problem, s, ctx) {
     const rng = createRng(ctx.seed);
     return solveVariational(problem, s, ctx, {
-      spec: () => (s.ansatz === 'ladder' ? { ansatz: 'ladder', layers: s.layers, entangler: s.entangler } : { ansatz: 'qaoa', layers: s.layers }),
+      spec: vqeAnsatz(s),
       run: (encoding, _warm, shouldStop, onIteration) => runVqeOnEncoding(encoding, {
         ansatz: s.ansatz, layers: s.layers, entangler: s.entangler, optimizer: s.optimizer, shots: s.shots,
         readoutShots: s.readoutShots, restarts: s.restarts, maxIterations: s.maxIterations, rng, shouldStop, onIteration,
