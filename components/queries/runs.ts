@@ -5,7 +5,7 @@ import type { VersionDetail } from '../../shared/schemas/networks';
 import type { CreateRunBody, PreviewBody, RunDetail, RunListItem, RunPreview, RunProblem, SolverOption } from '../runs/types';
 import { STALE } from './staleTimes';
 import { runKeys } from './runKeys';
-import { useRunStream } from './useRunStream';
+import { useRunStream, useRunStreams } from './useRunStream';
 
 /** While any job of a run is waiting or working and its progress stream is not open, the run is polled this often (ms). */
 export const LIVE_POLL_MS = 1000;
@@ -57,16 +57,26 @@ export function useRunQuery(id: number | null | undefined) {
   return query;
 }
 
-/** Several runs at once (compare). Each polls while live, like useRunQuery. */
+/**
+ * Several runs at once (compare). Like useRunQuery: each run still queued or running follows its
+ * progress stream (useRunStreams) and is polled only while its stream is not open; a finished run
+ * is neither streamed nor polled.
+ */
 export function useRunsByIdQuery(ids: number[]) {
-  return useQueries({
+  const [liveIds, setLiveIds] = useState<number[]>([]);
+  const streaming = useRunStreams(liveIds);
+  const results = useQueries({
     queries: ids.map((id) => ({
       queryKey: runKeys.detail(id),
       staleTime: STALE.live,
       queryFn: () => api.get<RunDetail>(`/runs/${id}`),
-      refetchInterval: (query: { state: { data?: RunDetail } }) => (isLive(query.state.data) ? LIVE_POLL_MS : false),
+      refetchInterval: (query: { state: { data?: RunDetail } }) => (isLive(query.state.data) && !streaming.has(id) ? LIVE_POLL_MS : false),
+      refetchIntervalInBackground: true,
     })),
   });
+  const nowLive = ids.filter((_, i) => isLive(results[i]?.data));
+  if (nowLive.join(',') !== liveIds.join(',')) setLiveIds(nowLive);
+  return results;
 }
 
 export function useSolversQuery() {
@@ -169,8 +179,10 @@ export function useRunVersionQuery(networkId: number | null | undefined, version
 
 /** The versions of several runs at once (compare shows which version each run used). */
 export function useRunVersionsQuery(pairs: Array<{ networkId: number; versionId: number }>) {
+  // Runs on the same version share one query (duplicate keys in one useQueries misbehave).
+  const unique = [...new Map(pairs.map((p) => [`${p.networkId}/${p.versionId}`, p])).values()];
   return useQueries({
-    queries: pairs.map((p) => ({
+    queries: unique.map((p) => ({
       queryKey: runKeys.version(p.networkId, p.versionId),
       staleTime: Infinity,
       queryFn: () => api.get<VersionDetail>(`/networks/${p.networkId}/versions/${p.versionId}`),
