@@ -61,3 +61,13 @@ export function createRng(seed: number): Rng {
 function rotl(x: number, k: number): number {
   return ((x << k) | (x >>> (32 - k))) >>> 0;
 }
+
+/**
+ * A seed for one part of a seeded computation (e.g. block b of stage s): each part gets its own
+ * independent stream that does not depend on the order the parts run in, nor on the process.
+ */
+export function deriveSeed(seed: number, ...parts: number[]): number {
+  let h = Math.floor(seed) >>> 0;
+  for (const p of parts) h = splitmix32((h ^ Math.imul((Math.floor(p) + 1) >>> 0, 0x9e3779b9)) >>> 0)();
+  return h;
+}

@@ -8,7 +8,7 @@ import type { ZodType } from 'zod';
 import type { Problem, ProblemKind } from '../problem/types';
 import type { PlannedCircuit } from './circuit-plan';
 import { parseSettingsWith } from './settings';
-import type { CircuitTarget, SolveContext, SolveResult, SolverDefinition, SolverFamily } from './types';
+import type { CircuitTarget, SolveContext, SolveResult, SolverDefinition, SolverFamily, StagedSolve } from './types';
 
 export interface SolverSpec<Settings> {
   name: string;
@@ -28,6 +28,8 @@ export interface SolverSpec<Settings> {
   /** Refusals beyond the problem kind (the factory checks the kind first). */
   refuses?: (problem: Problem, settings: Settings) => string | null;
   solve: (problem: Problem, settings: Settings, ctx: SolveContext) => Promise<SolveResult>;
+  /** The same solve in stages of independent tasks (types.ts StagedSolve), for hosts that spread them. */
+  staged?: StagedSolve<Settings>;
 }
 
 export const KIND_WORDS: Record<ProblemKind, string> = { maxcut: 'max-cut', bisection: 'balanced bisection', kway: 'k-way (k regions)' };
@@ -53,5 +55,6 @@ export function defineSolver<Settings>(spec: SolverSpec<Settings>): SolverDefini
       return spec.refuses?.(problem, settings) ?? null;
     },
     solve: spec.solve,
+    ...(spec.staged ? { staged: spec.staged } : {}),
   });
 }

@@ -14,7 +14,7 @@ import { crossingWeight, isBalanced, isFeasible, respectsPins } from '../problem
 import { senseOf, type Problem, type Sense } from '../problem/types';
 import { computeBounds } from './bounds';
 import { getSolver, type AnySolverDefinition } from './registry';
-import type { SolveContext, SolveResult } from './types';
+import type { SolveContext, SolveResult, StageStep, TaskContext } from './types';
 
 /** What a bound provider returns (shared/engine/solvers/bounds.ts computeBounds). */
 export interface BoundReport {
@@ -61,8 +61,14 @@ export interface RunOptions {
   bounds?: boolean;
 }
 
+/** A step of a staged solve as hosts see it: tasks to spread, or the checked result. */
+export type StagedRunStep = Extract<StageStep, { kind: 'spread' }> | { kind: 'done'; result: RunResult };
+
 export interface Orchestrator {
   solveProblem(problem: Problem, solverName: string, settings: unknown, ctx: SolveContext, options?: RunOptions): Promise<RunResult>;
+  /** First stage of a staged solver (types.ts StagedSolve); set ctx.startedAt and keep it for the later stages. */
+  startStaged(problem: Problem, solverName: string, settings: unknown, ctx: SolveContext, options?: RunOptions): Promise<StagedRunStep>;
+  resumeStaged(problem: Problem, solverName: string, settings: unknown, state: unknown, answers: unknown[], ctx: SolveContext, options?: RunOptions): Promise<StagedRunStep>;
 }
 
 const close = sameValue;
@@ -79,6 +85,114 @@ function roundBound(problem: Problem, sense: Sense, bound: number): number {
 
 /** An orchestrator over any solver lookup and bound provider (tests pass their own). */
 export function createOrchestrator(lookup: (name: string) => AnySolverDefinition, bounds: BoundsProvider): Orchestrator {
+  /**
+   * The independent check of a solver's answer: value recomputed, pins and balance, bounds kept
+   * only when consistent, gap and optimality derived here.
+   */
+  async function check(problem: Problem, solver: AnySolverDefinition, raw: SolveResult, started: number, watch: ReturnType<typeof watchProgress>, ctx: SolveContext, options: RunOptions): Promise<RunResult> {
+    const sense = senseOf(problem.kind);
+    const solveSeconds = (Date.now() - started) / 1000;
+    const notes: string[] = [...(raw.notes ?? [])];
+    const { n } = problem.network;
+    const assignment = Array.from(raw.assignment ?? []);
+    if (assignment.length !== n || !assignment.every((a) => Number.isInteger(a) && a >= 0 && a < problem.k)) {
+      throw new Error(`solver "${solver.name}" returned an invalid assignment (need ${n} entries in 0…${problem.k - 1}); this is a bug in the solver`);
+    }
+
+    const value = crossingWeight(problem, assignment);
+    if (!(typeof raw.value === 'number' && close(raw.value, value))) {
+      notes.push(`the solver reported value ${raw.value}; the recomputed value ${value} is shown`);
+    }
+    const pinsOk = respectsPins(problem, assignment);
+    const balanced = isBalanced(problem, assignment);
+    const infeasible = !pinsOk || !balanced;
+    if (!pinsOk) notes.push('the assignment moves a pinned depot');
+    if (!balanced) notes.push('the assignment breaks the balance rule');
+
+    // Bounds: keep each candidate only if it does not contradict the feasible value found.
+    const candidates: { bound: number; source: string }[] = [];
+    if (typeof raw.bound === 'number' && Number.isFinite(raw.bound)) candidates.push({ bound: raw.bound, source: 'solver' });
+    if (options.bounds !== false) {
+      // A failed bound costs the run its gap, not its answer.
+      try {
+        const report = await bounds(problem, { knownValue: infeasible ? null : value, seed: ctx.seed });
+        if (report.bound !== null && Number.isFinite(report.bound)) candidates.push({ bound: report.bound, source: report.source });
+      } catch (e) {
+        notes.push(`no classical bound: ${e instanceof Error ? e.message : String(e)}`);
+      }
+    }
+    // Another solver of this run proved `known` optimal: it bounds this answer too.
+    const known = watch.knownOptimum();
+    if (known !== null) candidates.push({ bound: known, source: 'the optimum another solver of this run proved' });
+    let bound: number | null = null, boundSource: string | null = null;
+    for (const c of candidates) {
+      const b = roundBound(problem, sense, c.bound);
+      if (!infeasible && contradicts(sense, value, b)) {
+        notes.push(`bound ${c.bound} from ${c.source} contradicts the value found (${value}) and was discarded`);
+        continue;
+      }
+      if (bound === null || tighter(sense, b, bound)) {
+        bound = b;
+        boundSource = b === c.bound ? c.source : `${c.source}, rounded to integer weights`;
+      }
+    }
+    const gap = infeasible ? null : gapOf(sense, value, bound);
+    const provenOptimal = !infeasible && meets(sense, value, bound);
+    if (raw.provenOptimal && !provenOptimal) notes.push('the solver claimed optimality but no bound confirms it');
+
+    const result: RunResult = {
+      solver: solver.name,
+      sense,
+      value,
+      assignment,
+      bound,
+      boundSource,
+      gap,
+      provenOptimal,
+      energy: raw.energy ?? null,
+      expectation: raw.expectation ?? null,
+      params: raw.params ? Array.from(raw.params) : null,
+      seconds: solveSeconds,
+      evaluations: raw.evaluations ?? 0,
+      shots: raw.shots ?? 0,
+      infeasible,
+      notes,
+      secondsToBest: watch.secondsToBest(value) ?? solveSeconds,
+    };
+    if (watch.stopped() && !infeasible && known !== null && close(value, known)) {
+      result.stoppedAtKnownOptimum = true;
+      notes.push('stopped early: it reached the value another solver of this run proved optimal, so searching on could not improve it');
+    }
+    if (raw.trace) result.trace = raw.trace;
+    // Every sample says whether it is feasible (recomputed here), so lists and charts rank it the same way.
+    if (raw.samples) result.samples = raw.samples.map((x) => ({ ...x, feasible: isFeasible(problem, x.assignment) }));
+    if (raw.circuit) result.circuit = raw.circuit;
+    if (raw.circuitSpec) result.circuitSpec = raw.circuitSpec;
+    if (raw.refinement) result.refinement = raw.refinement;
+    if (raw.recursion) result.recursion = raw.recursion;
+    if (raw.deviceTime) result.deviceTime = raw.deviceTime;
+    // Noise ratios against the run's bound (else its value), known only here.
+    if (raw.noise) result.noise = withReference(raw.noise, problem.kind, bound !== null ? { value: bound, what: `the bound (${boundSource})` } : { value, what: 'the value found by this solver' });
+    return result;
+  }
+
+  /** The solver, its parsed settings and its staged form, or why it cannot run in stages. */
+  function stagedOf(problem: Problem, solverName: string, settingsInput: unknown) {
+    const solver = lookup(solverName);
+    const settings = solver.parseSettings(settingsInput ?? {});
+    const reason = solver.refuses(problem, settings);
+    if (reason !== null) throw new SolverRefusedError(solver.name, reason);
+    if (!solver.staged) throw new Error(`solver "${solver.name}" does not run in stages`);
+    return { solver, settings, staged: solver.staged };
+  }
+
+  /** A spread step as it is, a done step checked like any answer (its time counts from ctx.startedAt). */
+  async function checkedStep(problem: Problem, solver: AnySolverDefinition, step: StageStep, ctx: SolveContext, options: RunOptions): Promise<StagedRunStep> {
+    if (step.kind === 'spread') return step;
+    const started = ctx.startedAt ?? Date.now();
+    return { kind: 'done', result: await check(problem, solver, step.result, started, watchProgress(ctx, senseOf(problem.kind), false, started), ctx, options) };
+  }
+
   return {
     async solveProblem(problem, solverName, settingsInput, ctx, options = {}) {
       const solver = lookup(solverName);
@@ -90,89 +204,15 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
       const sense = senseOf(problem.kind);
       const watch = watchProgress(ctx, sense, solver.family === 'heuristic', started);
       const raw = await solver.solve(problem, settings, watch.ctx);
-      const solveSeconds = (Date.now() - started) / 1000;
-      const notes: string[] = [...(raw.notes ?? [])];
-      const { n } = problem.network;
-      const assignment = Array.from(raw.assignment ?? []);
-      if (assignment.length !== n || !assignment.every((a) => Number.isInteger(a) && a >= 0 && a < problem.k)) {
-        throw new Error(`solver "${solver.name}" returned an invalid assignment (need ${n} entries in 0…${problem.k - 1}); this is a bug in the solver`);
-      }
-
-      const value = crossingWeight(problem, assignment);
-      if (!(typeof raw.value === 'number' && close(raw.value, value))) {
-        notes.push(`the solver reported value ${raw.value}; the recomputed value ${value} is shown`);
-      }
-      const pinsOk = respectsPins(problem, assignment);
-      const balanced = isBalanced(problem, assignment);
-      const infeasible = !pinsOk || !balanced;
-      if (!pinsOk) notes.push('the assignment moves a pinned depot');
-      if (!balanced) notes.push('the assignment breaks the balance rule');
-
-      // Bounds: keep each candidate only if it does not contradict the feasible value found.
-      const candidates: { bound: number; source: string }[] = [];
-      if (typeof raw.bound === 'number' && Number.isFinite(raw.bound)) candidates.push({ bound: raw.bound, source: 'solver' });
-      if (options.bounds !== false) {
-        // A failed bound costs the run its gap, not its answer.
-        try {
-          const report = await bounds(problem, { knownValue: infeasible ? null : value, seed: ctx.seed });
-          if (report.bound !== null && Number.isFinite(report.bound)) candidates.push({ bound: report.bound, source: report.source });
-        } catch (e) {
-          notes.push(`no classical bound: ${e instanceof Error ? e.message : String(e)}`);
-        }
-      }
-      // Another solver of this run proved `known` optimal: it bounds this answer too.
-      const known = watch.knownOptimum();
-      if (known !== null) candidates.push({ bound: known, source: 'the optimum another solver of this run proved' });
-      let bound: number | null = null, boundSource: string | null = null;
-      for (const c of candidates) {
-        const b = roundBound(problem, sense, c.bound);
-        if (!infeasible && contradicts(sense, value, b)) {
-          notes.push(`bound ${c.bound} from ${c.source} contradicts the value found (${value}) and was discarded`);
-          continue;
-        }
-        if (bound === null || tighter(sense, b, bound)) {
-          bound = b;
-          boundSource = b === c.bound ? c.source : `${c.source}, rounded to integer weights`;
-        }
-      }
-      const gap = infeasible ? null : gapOf(sense, value, bound);
-      const provenOptimal = !infeasible && meets(sense, value, bound);
-      if (raw.provenOptimal && !provenOptimal) notes.push('the solver claimed optimality but no bound confirms it');
-
-      const result: RunResult = {
-        solver: solver.name,
-        sense,
-        value,
-        assignment,
-        bound,
-        boundSource,
-        gap,
-        provenOptimal,
-        energy: raw.energy ?? null,
-        expectation: raw.expectation ?? null,
-        params: raw.params ? Array.from(raw.params) : null,
-        seconds: solveSeconds,
-        evaluations: raw.evaluations ?? 0,
-        shots: raw.shots ?? 0,
-        infeasible,
-        notes,
-        secondsToBest: watch.secondsToBest(value) ?? solveSeconds,
-      };
-      if (watch.stopped() && !infeasible && known !== null && close(value, known)) {
-        result.stoppedAtKnownOptimum = true;
-        notes.push('stopped early: it reached the value another solver of this run proved optimal, so searching on could not improve it');
-      }
-      if (raw.trace) result.trace = raw.trace;
-      // Every sample says whether it is feasible (recomputed here), so lists and charts rank it the same way.
-      if (raw.samples) result.samples = raw.samples.map((x) => ({ ...x, feasible: isFeasible(problem, x.assignment) }));
-      if (raw.circuit) result.circuit = raw.circuit;
-      if (raw.circuitSpec) result.circuitSpec = raw.circuitSpec;
-      if (raw.refinement) result.refinement = raw.refinement;
-      if (raw.recursion) result.recursion = raw.recursion;
-      if (raw.deviceTime) result.deviceTime = raw.deviceTime;
-      // Noise ratios against the run's bound (else its value), known only here.
-      if (raw.noise) result.noise = withReference(raw.noise, problem.kind, bound !== null ? { value: bound, what: `the bound (${boundSource})` } : { value, what: 'the value found by this solver' });
-      return result;
+      return check(problem, solver, raw, started, watch, ctx, options);
+    },
+    async startStaged(problem, solverName, settingsInput, ctx, options = {}) {
+      const { solver, settings, staged } = stagedOf(problem, solverName, settingsInput);
+      return checkedStep(problem, solver, staged.start(problem, settings, ctx), ctx, options);
+    },
+    async resumeStaged(problem, solverName, settingsInput, state, answers, ctx, options = {}) {
+      const { solver, settings, staged } = stagedOf(problem, solverName, settingsInput);
+      return checkedStep(problem, solver, staged.resume(problem, settings, state, answers, ctx), ctx, options);
     },
   };
 }
@@ -211,6 +251,19 @@ function watchProgress(ctx: SolveContext, sense: Sense, stopAtOptimum: boolean, 
 }
 
 const defaultOrchestrator = createOrchestrator(getSolver, computeBounds as BoundsProvider);
+
+export const startStaged: Orchestrator['startStaged'] = (...args) => defaultOrchestrator.startStaged(...args);
+export const resumeStaged: Orchestrator['resumeStaged'] = (...args) => defaultOrchestrator.resumeStaged(...args);
+
+/** One task of a staged solver's stage (answers are plain JSON, like the tasks). */
+export function runStagedTask(solverName: string, task: unknown, ctx: TaskContext): unknown {
+  const solver = getSolver(solverName);
+  if (!solver.staged) throw new Error(`solver "${solver.name}" does not run in stages`);
+  return solver.staged.runTask(task, ctx);
+}
+
+/** Whether a registered solver can run in stages (the worker asks before planning a spread). */
+export const runsInStages = (solverName: string): boolean => getSolver(solverName).staged !== undefined;
 
 /** Runs a registered solver on a problem and returns the independently checked result. */
 export function solveProblem(problem: Problem, solverName: string, settings: unknown, ctx: SolveContext, options?: RunOptions): Promise<RunResult> {

@@ -5,11 +5,13 @@
  */
 import { freeDepots } from '../classical/result';
 import { crossingWeight, isBalanced } from '../problem/evaluate';
-import { createRng } from '../random';
-import { decomposeBisection, decomposeMaxcut } from '../variational/decompose';
+import type { Problem } from '../problem/types';
+import { runBlockTask, type BlockAnswer, type BlockTask } from '../variational/block-task';
+import { decomposeByBlocks, planBlocks, resumeBlocks, type BlocksState, type BlocksStep } from '../variational/block-stages';
+import type { DecomposeOutcome } from '../variational/decompose';
 import { defineSolver } from './define';
 import { booleanField, intField, settingsObject } from './settings';
-import type { TracePoint } from './types';
+import type { SolveContext, SolveResult, StageStep, TracePoint } from './types';
 /** Depots per block unless the block size setting says otherwise. */
 const DEFAULT_BLOCK_SIZE = 14;
 
@@ -29,6 +31,55 @@ const settings = settingsObject({
 /** Most slack qubits a block's bisection encoding adds (encodings/bisection.ts maxSlackBits default). */
 const BLOCK_SLACK_QUBITS = 5;
 
+type Settings = ReturnType<typeof settings.parse>;
+
+/** Seconds since the solve began (a staged solve counts from its first stage, in whatever process) and the stop rule. */
+function clockOf(ctx: SolveContext) {
+  const started = ctx.startedAt ?? Date.now();
+  const elapsed = () => (Date.now() - started) / 1000;
+  return { elapsed, shouldStop: () => elapsed() >= ctx.timeLimitSeconds || ctx.cancel?.cancelled === true };
+}
+
+function stepOf(problem: Problem, s: Settings, step: BlocksStep, clock: ReturnType<typeof clockOf>): StageStep {
+  return step.kind === 'spread' ? step : { kind: 'done', result: resultOf(problem, s, step.outcome, clock.elapsed()) };
+}
+
+/** The solver's answer and notes from the decomposition's outcome. */
+function resultOf(problem: Problem, s: Settings, outcome: DecomposeOutcome, seconds: number): SolveResult {
+  const trace: TracePoint[] = outcome.trace.map((p) => ({ iteration: p.iteration, energy: p.energy, stdError: p.stdError, seconds: p.seconds }));
+  const assignment = Array.from(outcome.assignment);
+  const largest = outcome.blocks.reduce((q, b) => Math.max(q, b.qubits), 0);
+  const how = { exact: 'exact enumeration', rqaoa: 'recursive QAOA (level 1, closed form)', local: 'greedy flips', single: 'none needed' }[outcome.merge.method];
+  const notes = [
+    `${outcome.merge.blocks} block(s) of at most ${s.blockSize} depots (largest circuit ${largest} qubits); block orientations by ${how}${problem.kind === 'bisection' ? ' under the balance rule' : ''} (gain ${outcome.merge.gain})`,
+    problem.kind === 'maxcut'
+      ? `merged cut ${outcome.mergedValue}; block re-solves with fixed surroundings gained ${outcome.roundsGain}; ${s.refine ? `1-flip refinement made ${outcome.refineFlips} flip(s)` : 'no classical refinement'}`
+      : `merged crossing weight ${outcome.unrefinedValue}; ${s.refine ? `whole-block moves and flip-and-swap refinement inside the balance window made ${outcome.refineFlips} move(s)` : 'no classical refinement'}`,
+    s.refine ? `classical local search refined the answer: ${outcome.unrefinedValue} before it${problem.kind === 'maxcut' ? ' (after the merge; the improvement rounds interleave with it)' : ''}` : 'the answer is the blocks\' QAOA and the merge alone (refine off)',
+    'heuristic: no optimality guarantee',
+  ];
+  if (outcome.stopped) notes.push('stopped early (time limit or cancel): later blocks kept their starting sides');
+  const feasible = isBalanced(problem, assignment);
+  if (!feasible) notes.push('the answer breaks the balance rule (reported, not hidden)');
+  return {
+    ...(feasible ? {} : { infeasible: true }),
+    refinement: { applied: s.refine, unrefinedValue: outcome.unrefinedValue, unrefinedInfeasible: !outcome.unrefinedFeasible, moves: outcome.refineFlips },
+    value: crossingWeight(problem, assignment),
+    assignment,
+    bound: null,
+    gap: null,
+    provenOptimal: false,
+    energy: null,
+    expectation: null,
+    params: null,
+    seconds,
+    evaluations: outcome.evaluations,
+    shots: outcome.shots,
+    trace,
+    notes,
+  };
+}
+
 export const qaoaBlocksSolver = defineSolver({
   name: 'qaoa-blocks',
   label: 'QAOA by blocks (decomposition for large networks)',
@@ -47,53 +98,27 @@ export const qaoaBlocksSolver = defineSolver({
     return block > 0 && problem.kind === 'bisection' ? block + BLOCK_SLACK_QUBITS : block;
   },
   async solve(problem, s, ctx) {
-    const started = performance.now();
-    const elapsed = () => (performance.now() - started) / 1000;
-    const rng = createRng(ctx.seed);
-    const trace: TracePoint[] = [];
+    const clock = clockOf(ctx);
     let lastReport = -Infinity;
-    const decompose = problem.kind === 'bisection' ? decomposeBisection : decomposeMaxcut;
-    const outcome = decompose(problem, s, rng, {
-      shouldStop: () => elapsed() >= ctx.timeLimitSeconds || ctx.cancel?.cancelled === true,
-      onStep: (fraction, bestValue) => ctx.onProgress?.({ fraction: Math.max(fraction, Math.min(1, elapsed() / ctx.timeLimitSeconds)), bestValue }),
+    const outcome = decomposeByBlocks(problem, s, ctx.seed, {
+      shouldStop: clock.shouldStop,
+      onStep: (fraction, bestValue) => ctx.onProgress?.({ fraction: Math.max(fraction, Math.min(1, clock.elapsed() / ctx.timeLimitSeconds)), bestValue }),
       onIteration: (p) => {
-        trace.push({ iteration: p.iteration, energy: p.energy, stdError: p.stdError, seconds: elapsed() });
-        if (elapsed() - lastReport >= 0.1) {
-          lastReport = elapsed();
-          ctx.onProgress?.({ fraction: Math.min(1, elapsed() / ctx.timeLimitSeconds), iteration: p.iteration, energy: p.energy, stdError: p.stdError });
+        if (clock.elapsed() - lastReport >= 0.1) {
+          lastReport = clock.elapsed();
+          ctx.onProgress?.({ fraction: Math.min(1, clock.elapsed() / ctx.timeLimitSeconds), iteration: p.iteration, energy: p.energy, stdError: p.stdError });
         }
       },
-    });
-    const assignment = Array.from(outcome.assignment);
-    const largest = outcome.blocks.reduce((q, b) => Math.max(q, b.qubits), 0);
-    const how = { exact: 'exact enumeration', rqaoa: 'recursive QAOA (level 1, closed form)', local: 'greedy flips', single: 'none needed' }[outcome.merge.method];
-    const notes = [
-      `${outcome.merge.blocks} block(s) of at most ${s.blockSize} depots (largest circuit ${largest} qubits); block orientations by ${how}${problem.kind === 'bisection' ? ' under the balance rule' : ''} (gain ${outcome.merge.gain})`,
-      problem.kind === 'maxcut'
-        ? `merged cut ${outcome.mergedValue}; block re-solves with fixed surroundings gained ${outcome.roundsGain}; ${s.refine ? `1-flip refinement made ${outcome.refineFlips} flip(s)` : 'no classical refinement'}`
-        : `merged crossing weight ${outcome.unrefinedValue}; ${s.refine ? `whole-block moves and flip-and-swap refinement inside the balance window made ${outcome.refineFlips} move(s)` : 'no classical refinement'}`,
-      s.refine ? `classical local search refined the answer: ${outcome.unrefinedValue} before it${problem.kind === 'maxcut' ? ' (after the merge; the improvement rounds interleave with it)' : ''}` : 'the answer is the blocks\' QAOA and the merge alone (refine off)',
-      'heuristic: no optimality guarantee',
-    ];
-    if (outcome.stopped) notes.push('stopped early (time limit or cancel): later blocks kept their starting sides');
-    const feasible = isBalanced(problem, assignment);
-    if (!feasible) notes.push('the answer breaks the balance rule (reported, not hidden)');
-    return {
-      ...(feasible ? {} : { infeasible: true }),
-      refinement: { applied: s.refine, unrefinedValue: outcome.unrefinedValue, unrefinedInfeasible: !outcome.unrefinedFeasible, moves: outcome.refineFlips },
-      value: crossingWeight(problem, assignment),
-      assignment,
-      bound: null,
-      gap: null,
-      provenOptimal: false,
-      energy: null,
-      expectation: null,
-      params: null,
-      seconds: elapsed(),
-      evaluations: outcome.evaluations,
-      shots: outcome.shots,
-      trace,
-      notes,
-    };
+    }, ctx.stateKernels);
+    return resultOf(problem, s, outcome, clock.elapsed());
+  },
+  /** The same stages for a host that spreads the block solves (the solve worker, over the job queue). */
+  staged: {
+    start: (problem, s, ctx) => stepOf(problem, s, planBlocks(problem, s, ctx.seed), clockOf(ctx)),
+    resume: (problem, s, state, answers, ctx) => {
+      const clock = clockOf(ctx);
+      return stepOf(problem, s, resumeBlocks(problem, s, ctx.seed, state as BlocksState, answers as BlockAnswer[], { shouldStop: clock.shouldStop }), clock);
+    },
+    runTask: (task, ctx) => runBlockTask(task as BlockTask, { shouldStop: () => ctx.shouldStop(), stateKernels: ctx.stateKernels }),
   },
 });

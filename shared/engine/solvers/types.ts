@@ -101,6 +101,8 @@ export interface SolveContext {
   knownOptimum?: () => number | null;
   /** Faster statevector kernels the host loaded (server/CLI: WebAssembly); JS kernels without. */
   stateKernels?: LayerBackend;
+  /** Epoch ms the solve began; a staged solve resumed in another process counts its time from it. */
+  startedAt?: number;
 }
 
 export type SolverFamily = 'exact' | 'bound' | 'heuristic' | 'variational';
@@ -142,6 +144,8 @@ export interface SolverDefinition<Settings = Record<string, unknown>> {
   /** Null when the solver can take the problem, else the reason it refuses (wrong kind, too large, …). */
   refuses(problem: Problem, settings: Settings): string | null;
   solve(problem: Problem, settings: Settings, ctx: SolveContext): Promise<SolveResult>;
+  /** Solvers whose heavy work splits into independent tasks: the same solve in stages. */
+  staged?: StagedSolve<Settings>;
 }
 
 /** One elimination of recursive QAOA as the run screen shows it. */
@@ -161,4 +165,29 @@ export interface RecursionReport {
   /** Eliminations in order (at most the first 2,000; `eliminationsTotal` counts all). */
   eliminations: RecursionStep[];
   eliminationsTotal: number;
+}
+
+/**
+ * A step of a staged solve: either the answer, or independent tasks (plain JSON) that may run
+ * in any order and any process, after which the solve resumes from `state` with their answers.
+ */
+export type StageStep =
+  | { kind: 'spread'; state: unknown; tasks: unknown[]; progress: { from: number; to: number } }
+  | { kind: 'done'; result: SolveResult };
+
+/** What a task runner gives a task: the stop rule (time limit, cancel) and the host's kernels. */
+export interface TaskContext {
+  shouldStop(): boolean;
+  stateKernels?: LayerBackend;
+}
+
+/**
+ * A solver whose heavy work splits into independent tasks (qaoa-blocks): the host may run the
+ * tasks itself (what `solve` does) or spread them over workers (server/workers/spread-job.ts).
+ * Same stages, same seeds per task: the same answer either way.
+ */
+export interface StagedSolve<Settings> {
+  start(problem: Problem, settings: Settings, ctx: SolveContext): StageStep;
+  resume(problem: Problem, settings: Settings, state: unknown, answers: unknown[], ctx: SolveContext): StageStep;
+  runTask(task: unknown, ctx: TaskContext): unknown;
 }

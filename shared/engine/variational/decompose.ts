@@ -109,7 +109,7 @@ export function splitIntoBlocks(network: CompactNetwork, blockSize: number, rng:
 }
 
 /** The sub-problem of one block: its depots, the lanes among them, and the problem's pins. */
-function blockProblem(problem: Problem, members: number[], kind: 'maxcut' | 'bisection' = 'maxcut'): Problem {
+export function blockProblem(problem: Problem, members: number[], kind: 'maxcut' | 'bisection' = 'maxcut'): Problem {
   const local = new Map(members.map((v, i) => [v, i]));
   const { adjStart, adjIndex, adjWeight } = problem.network;
   const edges: [number, number, number][] = [];
@@ -129,7 +129,7 @@ function blockProblem(problem: Problem, members: number[], kind: 'maxcut' | 'bis
  * depot outside the block that shares a lane with it is pinned to its current side. The first
  * `members.length` depots of the sub-problem are the block's.
  */
-function blockInContext(problem: Problem, members: number[], sides: ArrayLike<number>): { sub: Problem; around: number[] } {
+export function blockInContext(problem: Problem, members: number[], sides: ArrayLike<number>): { sub: Problem; around: number[] } {
   const local = new Map(members.map((v, i) => [v, i]));
   const around: number[] = [];
   const { adjStart, adjIndex } = problem.network;
@@ -201,150 +201,13 @@ export function blockCouplings(network: CompactNetwork, blockOf: Int32Array, blo
 }
 
 /** Blocks of at most `blockSize` depots: each depot's block, and each block's depots in order. */
-function blockMembers(network: CompactNetwork, blockSize: number, rng: Rng): { blockOf: Int32Array; members: number[][] } {
+export function blockMembers(network: CompactNetwork, blockSize: number, rng: Rng): { blockOf: Int32Array; members: number[][] } {
   const blockOf = splitIntoBlocks(network, blockSize, rng);
   let blockCount = 0;
   for (let i = 0; i < network.n; i++) blockCount = Math.max(blockCount, blockOf[i] + 1);
   const members: number[][] = Array.from({ length: blockCount }, () => []);
   for (let i = 0; i < network.n; i++) members[blockOf[i]].push(i);
   return { blockOf, members };
-}
-
-export function decomposeMaxcut(problem: Problem, opts: DecomposeOptions, rng: Rng, control: DecomposeControl): DecomposeOutcome {
-  const { network } = problem;
-  const n = network.n;
-  const { blockOf, members } = blockMembers(network, opts.blockSize, rng);
-  const blockCount = members.length;
-
-  const assignment = Int32Array.from(problem.pins, (p) => (p >= 0 ? p : 0));
-  const blocks: BlockReport[] = [];
-  const trace: VariationalTracePoint[] = [];
-  let evaluations = 0, shots = 0, iterationBase = 0, stopped = false;
-
-  // 2. Each block on its own.
-  members.forEach((list, b) => {
-    const sub = blockProblem(problem, list);
-    const encoding = encodeMaxCut(sub);
-    let sides: ArrayLike<number>;
-    if (encoding.numQubits === 0 || control.shouldStop()) {
-      sides = Int32Array.from(sub.pins, (p) => (p >= 0 ? p : 0));
-      if (encoding.numQubits > 0) stopped = true;
-    } else {
-      const out = runQaoa({
-        encoding, layers: opts.layers, optimizer: opts.shots > 0 ? 'spsa' : 'nelder-mead', shots: opts.shots, readoutShots: opts.readoutShots,
-        restarts: opts.restarts, maxIterations: opts.maxIterations, rng, shouldStop: () => control.shouldStop(),
-        onIteration: (p) => {
-          const point = { ...p, iteration: iterationBase + p.iteration };
-          trace.push(point);
-          control.onIteration?.(point);
-        },
-      });
-      iterationBase = trace.length > 0 ? trace[trace.length - 1].iteration : iterationBase;
-      evaluations += out.evaluations;
-      shots += out.shotsUsed;
-      if (out.stopped) stopped = true;
-      sides = out.best ? out.best.assignment : Int32Array.from(sub.pins, (p) => (p >= 0 ? p : 0));
-      blocks.push({ depots: list.length, qubits: encoding.numQubits, value: crossingWeight(sub, sides), evaluations: out.evaluations });
-    }
-    if (encoding.numQubits === 0) blocks.push({ depots: list.length, qubits: 0, value: crossingWeight(sub, sides), evaluations: 0 });
-    list.forEach((v, i) => (assignment[v] = sides[i]));
-    control.onStep?.((b + 1) / (blockCount + 1), undefined);
-  });
-
-  // 3. Orientation of each block: max-cut over blocks with w'_ab = Σ w_uv s_u s_v.
-  const beforeMerge = crossingWeight(problem, assignment);
-  let mergeMethod: DecomposeOutcome['merge']['method'] = 'single';
-  if (blockCount > 1) {
-    const edges = blockCouplings(network, blockOf, blockCount, assignment);
-    // A block holding a pinned depot keeps its orientation (flipping it would move the pin).
-    const blockPins = new Int32Array(blockCount).fill(-1);
-    for (let i = 0; i < n; i++) if (problem.pins[i] >= 0) blockPins[blockOf[i]] = 0;
-    if (blockPins.every((p) => p < 0)) blockPins[0] = 0; // the global flip changes nothing
-    const mergeProblem: Problem = { kind: 'maxcut', k: 2, network: compactFromEdges(blockCount, edges), pins: blockPins, tolerance: 0 };
-    const freeBlocks = freeDepots(blockPins).length;
-    let flip: ArrayLike<number>;
-    if (freeBlocks <= opts.mergeExactLimit) {
-      mergeMethod = 'exact';
-      flip = exactSmallMaxcut(mergeProblem);
-    } else {
-      // Any number of blocks: recursive QAOA on the block graph (closed-form level 1, no
-      // statevector wider than mergeExactLimit), so the merge itself never needs a large circuit.
-      mergeMethod = 'rqaoa';
-      const encoding = encodeMaxCut(mergeProblem);
-      const out = runRqaoa(encoding.operator, {
-        stopAt: Math.min(opts.mergeExactLimit, RQAOA_MAX_REMAINDER), batchFraction: defaultBatchFraction(encoding.numQubits), hurry: () => control.shouldStop(),
-      });
-      evaluations += out.evaluations;
-      flip = encoding.decode(bitsOfSpins(out.spins));
-    }
-    for (let i = 0; i < n; i++) if (flip[blockOf[i]] === 1) assignment[i] ^= 1;
-  }
-  const mergedValue = crossingWeight(problem, assignment);
-  control.onStep?.(blockCount / (blockCount + 1), mergedValue);
-
-  // 4. Improvement rounds: each block again, its surroundings fixed; 1-flip refinement between.
-  let current = assignment;
-  let currentValue = mergedValue;
-  const freeAll = freeDepots(problem.pins);
-  const polish = (a: ArrayLike<number>) => {
-    const st = createFlipState(network, a);
-    const flips = polishMaxcut(problem, st, freeAll);
-    return { sides: Int32Array.from(st.side), flips, value: st.cut };
-  };
-  let refineFlips = 0;
-  let roundsGain = 0;
-  for (let round = 0; round < opts.rounds && blockCount > 1 && !control.shouldStop(); round++) {
-    if (opts.refine) {
-      const polished = polish(current);
-      refineFlips += polished.flips;
-      current = polished.sides;
-    }
-    const startValue = crossingWeight(problem, current);
-    currentValue = startValue;
-    for (const list of members) {
-      if (control.shouldStop()) break;
-      const { sub } = blockInContext(problem, list, current);
-      const encoding = encodeMaxCut(sub);
-      if (encoding.numQubits === 0) continue;
-      const out = runQaoa({
-        encoding, layers: opts.layers, optimizer: opts.shots > 0 ? 'spsa' : 'nelder-mead', shots: opts.shots, readoutShots: opts.readoutShots,
-        restarts: 1, maxIterations: opts.maxIterations, rng, shouldStop: () => control.shouldStop(),
-      });
-      evaluations += out.evaluations;
-      shots += out.shotsUsed;
-      if (!out.best) continue;
-      const trial = current.slice();
-      list.forEach((v, i) => (trial[v] = out.best!.assignment[i]));
-      const value = crossingWeight(problem, trial);
-      if (value > currentValue + 1e-12) {
-        current = trial;
-        currentValue = value;
-      }
-    }
-    roundsGain += currentValue - startValue;
-    control.onStep?.(1, currentValue);
-    if (currentValue <= startValue + 1e-12) break; // a round that changed nothing: later ones would not either
-  }
-
-  // 5. Final 1-flip refinement on the whole network (free depots only).
-  const st = createFlipState(network, current);
-  if (opts.refine) refineFlips += polishMaxcut(problem, st, freeAll);
-  const final = Int32Array.from(st.side);
-  return {
-    unrefinedValue: opts.refine ? mergedValue : crossingWeight(problem, final),
-    unrefinedFeasible: true,
-    assignment: final,
-    blocks,
-    blockOf,
-    merge: { method: mergeMethod, blocks: blockCount, gain: mergedValue - beforeMerge },
-    mergedValue,
-    roundsGain,
-    refineFlips,
-    evaluations,
-    shots,
-    trace,
-    stopped,
-  };
 }
 
 /**
@@ -399,110 +262,13 @@ export function orientForBisection(
 }
 
 /**
- * Balanced bisection by blocks: each block bisected by QAOA (its own balance rule, penalty
- * encoding of encodings/bisection.ts), blocks oriented by orientForBisection under the global
- * window, then the classical local search (flips and swaps inside the window).
- */
-export function decomposeBisection(problem: Problem, opts: DecomposeOptions, rng: Rng, control: DecomposeControl): DecomposeOutcome {
-  const { network } = problem;
-  const n = network.n;
-  const { blockOf, members } = blockMembers(network, opts.blockSize, rng);
-  const blockCount = members.length;
-  const assignment = Int32Array.from(problem.pins, (p) => (p >= 0 ? p : 0));
-  const blocks: BlockReport[] = [];
-  const trace: VariationalTracePoint[] = [];
-  let evaluations = 0, shots = 0, iterationBase = 0, stopped = false;
-
-  members.forEach((list, b) => {
-    const sub = blockProblem(problem, list, 'bisection');
-    let sides: ArrayLike<number> = randomBalancedSides(sub, rng);
-    let qubits = 0, evals = 0;
-    if (list.length >= 2 && !sub.pins.every((p) => p >= 0) && !control.shouldStop()) {
-      const encoding = encodeBisection(sub);
-      qubits = encoding.numQubits;
-      if (qubits <= opts.blockSize + 5) {
-        const out = runQaoa({
-          encoding, layers: opts.layers, optimizer: opts.shots > 0 ? 'spsa' : 'nelder-mead', shots: opts.shots, readoutShots: opts.readoutShots,
-          restarts: opts.restarts, maxIterations: opts.maxIterations, rng, shouldStop: () => control.shouldStop(),
-          onIteration: (p) => {
-            const point = { ...p, iteration: iterationBase + p.iteration };
-            trace.push(point);
-            control.onIteration?.(point);
-          },
-        });
-        iterationBase = trace.length > 0 ? trace[trace.length - 1].iteration : iterationBase;
-        evals = out.evaluations;
-        evaluations += out.evaluations;
-        shots += out.shotsUsed;
-        if (out.stopped) stopped = true;
-        if (out.best && out.best.feasible) sides = out.best.assignment;
-      }
-    } else if (control.shouldStop()) stopped = true;
-    blocks.push({ depots: list.length, qubits, value: crossingWeight(sub, sides), evaluations: evals });
-    list.forEach((v, i) => (assignment[v] = sides[i]));
-    control.onStep?.((b + 1) / (blockCount + 1), undefined);
-  });
-
-  const beforeMerge = crossingWeight(problem, assignment);
-  let mergeMethod: DecomposeOutcome['merge']['method'] = 'single';
-  let blockFixed = new Uint8Array(blockCount);
-  if (blockCount > 1) {
-    const couplings = blockCouplings(network, blockOf, blockCount, assignment);
-    const imbalance = new Float64Array(blockCount);
-    const fixed = new Uint8Array(blockCount);
-    let total = 0;
-    for (let i = 0; i < n; i++) {
-      imbalance[blockOf[i]] += assignment[i] === 1 ? network.depotWeight[i] : -network.depotWeight[i];
-      total += network.depotWeight[i];
-      if (problem.pins[i] >= 0) fixed[blockOf[i]] = 1;
-    }
-    if (fixed.every((f) => f === 0)) fixed[0] = 1; // the global flip changes nothing
-    const { flip, method } = orientForBisection(couplings, imbalance, total, balanceWindow(problem), fixed, opts.mergeExactLimit);
-    mergeMethod = method;
-    for (let i = 0; i < n; i++) if (flip[blockOf[i]] === 1) assignment[i] ^= 1;
-    blockFixed = fixed;
-  }
-  const unrefinedValue = crossingWeight(problem, assignment);
-  const unrefinedFeasible = isBalanced(problem, assignment);
-  let refineFlips = 0;
-  // The split found few lanes between blocks, so a block kept whole on one side is often
-  // cheaper than the block's own bisection: try that per pair of free blocks (one whole on
-  // each side keeps the balance), kept when the crossing weight drops inside the window.
-  if (opts.refine && blockCount > 1) refineFlips += wholeBlockMoves(problem, members, blockFixed, assignment, () => control.shouldStop());
-  const mergedValue = crossingWeight(problem, assignment);
-  control.onStep?.(blockCount / (blockCount + 1), mergedValue);
-
-  const free = freeDepots(problem.pins);
-  const st = createFlipState(network, assignment);
-  if (opts.refine) {
-    if (!isBalanced(problem, st.side)) refineFlips += repairBalance(problem, st, free);
-    refineFlips += polishBisection(problem, st, free);
-  }
-  return {
-    unrefinedValue,
-    unrefinedFeasible,
-    assignment: Int32Array.from(st.side),
-    blocks,
-    blockOf,
-    merge: { method: mergeMethod, blocks: blockCount, gain: beforeMerge - mergedValue },
-    mergedValue,
-    roundsGain: 0,
-    refineFlips,
-    evaluations,
-    shots,
-    trace,
-    stopped,
-  };
-}
-
-/**
  * Pair moves over blocks: put block a wholly on side 0 and block b wholly on side 1 (each either
  * bisected or whole before) when that lowers the crossing weight and keeps the balance window;
  * repeated until no pair helps. Each try flips the depots of a and b on a flip state and undoes
  * them when the move does not help: O(lanes of a and b) per pair, O(B²·block lanes) per sweep,
  * checked against `shouldStop` between blocks.
  */
-function wholeBlockMoves(problem: Problem, members: number[][], fixed: Uint8Array, assignment: Int32Array, shouldStop: () => boolean): number {
+export function wholeBlockMoves(problem: Problem, members: number[][], fixed: Uint8Array, assignment: Int32Array, shouldStop: () => boolean): number {
   const { lo, hi } = balanceWindow(problem);
   const net = problem.network;
   const st = createFlipState(net, assignment);

@@ -10,7 +10,8 @@ import { crossingWeight, isBalanced, respectsPins } from '../../../shared/engine
 import { balanceWindow } from '../../../shared/engine/classical/balance';
 import type { Problem } from '../../../shared/engine/problem/types';
 import { createRng } from '../../../shared/engine/random';
-import { blockCouplings, decomposeMaxcut, exactSmallMaxcut, orientForBisection, splitIntoBlocks } from '../../../shared/engine/variational/decompose';
+import { blockCouplings, exactSmallMaxcut, orientForBisection, splitIntoBlocks } from '../../../shared/engine/variational/decompose';
+import { decomposeByBlocks } from '../../../shared/engine/variational/block-stages';
 import { qaoaBlocksSolver } from '../../../shared/engine/solvers/qaoa-blocks';
 import { solveProblem } from '../../../shared/engine/solvers/orchestrate';
 import { getSolver } from '../../../shared/engine/solvers/registry';
@@ -123,7 +124,7 @@ describe('qaoa-blocks solver', () => {
 
   test('keeps pins and merges by recursive QAOA when there are more free blocks than the exact limit', () => {
     const problem = maxcut(40, randomGraph(40, 0.15, 21), { 0: 1, 39: 0 });
-    const out = decomposeMaxcut(problem, { blockSize: 6, layers: 1, shots: 0, readoutShots: 256, restarts: 1, maxIterations: 40, mergeExactLimit: 3, rounds: 1, refine: true }, createRng(2), { shouldStop: () => false });
+    const out = decomposeByBlocks(problem, { blockSize: 6, layers: 1, shots: 0, readoutShots: 256, restarts: 1, maxIterations: 40, mergeExactLimit: 3, rounds: 1, refine: true }, 2, { shouldStop: () => false });
     expect(out.merge.method).toBe('rqaoa');
     expect(out.assignment[0]).toBe(1);
     expect(out.assignment[39]).toBe(0);
@@ -193,7 +194,7 @@ describe('qaoa-blocks at sizes that used to crash', () => {
 
   test('400 depots, 50 free blocks: the merge runs recursive QAOA instead of a 50-qubit circuit', () => {
     const problem = maxcut(400, randomGraph(400, 0.015, 8), { 5: 1 });
-    const out = decomposeMaxcut(problem, { blockSize: 8, layers: 1, shots: 0, readoutShots: 64, restarts: 1, maxIterations: 15, mergeExactLimit: 16, rounds: 0, refine: true }, createRng(3), { shouldStop: () => false });
+    const out = decomposeByBlocks(problem, { blockSize: 8, layers: 1, shots: 0, readoutShots: 64, restarts: 1, maxIterations: 15, mergeExactLimit: 16, rounds: 0, refine: true }, 3, { shouldStop: () => false });
     expect(out.merge.method).toBe('rqaoa');
     expect(out.merge.blocks).toBeGreaterThan(16);
     expect(out.assignment[5]).toBe(1);

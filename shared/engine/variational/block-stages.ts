@@ -1,0 +1,289 @@
+/**
+ * `qaoa-blocks` as stages (the method is in decompose.ts): plan → block solves → merge →
+ * improvement rounds → refinement. Every stage that does heavy work hands back independent
+ * block tasks (block-task.ts) and a plain-JSON state; `resumeBlocks` takes the answers and goes
+ * on. The in-process solve (`decomposeByBlocks`) runs the tasks itself, one after another; the
+ * solve worker spreads them over all workers through the job queue and resumes anywhere — the
+ * same code either way, so both give the same answer for the same seed.
+ *
+ * Improvement rounds (max-cut): every block is solved again with its surroundings fixed at the
+ * round's starting sides (so the blocks of one round are independent), then the proposals are
+ * applied block by block in order, each kept only when the whole cut rises with the blocks
+ * already changed in this round.
+ */
+import { compactFromEdges } from '../network/build';
+import { encodeMaxCut } from '../encodings/maxcut';
+import { createFlipState } from '../classical/flip-state';
+import { polishBisection, polishMaxcut, repairBalance } from '../classical/local-search';
+import { balanceWindow } from '../classical/balance';
+import { freeDepots } from '../classical/result';
+import { crossingWeight, isBalanced } from '../problem/evaluate';
+import type { Problem } from '../problem/types';
+import { createRng, deriveSeed } from '../random';
+import type { LayerBackend } from '../statevector/backend';
+import { runBlockTask, flatLanes, type BlockAnswer, type BlockTask } from './block-task';
+import {
+  blockCouplings, blockInContext, blockMembers, blockProblem, exactSmallMaxcut, orientForBisection, wholeBlockMoves,
+  type BlockReport, type DecomposeControl, type DecomposeOptions, type DecomposeOutcome,
+} from './decompose';
+import type { VariationalTracePoint } from './qaoa-run';
+import { bitsOfSpins, defaultBatchFraction, RQAOA_MAX_REMAINDER, runRqaoa } from './rqaoa';
+
+/** Most trace points kept from the block solves (evenly thinned above; the chart needs no more). */
+export const MAX_BLOCK_TRACE = 2000;
+
+/** Between stages: everything the next stage needs, as plain JSON (depot-indexed arrays of n). */
+export interface BlocksState {
+  kind: 'maxcut' | 'bisection';
+  phase: 'blocks' | 'round';
+  round: number;
+  blockOf: number[];
+  /** Sides per depot the round's tasks were built on (phase 'round'). */
+  sides: number[];
+  roundStart: number;
+  blocks: BlockReport[];
+  merge: DecomposeOutcome['merge'];
+  mergedValue: number;
+  roundsGain: number;
+  refineFlips: number;
+  evaluations: number;
+  shots: number;
+  stopped: boolean;
+  trace: VariationalTracePoint[];
+}
+
+export type BlocksStep =
+  /** Solve these tasks (in any order, anywhere), then call resumeBlocks with their answers. `progress` is the share of the run the stage spans. */
+  | { kind: 'spread'; state: BlocksState; tasks: BlockTask[]; progress: { from: number; to: number } }
+  | { kind: 'done'; outcome: DecomposeOutcome };
+
+/** Progress share of the first block solves; the rounds share the rest. */
+const BLOCKS_SHARE = 0.6;
+
+const roundProgress = (opts: DecomposeOptions, round: number) => ({
+  from: BLOCKS_SHARE + ((1 - BLOCKS_SHARE) * round) / Math.max(1, opts.rounds),
+  to: BLOCKS_SHARE + ((1 - BLOCKS_SHARE) * (round + 1)) / Math.max(1, opts.rounds),
+});
+
+function membersOf(blockOf: ArrayLike<number>): number[][] {
+  let count = 0;
+  for (let i = 0; i < blockOf.length; i++) count = Math.max(count, blockOf[i] + 1);
+  const members: number[][] = Array.from({ length: count }, () => []);
+  for (let i = 0; i < blockOf.length; i++) members[blockOf[i]].push(i);
+  return members;
+}
+
+function taskOf(sub: Problem, block: number, seed: number, opts: DecomposeOptions, first: boolean): BlockTask {
+  return {
+    block, kind: sub.kind === 'bisection' ? 'bisection' : 'maxcut', n: sub.network.n, lanes: flatLanes(sub), pins: Array.from(sub.pins),
+    ...(sub.kind === 'bisection' ? { depotWeight: Array.from(sub.network.depotWeight) } : {}),
+    tolerance: sub.tolerance, seed, layers: opts.layers, shots: opts.shots, readoutShots: opts.readoutShots,
+    restarts: first ? opts.restarts : 1, maxIterations: opts.maxIterations, qubitLimit: opts.blockSize + 5, trace: first,
+  };
+}
+
+/** Stage 0: split into blocks (seeded) and one task per block. */
+export function planBlocks(problem: Problem, opts: DecomposeOptions, seed: number): BlocksStep {
+  if (problem.kind !== 'maxcut' && problem.kind !== 'bisection') throw new Error(`qaoa-blocks answers max-cut and bisection, not ${problem.kind}`);
+  const { blockOf, members } = blockMembers(problem.network, opts.blockSize, createRng(seed));
+  const tasks = members.map((list, b) => taskOf(blockProblem(problem, list, problem.kind === 'bisection' ? 'bisection' : 'maxcut'), b, deriveSeed(seed, 0, b), opts, true));
+  const state: BlocksState = {
+    kind: problem.kind, phase: 'blocks', round: 0, blockOf: Array.from(blockOf), sides: [], roundStart: 0, blocks: [],
+    merge: { method: 'single', blocks: members.length, gain: 0 }, mergedValue: 0, roundsGain: 0, refineFlips: 0, evaluations: 0, shots: 0, stopped: false, trace: [],
+  };
+  return { kind: 'spread', state, tasks, progress: { from: 0, to: BLOCKS_SHARE } };
+}
+
+/** Answers by block (any order in, a check that each planned block answered once). */
+function byBlock(answers: BlockAnswer[], blocks: number): (BlockAnswer | undefined)[] {
+  const out: (BlockAnswer | undefined)[] = new Array(blocks);
+  for (const a of answers) {
+    if (!(a.block >= 0 && a.block < blocks) || out[a.block]) throw new Error(`block answer ${a.block} is unknown or repeated (${blocks} blocks planned)`);
+    out[a.block] = a;
+  }
+  return out;
+}
+
+function thin(trace: VariationalTracePoint[]): VariationalTracePoint[] {
+  if (trace.length <= MAX_BLOCK_TRACE) return trace;
+  const step = Math.ceil(trace.length / MAX_BLOCK_TRACE);
+  const kept = trace.filter((_, i) => i % step === 0);
+  if (kept[kept.length - 1] !== trace[trace.length - 1]) kept.push(trace[trace.length - 1]);
+  return kept;
+}
+
+/** The first block answers into one assignment; reports, counters and the trace into the state. */
+function collectBlocks(problem: Problem, state: BlocksState, members: number[][], answers: BlockAnswer[]): Int32Array {
+  const assignment = Int32Array.from(problem.pins, (p) => (p >= 0 ? p : 0));
+  const trace: VariationalTracePoint[] = [];
+  // Iterations and seconds run on across blocks (seconds: block solving time summed over blocks).
+  let base = 0, seconds = 0;
+  byBlock(answers, members.length).forEach((a, b) => {
+    if (!a) return; // a block that never ran (cancelled before it started) keeps its starting sides
+    members[b].forEach((v, i) => (assignment[v] = a.sides[i]));
+    state.blocks.push({ depots: members[b].length, qubits: a.qubits, value: a.value, evaluations: a.evaluations });
+    state.evaluations += a.evaluations;
+    state.shots += a.shots;
+    if (a.stopped) state.stopped = true;
+    for (const p of a.trace ?? []) trace.push({ ...p, iteration: base + p.iteration, seconds: seconds + p.seconds });
+    if (trace.length > 0) ({ iteration: base, seconds } = trace[trace.length - 1]);
+  });
+  if (answers.length < members.length) state.stopped = true;
+  state.trace = thin(trace);
+  return assignment;
+}
+
+/** Max-cut block orientations: exact over few free blocks, else recursive QAOA on the block graph. */
+function orientMaxcut(problem: Problem, state: BlocksState, blockOf: ArrayLike<number>, blockCount: number, assignment: Int32Array, opts: DecomposeOptions, control: DecomposeControl): void {
+  const edges = blockCouplings(problem.network, Int32Array.from(blockOf), blockCount, assignment);
+  // A block holding a pinned depot keeps its orientation (flipping it would move the pin).
+  const blockPins = new Int32Array(blockCount).fill(-1);
+  for (let i = 0; i < problem.network.n; i++) if (problem.pins[i] >= 0) blockPins[blockOf[i]] = 0;
+  if (blockPins.every((p) => p < 0)) blockPins[0] = 0; // the global flip changes nothing
+  const mergeProblem: Problem = { kind: 'maxcut', k: 2, network: compactFromEdges(blockCount, edges), pins: blockPins, tolerance: 0 };
+  let flip: ArrayLike<number>;
+  if (freeDepots(blockPins).length <= opts.mergeExactLimit) {
+    state.merge.method = 'exact';
+    flip = exactSmallMaxcut(mergeProblem);
+  } else {
+    // Any number of blocks: recursive QAOA (closed-form level 1), never a wide circuit.
+    state.merge.method = 'rqaoa';
+    const encoding = encodeMaxCut(mergeProblem);
+    const out = runRqaoa(encoding.operator, { stopAt: Math.min(opts.mergeExactLimit, RQAOA_MAX_REMAINDER), batchFraction: defaultBatchFraction(encoding.numQubits), hurry: () => control.shouldStop() });
+    state.evaluations += out.evaluations;
+    flip = encoding.decode(bitsOfSpins(out.spins));
+  }
+  for (let i = 0; i < assignment.length; i++) if (flip[blockOf[i]] === 1) assignment[i] ^= 1;
+}
+
+/** Start improvement round `round` from `current`, or finish when no round is due. */
+function nextRound(problem: Problem, opts: DecomposeOptions, seed: number, state: BlocksState, members: number[][], current: Int32Array, control: DecomposeControl): BlocksStep {
+  const free = freeDepots(problem.pins);
+  if (state.round < opts.rounds && members.length > 1 && !control.shouldStop()) {
+    if (opts.refine) {
+      const st = createFlipState(problem.network, current);
+      state.refineFlips += polishMaxcut(problem, st, free);
+      current = Int32Array.from(st.side);
+    }
+    const tasks = members.flatMap((list, b) => (list.some((v) => problem.pins[v] < 0) ? [taskOf(blockInContext(problem, list, current).sub, b, deriveSeed(seed, state.round + 1, b), opts, false)] : []));
+    if (tasks.length > 0) {
+      state.phase = 'round';
+      state.sides = Array.from(current);
+      state.roundStart = crossingWeight(problem, current);
+      return { kind: 'spread', state, tasks, progress: roundProgress(opts, state.round) };
+    }
+  }
+  // Final 1-flip refinement on the whole network (free depots only).
+  const st = createFlipState(problem.network, current);
+  if (opts.refine) state.refineFlips += polishMaxcut(problem, st, free);
+  const final = Int32Array.from(st.side);
+  return { kind: 'done', outcome: outcomeOf(state, final, opts.refine ? state.mergedValue : crossingWeight(problem, final), true) };
+}
+
+function outcomeOf(state: BlocksState, assignment: Int32Array, unrefinedValue: number, unrefinedFeasible: boolean): DecomposeOutcome {
+  return {
+    assignment, blocks: state.blocks, blockOf: Int32Array.from(state.blockOf), merge: state.merge, mergedValue: state.mergedValue,
+    roundsGain: state.roundsGain, refineFlips: state.refineFlips, unrefinedValue, unrefinedFeasible,
+    evaluations: state.evaluations, shots: state.shots, trace: state.trace, stopped: state.stopped,
+  };
+}
+
+/** The next stage, from the answers to the tasks of the last one (the state is not reused by the caller). */
+export function resumeBlocks(problem: Problem, opts: DecomposeOptions, seed: number, state: BlocksState, answers: BlockAnswer[], control: DecomposeControl): BlocksStep {
+  const members = membersOf(state.blockOf);
+  const blockCount = members.length;
+  if (state.phase === 'round') {
+    // Proposals from one snapshot, applied in block order; each kept only if the cut rises.
+    let current = Int32Array.from(state.sides);
+    let value = state.roundStart;
+    for (const a of byBlock(answers, blockCount)) {
+      if (!a) continue;
+      state.evaluations += a.evaluations;
+      state.shots += a.shots;
+      if (!a.solved) continue;
+      const trial = current.slice();
+      members[a.block].forEach((v, i) => (trial[v] = a.sides[i]));
+      const trialValue = crossingWeight(problem, trial);
+      if (trialValue > value + 1e-12) {
+        current = trial;
+        value = trialValue;
+      }
+    }
+    state.roundsGain += value - state.roundStart;
+    control.onStep?.(roundProgress(opts, state.round).to, value);
+    // A round that changed nothing: later ones would not either.
+    state.round = value > state.roundStart + 1e-12 ? state.round + 1 : opts.rounds;
+    return nextRound(problem, opts, seed, state, members, current, control);
+  }
+
+  const assignment = collectBlocks(problem, state, members, answers);
+  if (problem.kind === 'bisection') return finishBisection(problem, opts, state, members, assignment, control);
+  const beforeMerge = crossingWeight(problem, assignment);
+  if (blockCount > 1) orientMaxcut(problem, state, state.blockOf, blockCount, assignment, opts, control);
+  state.mergedValue = crossingWeight(problem, assignment);
+  state.merge.gain = state.mergedValue - beforeMerge;
+  control.onStep?.(BLOCKS_SHARE, state.mergedValue);
+  return nextRound(problem, opts, seed, state, members, assignment, control);
+}
+
+/** Bisection: block orientations under the global window, whole-block moves, balance repair and polish. */
+function finishBisection(problem: Problem, opts: DecomposeOptions, state: BlocksState, members: number[][], assignment: Int32Array, control: DecomposeControl): BlocksStep {
+  const { network } = problem;
+  const blockCount = members.length;
+  const beforeMerge = crossingWeight(problem, assignment);
+  let blockFixed = new Uint8Array(blockCount);
+  if (blockCount > 1) {
+    const couplings = blockCouplings(network, Int32Array.from(state.blockOf), blockCount, assignment);
+    const imbalance = new Float64Array(blockCount);
+    const fixed = new Uint8Array(blockCount);
+    let total = 0;
+    for (let i = 0; i < network.n; i++) {
+      imbalance[state.blockOf[i]] += assignment[i] === 1 ? network.depotWeight[i] : -network.depotWeight[i];
+      total += network.depotWeight[i];
+      if (problem.pins[i] >= 0) fixed[state.blockOf[i]] = 1;
+    }
+    if (fixed.every((f) => f === 0)) fixed[0] = 1; // the global flip changes nothing
+    const { flip, method } = orientForBisection(couplings, imbalance, total, balanceWindow(problem), fixed, opts.mergeExactLimit);
+    state.merge.method = method;
+    for (let i = 0; i < network.n; i++) if (flip[state.blockOf[i]] === 1) assignment[i] ^= 1;
+    blockFixed = fixed;
+  }
+  const unrefinedValue = crossingWeight(problem, assignment);
+  const unrefinedFeasible = isBalanced(problem, assignment);
+  // The split found few lanes between blocks, so a block kept whole on one side is often
+  // cheaper than its own bisection: whole-block pair moves inside the window (decompose.ts).
+  if (opts.refine && blockCount > 1) state.refineFlips += wholeBlockMoves(problem, members, blockFixed, assignment, () => control.shouldStop());
+  state.mergedValue = crossingWeight(problem, assignment);
+  state.merge.gain = beforeMerge - state.mergedValue;
+  control.onStep?.(BLOCKS_SHARE, state.mergedValue);
+  const free = freeDepots(problem.pins);
+  const st = createFlipState(network, assignment);
+  if (opts.refine) {
+    if (!isBalanced(problem, st.side)) state.refineFlips += repairBalance(problem, st, free);
+    state.refineFlips += polishBisection(problem, st, free);
+  }
+  return { kind: 'done', outcome: outcomeOf(state, Int32Array.from(st.side), unrefinedValue, unrefinedFeasible) };
+}
+
+/**
+ * The whole method in this process: every stage's tasks run here, in order. The solve worker
+ * runs the same stages with the tasks spread over the queue instead.
+ */
+export function decomposeByBlocks(problem: Problem, opts: DecomposeOptions, seed: number, control: DecomposeControl, stateKernels?: LayerBackend): DecomposeOutcome {
+  let step = planBlocks(problem, opts, seed);
+  let iterationBase = 0;
+  while (step.kind === 'spread') {
+    const { tasks, progress } = step;
+    const answers = tasks.map((task, i) => {
+      const answer = runBlockTask(task, {
+        shouldStop: () => control.shouldStop(), stateKernels,
+        onIteration: task.trace ? (p) => control.onIteration?.({ ...p, iteration: iterationBase + p.iteration }) : undefined,
+      });
+      if (answer.trace && answer.trace.length > 0) iterationBase += answer.trace[answer.trace.length - 1].iteration;
+      control.onStep?.(progress.from + ((progress.to - progress.from) * (i + 1)) / tasks.length, undefined);
+      return answer;
+    });
+    step = resumeBlocks(problem, opts, seed, step.state, answers, control);
+  }
+  return step.outcome;
+}
