@@ -39,6 +39,8 @@ export interface NetworkDrawingProps {
   showLabels?: boolean;
   /** Screen areas covered by controls: names keep clear of them. */
   reserved?: readonly Box[];
+  /** A depot whose full name shows even when names are hidden (the one under the pointer). */
+  hovered?: number;
   accessibilityLabel?: string;
   testID?: string;
 }
@@ -94,7 +96,8 @@ const LaneLayer = memo(function LaneLayer(p: { lanes: readonly Lane[]; ends: Int
         key={e}
         x1={p.xy[2 * a]} y1={p.xy[2 * a + 1]} x2={p.xy[2 * b]} y2={p.xy[2 * b + 1]}
         stroke={selected ? colors.focus : emph ? colors.signalDeep : p.lanes[e].weight < 0 ? colors.danger : colors.inkSoft}
-        sw={(faint ? 0.6 + 1.4 * rel : 1.5 + 4.5 * rel + (selected || emph ? 2 : 0)) * p.s}
+        // Dense overviews keep crossing lanes moderate too, so they read as lines, not one blot.
+        sw={(faint ? 0.6 + 1.4 * rel : p.dense ? 1.2 + 1.8 * rel + (selected ? 1 : 0) : 1.5 + 4.5 * rel + (selected || emph ? 2 : 0)) * p.s}
         opacity={faint && p.emphasised ? 0.3 : 1}
         dash={p.lanes[e].weight < 0 ? `${4 * p.s} ${3 * p.s}` : undefined}
       />,
@@ -142,7 +145,8 @@ export function NetworkDrawing(props: NetworkDrawingProps) {
   }, [props.depots.length, props.lanes, ends]);
   const selected = props.selection?.depots;
   const labels = useMemo(() => {
-    const chosen = selected ?? new Set<number>();
+    const chosen = new Set<number>(selected ?? []);
+    if (props.hovered !== undefined && props.hovered >= 0) chosen.add(props.hovered);
     if (!showLabels && chosen.size === 0) return [];
     const screen = new Float64Array(props.xy.length);
     for (let i = 0; i < props.xy.length; i += 2) {
@@ -151,7 +155,7 @@ export function NetworkDrawing(props: NetworkDrawingProps) {
     }
     const names = props.depots.map((d) => d.name ?? d.id);
     return placeLabels(screen, names, { width: props.width, height: props.height, fontSize: LABEL_PX, radius: r * s * t.k, order: showLabels ? order : [], always: chosen, reserved: props.reserved });
-  }, [showLabels, selected, props.xy, props.depots, props.width, props.height, props.reserved, t.x, t.y, t.k, r, s, order]);
+  }, [showLabels, selected, props.hovered, props.xy, props.depots, props.width, props.height, props.reserved, t.x, t.y, t.k, r, s, order]);
   return (
     <Svg width={props.width} height={props.height} accessibilityLabel={props.accessibilityLabel ?? `Drawing of ${props.depots.length} depots and ${props.lanes.length} lanes`} testID={props.testID}>
       <Rect x={0} y={0} width={props.width} height={props.height} fill={colors.surface} />

@@ -18,6 +18,8 @@ const DEPOT_HIT_PX = 22;
 const LANE_HIT_PX = 12;
 /** Movement below this is a tap, not a drag (px). */
 const SLOP_PX = 6;
+/** Screen px an arrow key pans the focused canvas. */
+const KEY_PAN_PX = 40;
 
 export type EditorMode = 'lanes' | 'move';
 
@@ -68,6 +70,10 @@ export function NetworkEditor(props: {
   const [pending, setPending] = useState<{ from: number; x: number; y: number } | null>(null);
   const [prompt, setPrompt] = useState<Prompt>(null);
   const [message, setMessage] = useState<string | null>(null);
+  // The depot under the mouse pointer shows its full name, like a tapped one (web only).
+  const [hovered, setHovered] = useState(-1);
+  // A keyboard focus ring on the canvas (not on a tap: only when the browser says focus-visible).
+  const [keyFocus, setKeyFocus] = useState(false);
   // Names are placed without collisions (labels.ts), so they can show by default up to 80
   // depots; crowded ones are shortened or left out, and a tapped depot always shows its name.
   const [labels, setLabels] = useState(draft.depots.length <= 80);
@@ -248,6 +254,49 @@ export function NetworkEditor(props: {
         }
       : {};
 
+  // Hover (web): the full name of the depot under the pointer, even when names are hidden or shortened.
+  const hoverProps =
+    Platform.OS === 'web'
+      ? {
+          onMouseMove: (e: { nativeEvent: { clientX: number; clientY: number } }) => {
+            const node = overlay.current as unknown as { getBoundingClientRect?: () => { left: number; top: number } } | null;
+            const r = node?.getBoundingClientRect?.();
+            if (!r) return;
+            const t = live.current.transform;
+            const [wx, wy] = toWorld(t, e.nativeEvent.clientX - r.left, e.nativeEvent.clientY - r.top);
+            const d = depotAt(live.current.xy, wx, wy, DEPOT_HIT_PX / t.k);
+            setHovered((h) => (h === d ? h : d));
+          },
+          onMouseLeave: () => setHovered(-1),
+        }
+      : {};
+  // Keyboard (web): the canvas is a Tab stop; arrow keys pan, + and − zoom, Enter (or Space)
+  // adds a depot at the centre of the view (the keyboard's tap on empty space).
+  const keyProps =
+    Platform.OS === 'web'
+      ? {
+          tabIndex: 0 as const,
+          onFocus: (e: { target?: unknown; nativeEvent?: { target?: unknown } }) => {
+            const el = (e.nativeEvent?.target ?? e.target) as { matches?: (q: string) => boolean } | undefined;
+            setKeyFocus(el?.matches?.(':focus-visible') ?? true);
+          },
+          onBlur: () => setKeyFocus(false),
+          onKeyDown: (e: { nativeEvent: { key: string }; preventDefault?: () => void }) => {
+            const k = e.nativeEvent.key;
+            const pan: Record<string, [number, number]> = { ArrowLeft: [KEY_PAN_PX, 0], ArrowRight: [-KEY_PAN_PX, 0], ArrowUp: [0, KEY_PAN_PX], ArrowDown: [0, -KEY_PAN_PX] };
+            if (pan[k]) setTransform((t) => panBy(t, pan[k][0], pan[k][1]));
+            else if (k === '+' || k === '=') zoomCentre(1.25);
+            else if (k === '-' || k === '−') zoomCentre(0.8);
+            else if ((k === 'Enter' || k === ' ') && !props.readOnly) {
+              const [wx, wy] = toWorld(live.current.transform, size.width / 2, size.height / 2);
+              props.onSelectionChange(emptySelection);
+              setPrompt({ kind: 'depot', x: wx, y: wy });
+            } else return;
+            e.preventDefault?.();
+          },
+        }
+      : {};
+
   const selectedCount = props.selection.depots.size + props.selection.lanes.size;
   const laneTitle = prompt?.kind === 'edit-lane' && draft.lanes[prompt.lane] ? `Lane ${draft.lanes[prompt.lane].from}–${draft.lanes[prompt.lane].to}` : prompt?.kind === 'new-lane' ? `New lane ${draft.depots[prompt.a]?.id}–${draft.depots[prompt.b]?.id}` : '';
 
@@ -278,15 +327,22 @@ export function NetworkEditor(props: {
             emphasisedLanes={props.emphasisedLanes}
             showLabels={labels}
             reserved={reserved}
+            hovered={hovered}
           />
         ) : null}
         <View
           ref={overlay}
-          style={StyleSheet.absoluteFill}
+          style={[StyleSheet.absoluteFill, keyFocus && styles.keyFocus]}
           {...(props.still ? {} : responder.panHandlers)}
           {...(props.still ? {} : wheelProps)}
+          {...(props.still ? {} : hoverProps)}
+          {...(props.still ? {} : keyProps)}
           role={props.readOnly ? 'img' : 'application'}
-          accessibilityLabel={props.readOnly ? 'Network drawing' : 'Drawing canvas: tap empty space to add a depot, drag between depots to add a lane'}
+          accessibilityLabel={
+            props.readOnly
+              ? 'Network drawing (arrow keys pan, + and − zoom)'
+              : 'Drawing canvas: tap empty space or press Enter to add a depot, drag between depots to add a lane; arrow keys pan, + and − zoom'
+          }
           testID="drawing-canvas"
         />
         {!props.still ? (
@@ -386,6 +442,7 @@ const styles = StyleSheet.create({
   history: { position: 'absolute', left: space.sm, top: space.sm, flexDirection: 'row', gap: space.xs },
   selectionTools: { position: 'absolute', right: space.sm, top: space.sm },
   zoom: { position: 'absolute', right: space.sm, bottom: space.sm, flexDirection: 'row', gap: space.xs },
+  keyFocus: { borderWidth: 3, borderColor: colors.focus, borderRadius: radius.lg },
   hint: { position: 'absolute', left: 0, right: 0, top: 64, alignItems: 'center' },
   hintText: { backgroundColor: colors.paper, paddingHorizontal: space.md, paddingVertical: space.xs, borderRadius: radius.pill },
 });

@@ -3,7 +3,7 @@
  * order (the chosen depot first, then the depots with the most lane volume): each name tries
  * above, below, right and left of its depot, then the four diagonals; when none of those is free it tries a shortened
  * name, and when that does not fit either it is left out — the full name stays one tap away
- * (a chosen depot always shows it). Boxes are estimated from the character count, which suits
+ * (a chosen depot always shows it, over other marks if it must). Boxes are estimated from the character count, which suits
  * the drawing's one font and size. Pure, so it is tested without rendering.
  */
 export interface Box {
@@ -103,6 +103,13 @@ export function placeLabels(xy: ArrayLike<number>, names: readonly string[], o: 
         }
       }
       if (placed) break;
+    }
+    if (!placed && o.always?.has(i)) {
+      // A chosen (tapped or hovered) depot shows its full name even in a crowd: on its plate it
+      // may cover other marks, but it stays inside the canvas and clear of controls and names.
+      const clear = (b: Box) => inside(b) && !taken.some((t) => overlaps(t, b));
+      const c = candidates(i, name).find((k) => clear(k.box)) ?? candidates(i, name).find((k) => inside(k.box));
+      if (c) placed = { index: i, text: name, x: c.tx, y: c.ty, anchor: c.anchor, full: true, box: c.box };
     }
     if (placed) {
       taken.push(placed.box);

@@ -110,3 +110,16 @@ test('audit entries say who and what, in words', () => {
   expect(describeAudit(event('billing.run_refunded', { amount: 250, to: 'card' }, { actor: null, targetType: 'run', targetId: '3' }))).toBe('Run #3 failed, so its price (€2.50) went back to the card');
   for (const action of ['billing.checkout_started', 'billing.payment_failed', 'something.new_kind']) expect(describeAudit(event(action, {}))).not.toMatch(/[a-z]\.[a-z]|_/);
 });
+
+test('a tapped or hovered depot shows its full name even where every spot touches another mark', () => {
+  // A 7×7 block of marks 12 px apart: no name fits anywhere without touching a mark.
+  const xy = new Float64Array(2 * 49);
+  for (let i = 0; i < 49; i++) { xy[2 * i] = 150 + 12 * (i % 7); xy[2 * i + 1] = 100 + 12 * Math.floor(i / 7); }
+  const names = Array.from({ length: 49 }, (_, i) => `Quillmere stop ${i + 1}`);
+  const plain = placeLabels(xy, names, { width: 400, height: 300, fontSize: 11, radius: 4, order: [] });
+  expect(plain).toEqual([]);
+  const chosen = placeLabels(xy, names, { width: 400, height: 300, fontSize: 11, radius: 4, order: [24], always: new Set([24]) });
+  expect(chosen.map((l) => l.text)).toEqual(['Quillmere stop 25']);
+  expect(chosen[0].box.x).toBeGreaterThanOrEqual(0);
+  expect(chosen[0].box.x + chosen[0].box.w).toBeLessThanOrEqual(400);
+});
