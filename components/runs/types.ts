@@ -46,6 +46,8 @@ export interface EncodingView {
   precision: number;
   shots: number;
   shotRule?: string;
+  /** The largest terms of this operator (Z on `qubits`), largest |coeff| first. */
+  largestTerms?: Array<{ qubits: number[]; coeff: number }>;
 }
 
 export interface PreviewSolver {

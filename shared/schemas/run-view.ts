@@ -44,7 +44,10 @@ export const RunViewSchema = z.looseObject({
 export const RunPreviewSchema = z.looseObject({
   depots: z.number().int(),
   lanes: z.number().int(),
-  encoding: z.looseObject({ qubits: z.number().int(), pauliTerms: z.number().int(), commutingGroups: z.number().int(), shots: z.number().int() }).nullable()
+  encoding: z.looseObject({
+    qubits: z.number().int(), pauliTerms: z.number().int(), commutingGroups: z.number().int(), shots: z.number().int(),
+    largestTerms: z.array(z.object({ qubits: z.array(z.number().int()), coeff: z.number() })).describe('the largest terms by |coefficient| (at most 40): a product of Z on the listed qubits'),
+  }).nullable()
     .describe('the cost operator of the widest circuit a chosen solver simulates'),
   circuit: z.string().describe('which circuit the encoding summary describes, in words'),
   encodingNote: z.string().nullable(),

@@ -1,5 +1,7 @@
 import { summarisePartition } from '../../components/runs/partition';
 import { operatorTerms } from '../../components/runs/OperatorInspector';
+import { boundProblem } from '../../components/runs/partition';
+import { describeEncoding } from '../../shared/engine/solvers/orchestrate';
 
 // Cycle C6 with unit lanes and unit demand: minimum bisection 2 (textbook, common practice).
 const c6 = {
@@ -41,7 +43,7 @@ describe('summarisePartition (the engine rules, as the partition view shows them
 
 describe('operatorTerms (the inspector list)', () => {
   test('max-cut on C6: one Z·Z term per lane, constant −W/2 = −3 under energy = −cut', () => {
-    const t = operatorTerms(c6, { kind: 'maxcut' });
+    const t = operatorTerms(c6, describeEncoding(boundProblem(c6, { kind: 'maxcut' })));
     expect(t.qubits).toBe(6);
     expect(t.terms).toHaveLength(6);
     expect(t.terms.every((x) => x.text.includes('·'))).toBe(true);

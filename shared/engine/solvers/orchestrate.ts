@@ -296,7 +296,15 @@ export interface EncodingSummary {
   /** Shots that reach `precision` in any state: ⌈(Σ|c_k|)²/ε²⌉. */
   shots: number;
   shotRule: string;
+  /**
+   * The largest terms by |coefficient| (at most LISTED_TERMS), so every screen lists the operator
+   * this summary counts — for k regions the first split a solver simulates, not the one-hot form.
+   */
+  largestTerms: Array<{ qubits: number[]; coeff: number }>;
 }
+
+/** Terms an encoding summary lists. */
+export const LISTED_TERMS = 40;
 
 export interface DescribeOptions extends EncodingOptions {
   /** Target standard error ε of the energy; default 1 % of the total |lane weight|. */
@@ -340,6 +348,10 @@ export function describeEncoding(problem: Problem, opts: DescribeOptions = {}): 
   if (!(precision > 0) || !Number.isFinite(precision)) throw new Error(`precision must be a positive number (got ${opts.precision})`);
   const shots = norm === 0 ? 0 : Math.ceil((norm / precision) ** 2 - 1e-9);
   const terms = linearTerms + quadraticTerms;
+  const listed: Array<{ qubits: number[]; coeff: number }> = [];
+  for (let q = 0; q < op.numQubits; q++) if (op.linear[q] !== 0) listed.push({ qubits: [q], coeff: op.linear[q] });
+  for (let t = 0; t < op.quadCoeff.length; t++) if (op.quadCoeff[t] !== 0) listed.push({ qubits: [op.quadI[t], op.quadJ[t]], coeff: op.quadCoeff[t] });
+  listed.sort((a, b) => Math.abs(b.coeff) - Math.abs(a.coeff));
   const grouped = terms > 0 && terms <= MAX_GROUPED_TERMS;
   const commutingGroups = grouped ? groupQubitWise(isingToPauliSum(op)).groups.length : terms > 0 ? 1 : 0;
   return {
@@ -359,6 +371,7 @@ export function describeEncoding(problem: Problem, opts: DescribeOptions = {}): 
     coefficientNorm: norm,
     precision,
     shots,
+    largestTerms: listed.slice(0, LISTED_TERMS),
     shotRule: `one Z-basis measurement per shot gives every term; S = ⌈(Σ|c_k|)²/ε²⌉ = ⌈(${fmt(norm)}/${fmt(precision)})²⌉ bounds the standard error by ε in any state`,
   };
 }
