@@ -120,12 +120,16 @@ export function fmRefine(g: PartGraph, side: Int8Array, win: Window, opts: { max
 export function coarsen(g: PartGraph, rng: Rng, maxVertexWeight: number, keep: Int8Array | null = null): { coarse: PartGraph; map: Int32Array; keep?: Int8Array | null } | null {
   const { n, adjStart, adjIndex, adjWeight, vw, pin } = g;
   const match = new Int32Array(n).fill(-1);
-  const order = Array.from({ length: n }, (_, i) => i);
+  const order = new Int32Array(n);
+  for (let i = 0; i < n; i++) order[i] = i;
   for (let i = n - 1; i > 0; i--) {
     const j = rng.int(i + 1);
-    [order[i], order[j]] = [order[j], order[i]];
+    const t = order[i];
+    order[i] = order[j];
+    order[j] = t;
   }
-  for (const u of order) {
+  for (let q = 0; q < n; q++) {
+    const u = order[q];
     if (match[u] >= 0) continue;
     let best = -1, bw = 0;
     for (let p = adjStart[u]; p < adjStart[u + 1]; p++) {

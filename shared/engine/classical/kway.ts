@@ -23,18 +23,21 @@ function induced(g: PartGraph, members: Int32Array, pin: Int8Array): PartGraph {
   const local = new Int32Array(g.n).fill(-1);
   members.forEach((v, i) => (local[v] = i));
   const starts = new Int32Array(members.length + 1);
-  const idx: number[] = [], wts: number[] = [];
+  let size = 0;
+  for (let i = 0; i < members.length; i++) size += g.adjStart[members[i] + 1] - g.adjStart[members[i]];
+  const idx = new Int32Array(size), wts = new Float64Array(size);
+  let len = 0;
   for (let i = 0; i < members.length; i++) {
     const v = members[i];
     for (let p = g.adjStart[v]; p < g.adjStart[v + 1]; p++) {
       const j = local[g.adjIndex[p]];
-      if (j >= 0) { idx.push(j); wts.push(g.adjWeight[p]); }
+      if (j >= 0) { idx[len] = j; wts[len++] = g.adjWeight[p]; }
     }
-    starts[i + 1] = idx.length;
+    starts[i + 1] = len;
   }
   const vw = new Float64Array(members.length);
   members.forEach((v, i) => (vw[i] = g.vw[v]));
-  return { n: members.length, adjStart: starts, adjIndex: Int32Array.from(idx), adjWeight: Float64Array.from(wts), vw, pin };
+  return { n: members.length, adjStart: starts, adjIndex: idx.slice(0, len), adjWeight: wts.slice(0, len), vw, pin };
 }
 
 export function kwayPartition(g: PartGraph, regionPin: Int32Array, k: number, limit: number, rng: Rng, opts: KwayOptions = kwayDefaults): Int8Array {
