@@ -22,7 +22,7 @@ export function ConvergenceChart(props: { trace: readonly ConvergencePoint[]; wi
   const first = props.trace[0];
   const last = props.trace[props.trace.length - 1];
   const summary = first && last
-    ? `${props.title ?? 'Energy'}: from ${tick(first.energy)} to ${tick(last.energy)} over ${props.trace.length} points${g.band ? ', with a standard-error band' : ''}`
+    ? `${props.title ?? 'Energy'}: from ${tick(first.energy)} to ${tick(last.energy)} over ${props.trace.length} points${g.band ? ', with a standard-error band' : ''}${g.restarts.length ? `, ${g.restarts.length + 1} optimizer starts` : ''}`
     : 'No convergence data yet';
   return (
     <View style={styles.wrap} testID={props.testID ?? 'convergence-chart'}>
@@ -45,10 +45,20 @@ export function ConvergenceChart(props: { trace: readonly ConvergencePoint[]; wi
         {/* Strong enough to read on white (the band was 25 % amber: barely visible), edged in the deeper amber. */}
         {g.band ? <Path d={g.band} fill={colors.signal} fillOpacity={0.5} stroke={colors.signalDeep} strokeOpacity={0.6} strokeWidth={1} testID="convergence-band" /> : null}
         {g.line ? <Path d={g.line} fill="none" stroke={colors.ink} strokeWidth={2} testID="convergence-line" /> : null}
+        {g.restarts.map((m) => (
+          <G key={`r${m.iteration}`} testID="convergence-restart-marker">
+            <Line x1={m.x} x2={m.x} y1={g.margin.top} y2={height - g.margin.bottom} stroke={colors.signalDeep} strokeWidth={1.5} strokeDasharray="4 3" />
+            <SvgText x={m.x + 3} y={g.margin.top + 10} fontSize={11} fontFamily={fonts.regular} fill={colors.signalDeep}>
+              {`start ${m.start}`}
+            </SvgText>
+          </G>
+        ))}
       </Svg>
       <Small>Energy (lower is better) by iteration{g.band ? `; shaded: ± one standard error from shot noise (typically ± ${tick(typicalError(props.trace))})` : ''}.</Small>
       <Small testID="convergence-restarts">
-        {props.restarts && props.restarts > 1
+        {g.restarts.length > 0
+          ? `Dashed lines mark where the optimizer started again from different angles (${g.restarts.map((m) => `start ${m.start}`).join(', ')}); the energy may jump upward there, and the best over all ${g.restarts.length + 1} starts is kept.`
+          : props.restarts && props.restarts > 1
           ? `The optimizer starts ${props.restarts} times from different angles and keeps the best; each new start shows as a jump upward.`
           : 'A jump upward means the optimizer started again from different angles (a restart); the best over all starts is kept.'}
       </Small>

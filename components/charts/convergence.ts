@@ -12,6 +12,16 @@ export interface ConvergencePoint {
   energy: number;
   /** Standard error of the energy estimate (shot-based runs); absent for exact expectations. */
   stdError?: number;
+  /** Which optimizer start (restart) the point belongs to, 0 for the first; absent when unknown. */
+  start?: number;
+}
+
+/** Where the optimizer began a new start: the first point of each start after the first. */
+export interface RestartMark {
+  iteration: number;
+  /** 1-based number of the start, as the chart's label says it ("start 2"). */
+  start: number;
+  x: number;
 }
 
 export interface ChartFrame {
@@ -28,6 +38,8 @@ export interface ConvergenceGeometry {
   line: string | null;
   /** SVG path of energy ± standard error, or null when no point carries one. */
   band: string | null;
+  /** The first point of every later start (a new start may jump upward); none when unknown. */
+  restarts: RestartMark[];
   xTicks: number[];
   yTicks: number[];
   margin: { left: number; right: number; top: number; bottom: number };
@@ -62,5 +74,11 @@ export function convergenceGeometry(trace: readonly ConvergencePoint[], frame: C
         .y0((p) => y(p.energy - se(p)))
         .y1((p) => y(p.energy + se(p)))(points)
     : null;
-  return { x, y, line: linePath, band: bandPath, xTicks: x.ticks(4), yTicks: y.ticks(4), margin };
+  const restarts: RestartMark[] = [];
+  for (let i = 1; i < points.length; i++) {
+    const s = points[i].start, before = points[i - 1].start;
+    // A later start than the point before (k-way splits begin again at start 0: not a restart).
+    if (s !== undefined && before !== undefined && s > before) restarts.push({ iteration: points[i].iteration, start: s + 1, x: x(points[i].iteration) });
+  }
+  return { x, y, line: linePath, band: bandPath, restarts, xTicks: x.ticks(4), yTicks: y.ticks(4), margin };
 }

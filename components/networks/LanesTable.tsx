@@ -9,6 +9,9 @@ import { tableStyles as styles } from './DepotsTable';
 
 const PAGE = 100;
 
+/** A lane row's accessible name: its visible text, from then to, nothing before it. */
+export const laneName = (l: Pick<Lane, 'from' | 'to'>) => `${l.from} ${l.to}`;
+
 /** A volume typed in place: checked with the shared rule on blur/enter, the error shown beside it. */
 const VolumeCell = memo(function VolumeCell(props: { index: number; lane: Lane; readOnly: boolean; onChange: (index: number, weight: number) => void }) {
   const [text, setText] = useState(String(props.lane.weight));
@@ -72,7 +75,8 @@ export function LanesTable(props: { lanes: readonly Lane[]; selected: ReadonlySe
         const selected = props.selected.has(e);
         return (
           <View key={`${e}:${l.from}:${l.to}`} style={[styles.row, selected && styles.selected]} testID={`lane-row-${e}`}>
-            <Pressable style={[styles.grow, local.pick]} onPress={() => props.onSelect(e)} accessibilityRole="button" accessibilityLabel={`Lane ${l.from}–${l.to}`} accessibilityState={{ selected }} aria-pressed={selected}>
+            {/* Named by exactly what it shows (WCAG 2.1 SC 2.5.3 Label in Name): "A C", the ends as read under From and To. */}
+            <Pressable style={[styles.grow, local.pick]} onPress={() => props.onSelect(e)} accessibilityRole="button" accessibilityLabel={laneName(l)} accessibilityState={{ selected }} aria-pressed={selected}>
               <Body numberOfLines={1} style={[styles.cell, styles.grow, styles.mono]}>{l.from}</Body>
               <Body numberOfLines={1} style={[styles.cell, styles.grow, styles.mono]}>{l.to}</Body>
             </Pressable>

@@ -121,7 +121,7 @@ export interface JobResultView {
   secondsToBest?: number;
   /** Stopped because it reached a value another solver of the run proved optimal. */
   stoppedAtKnownOptimum?: boolean;
-  trace?: { iteration: number; energy: number; stdError?: number; bestValue?: number; seconds: number }[];
+  trace?: { iteration: number; energy: number; stdError?: number; bestValue?: number; seconds: number; /** optimizer start (restart), 0 first */ start?: number }[];
   samples?: { assignment: number[]; count: number; value: number }[];
   notes?: string[];
   /** Variational jobs: qubits and gate counts per layout (docs/runs.md, "Circuit resources"). */

@@ -91,3 +91,18 @@ describe('histogramBars', () => {
     expect(bars.reduce((s, b) => s + b.share, 0)).toBeCloseTo(1, 12);
   });
 });
+
+describe('restart marks', () => {
+  test('the first point of each later start, at its iteration; a return to start 0 (a new k-way split) is no restart', () => {
+    const g = convergenceGeometry([
+      { iteration: 0, energy: -3, start: 0 },
+      { iteration: 5, energy: -3.5, start: 0 },
+      { iteration: 10, energy: -3.1, start: 1 },
+      { iteration: 20, energy: -3.9, start: 1 },
+      { iteration: 21, energy: -2, start: 0 },
+    ], frame);
+    // x of iteration 10 on 0…21 over 52…308 (worked by hand): 52 + 256 · 10/21 = 173.90…
+    expect(g.restarts).toEqual([{ iteration: 10, start: 2, x: expect.closeTo(173.90476, 4) }]);
+    expect(convergenceGeometry(trace, frame).restarts).toEqual([]);
+  });
+});

@@ -149,3 +149,21 @@ test('the convergence chart explains restarts and draws a visible standard-error
   expect(band.getAttribute('stroke')).toBe(colors.signalDeep);
   expect(container.textContent).toMatch(/typically ± 1\.5/);
 });
+
+test('the convergence chart marks each restart where it begins and names it in the note', () => {
+  const trace = [
+    { iteration: 0, energy: -10, start: 0 },
+    { iteration: 1, energy: -12, start: 0 },
+    { iteration: 2, energy: -8, start: 1 }, // start 2 begins: the energy jumps up
+    { iteration: 3, energy: -13, start: 1 },
+    { iteration: 4, energy: -9, start: 2 }, // start 3
+    { iteration: 5, energy: -12.5, start: 2 },
+  ];
+  const { container, getByTestId } = render(<ConvergenceChart trace={trace} width={360} restarts={3} />);
+  const marks = Array.from(container.querySelectorAll('[data-testid="convergence-restart-marker"]'));
+  expect(marks.map((m) => m.textContent)).toEqual(['start 2', 'start 3']);
+  expect(getByTestId('convergence-restarts').textContent).toMatch(/Dashed lines mark .*start 2, start 3.*best over all 3 starts/);
+  // Without start indices (live points) there is nothing to mark, and the note explains jumps in general.
+  const plain = render(<ConvergenceChart trace={trace.map(({ start: _s, ...p }) => p)} width={360} />);
+  expect(plain.container.querySelectorAll('[data-testid="convergence-restart-marker"]').length).toBe(0);
+});

@@ -222,7 +222,7 @@ describe.each([
     const table = page.getByTestId('lanes-table');
     await table.waitFor();
     await expect(page.getByLabel('Volume of lane EAST–WEST').inputValue()).resolves.toBe('5');
-    await expect(page.getByRole('button', { name: 'Lane WEST–HUB' }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('button', { name: 'WEST HUB', exact: true }).isVisible()).resolves.toBe(true);
     await page.getByTestId('tab-depots').click();
     await expect(page.getByTestId('depots-table').textContent()).resolves.toMatch(/HUB.*EAST.*WEST/s);
     await screenshot(page, `networks-imported-tables-${label}`);

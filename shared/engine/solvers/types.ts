@@ -32,6 +32,8 @@ export interface TracePoint {
   stdError?: number;
   bestValue?: number;
   seconds: number;
+  /** Variational solvers: the optimizer start (restart) of this point, 0 for the first. */
+  start?: number;
 }
 
 export interface SampledAssignment {

@@ -119,7 +119,7 @@ export async function solveVariational(problem: Problem, s: CommonSettings, ctx:
   const trace: TracePoint[] = [];
   const onIteration = (p: VariationalTracePoint) => {
     lastIteration = iterationBase + p.iteration;
-    trace.push({ iteration: lastIteration, energy: p.energy, stdError: p.stdError, seconds: elapsed() });
+    trace.push({ iteration: lastIteration, energy: p.energy, stdError: p.stdError, seconds: elapsed(), ...(p.start !== undefined ? { start: p.start } : {}) });
     const now = elapsed();
     if (now - lastReport >= 0.05) {
       lastReport = now;

@@ -31,7 +31,8 @@ export interface VariationalLoopOptions {
   maxIterations: number;
   rng: Rng;
   shouldStop: () => boolean;
-  onIteration?: (iteration: number, energy: number, stdError: number, params: Float64Array) => void;
+  /** `start` is the index of the start (restart) the iteration belongs to, 0 for the first. */
+  onIteration?: (iteration: number, energy: number, stdError: number, params: Float64Array, start: number) => void;
   /** Finite-difference step for parameters without a shift rule (exact: 1e-5; shots: larger). */
   differenceStep?: number;
   /** Initial simplex edge / SPSA first step, in radians. */
@@ -57,12 +58,12 @@ export function optimizeAnsatz(opts: VariationalLoopOptions): VariationalLoopRes
     return opts.estimate(buffer);
   };
   let iterationOffset = 0;
-  const result = minimizeWithRestarts(opts.starts, (start) => {
+  const result = minimizeWithRestarts(opts.starts, (start, index) => {
     const common = {
       maxIterations: opts.maxIterations,
       shouldStop: opts.shouldStop,
       rng: opts.rng,
-      onIteration: (i: number, e: number, se: number, x: Float64Array) => { opts.onIteration?.(iterationOffset + i, e, se, x); },
+      onIteration: (i: number, e: number, se: number, x: Float64Array) => { opts.onIteration?.(iterationOffset + i, e, se, x, index); },
     };
     let r: MinimizeResult;
     if (opts.optimizer === 'spsa') r = minimizeSpsa(energyAt, start, { ...common, firstStep: opts.step ?? 0.2, c: opts.differenceStep ?? 0.1 });

@@ -11,6 +11,8 @@ export interface VariationalTracePoint {
   energy: number;
   stdError: number;
   seconds: number;
+  /** Which optimizer start (restart) the point belongs to: 0 for the first (charts mark the jumps). */
+  start?: number;
 }
 
 /** What a VQE or QAOA run returns (the solver definitions map it onto SolveResult). */

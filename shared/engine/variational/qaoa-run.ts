@@ -70,8 +70,8 @@ export function runQaoa(opts: QaoaRunOptions): VariationalOutcome {
     rng: opts.rng,
     shouldStop: opts.shouldStop ?? (() => false),
     differenceStep: opts.shots > 0 ? 0.05 : 1e-5,
-    onIteration: (iteration, energy, stdError) => {
-      const point = { iteration, energy, stdError, seconds: clock() - t0 };
+    onIteration: (iteration, energy, stdError, _params, start) => {
+      const point = { iteration, energy, stdError, seconds: clock() - t0, start };
       trace.push(point);
       opts.onIteration?.(point);
     },

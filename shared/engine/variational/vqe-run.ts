@@ -68,8 +68,8 @@ export function runVqeLoop(
     shouldStop: opts.shouldStop ?? (() => false),
     differenceStep: opts.shots > 0 ? 0.1 : 1e-5,
     step: opts.step,
-    onIteration: (iteration, energy, stdError) => {
-      const point = { iteration, energy, stdError, seconds: clock() - t0 };
+    onIteration: (iteration, energy, stdError, _params, start) => {
+      const point = { iteration, energy, stdError, seconds: clock() - t0, start };
       trace.push(point);
       opts.onIteration?.(point);
     },
