@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Pressable, StyleSheet, View, useWindowDimensions } from 'react-native';
 import { Link, useRouter } from 'expo-router';
 import { can, type Role } from '../../shared/permissions';
-import { useRunsQuery, useSolverLabels } from '../queries/runs';
+import { useRunsQuery, useSolverLabels, useSolversQuery } from '../queries/runs';
 import { colors, fonts, radius, space, TOUCH, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { EmptyState } from '../ui/EmptyState';
@@ -23,6 +23,8 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
   const wide = width >= WIDE_BREAKPOINT;
   const runs = useRunsQuery();
   const labels = useSolverLabels();
+  // Rows wait for the registry's labels (one cached request) so a solver never shows as its code first.
+  const listing = useSolversQuery();
   const solverNames = (r: RunListItem) => r.solvers.map((s) => labels[s] ?? s).join(', ');
   const mayCompare = can(props.role, 'runs:compare');
   const [ticked, setTicked] = useState<number[]>(props.compareWith ? [props.compareWith] : []);
@@ -32,7 +34,7 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
   const operator = can(props.role, 'runs:advanced') ? <Button label="Operator of your own" tone="secondary" onPress={() => router.push('/runs/operator')} testID="open-operator" /> : null;
   const compare = compareButton || operator ? <>{operator}{compareButton}</> : null;
 
-  if (runs.isPending) return <Screen title="Runs"><Body>Loading runs…</Body></Screen>;
+  if (runs.isPending || listing.isPending) return <Screen title="Runs"><Body>Loading runs…</Body></Screen>;
   if (runs.isError) return <Screen title="Runs"><Notice tone="error">{runs.error.message}</Notice></Screen>;
   if (runs.data.length === 0) {
     return (

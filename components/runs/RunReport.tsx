@@ -7,7 +7,7 @@ import { colors, fonts, space } from '../theme';
 import { Button } from '../ui/Button';
 import { DecisionSupportNote, Notice } from '../ui/Notice';
 import { Body, Heading, Label, Small, Title } from '../ui/Text';
-import { formatValue, questionLabel } from './format';
+import { formatValue, questionLabel, solverLabelOf } from './format';
 import { PartitionView, regionName } from './PartitionView';
 import { Scorecard } from './Scorecard';
 import { buildScorecard } from './scorecard';
@@ -61,7 +61,7 @@ export function RunReport(props: { id: number }) {
       <Scorecard card={card} valueName={r.problem.kind === 'maxcut' ? 'Cut weight' : 'Crossing weight'} wide={width >= 760} />
       {best?.result && doc ? (
         <>
-          <PartitionView document={doc} problem={r.problem} assignment={best.result.assignment} title={`Best answer: ${labels[best.solver] ?? best.solver}`} height={420} still />
+          <PartitionView document={doc} problem={r.problem} assignment={best.result.assignment} title={`Best answer: ${solverLabelOf(labels, best)}`} height={420} still />
           <Heading>Depot assignment</Heading>
           <View testID="report-assignment">
             <View style={[styles.tr, styles.thead]}>

@@ -16,7 +16,7 @@ import { Body, Heading, Label, Small } from '../ui/Text';
 import { ProgressBar, Segmented } from './controls';
 import { CircuitPanel } from './CircuitPanel';
 import { ExportBar } from './ExportBar';
-import { formatPercent, formatSeconds, formatValue, parameterNames, questionLabel } from './format';
+import { formatPercent, formatSeconds, formatValue, parameterNames, questionLabel, solverLabelOf } from './format';
 import { OperatorInspector } from './OperatorInspector';
 import { PartitionView } from './PartitionView';
 import { Scorecard } from './Scorecard';
@@ -45,7 +45,8 @@ function JobProgressRow(props: { job: RunJob; runStatus: RunDetail['status']; la
     <View style={styles.job} testID={`progress-${job.solver}`}>
       <View style={styles.jobHead}>
         <Body style={styles.jobLabel}>{props.label}</Body>
-        <Small testID={`percent-${job.solver}`}>{formatPercent(fraction)}</Small>
+        {/* The figure never wraps ("100" over "%"): the label beside it gives way instead. */}
+        <Small style={styles.figure} numberOfLines={1} testID={`percent-${job.solver}`}>{formatPercent(fraction)}</Small>
       </View>
       <ProgressBar fraction={fraction} label={`${props.label}: ${formatPercent(fraction)}`} tone={tone} />
       <Small testID={`status-${job.solver}`}>{jobStatusLine(job, props.runStatus, props.now)}</Small>
@@ -92,7 +93,7 @@ export function RunView(props: { id: number; role: Role | null }) {
     );
   }
   const r: RunDetail = run.data;
-  const label = (job: RunJob) => labels[job.solver] ?? job.label ?? job.solver;
+  const label = (job: RunJob) => solverLabelOf(labels, job);
   const sense = senseOf(r.problem.kind);
   const valueName = r.problem.kind === 'maxcut' ? 'Cut weight' : 'Crossing weight';
   const finishedAny = r.jobs.some((j) => j.status === 'succeeded');
@@ -203,6 +204,7 @@ const styles = StyleSheet.create({
   job: { gap: space.xs, paddingVertical: space.xs },
   jobHead: { flexDirection: 'row', justifyContent: 'space-between', alignItems: 'baseline', gap: space.sm },
   jobLabel: { flexShrink: 1 },
+  figure: { flexShrink: 0 },
   error: { color: colors.danger },
   columns: { flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' },
   colWide: { flex: 3, gap: space.lg },

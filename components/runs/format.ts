@@ -74,3 +74,6 @@ export function parameterNames(solver: string, count: number): string[] {
   }
   return Array.from({ length: count }, (_, i) => `θ${i}`);
 }
+
+/** A job's solver by its label: the registry listing (useSolverLabels), else the label the run came with, else the code. */
+export const solverLabelOf = (labels: Record<string, string>, job: { solver: string; label?: string }) => labels[job.solver] ?? job.label ?? job.solver;

@@ -6,6 +6,7 @@
  */
 import { better, bestOf, gapOfKind, tighter } from '../../shared/engine/problem/compare';
 import { senseOf, type Sense } from '../../shared/engine/problem/types';
+import { solverLabelOf } from './format';
 import type { JobStatus, ScorableRun } from './types';
 
 export interface ScoreRow {
@@ -76,7 +77,7 @@ export function buildScorecard(run: ScorableRun, labels: Record<string, string> 
     return {
       jobId: job.id,
       solver: job.solver,
-      label: labels[job.solver] ?? job.label ?? job.solver,
+      label: solverLabelOf(labels, job),
       status: job.status,
       value: r ? r.value : null,
       bound,

@@ -11,6 +11,7 @@ export function TextField(props: TextInputProps & { label: string; error?: strin
       <TextInput
         accessibilityLabel={label}
         placeholderTextColor={colors.textMuted}
+        aria-invalid={!!error}
         {...input}
         style={[styles.input, error ? styles.inputError : null, style]}
       />
