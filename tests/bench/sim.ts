@@ -1,6 +1,7 @@
 /**
  * Simulator benchmark: `npx tsx tests/bench/sim.ts` (npm run bench:sim). Heavy (n up to 26, about
- * 2 GiB): run it alone. `--quick` runs small sizes and leaves docs/benchmarks.md untouched.
+ * 2 GiB): run it alone. `--quick` runs small sizes and leaves docs/benchmarks.md untouched;
+ * `--skip-optimisation` leaves out section 4 (minutes of CPU).
  *
  * 1. One QAOA layer (cost phase + transverse mixer) at n = 16, 20, 22, 24 as a RATIO to one
  *    streaming read+write pass over the same state, measured in the same run (target ≤ 3), for
@@ -38,6 +39,8 @@ import { bindProblem } from '../../shared/engine/problem/bind';
 import { solveProblem } from '../../shared/engine/solvers/orchestrate';
 
 const quick = process.argv.includes('--quick');
+// The default optimisation (section 4) costs minutes of CPU; on a loaded machine it can be left out.
+const skipOptimisation = process.argv.includes('--skip-optimisation');
 // The WebAssembly kernels are assembled from their text source when stale (as npm test/start do).
 execFileSync('npx', ['tsx', path.join(__dirname, '../../server/scripts/build-wasm.ts')], { stdio: 'inherit' });
 const wasmModule = loadSimKernels();
@@ -276,7 +279,7 @@ function ringNetwork(n: number, seed: number) {
 }
 const optTable: string[][] = [];
 async function optimisation(): Promise<void> {
-  if (!wasm) return;
+  if (!wasm || skipOptimisation) return;
   const n = quick ? 14 : 22;
   const problem = ringNetwork(n, 5);
   const run = async (kernels: typeof wasm | undefined) => {
@@ -314,7 +317,7 @@ const section = [
   table(['n', 'state MiB', 'pass CPU ms', 'fused CPU ms', 'fused passes', 'fused + trig passes', 'naive passes', 'cost levels', 'Hadamard + WASM passes'], layerTable),
   '',
   '"Hadamard + WASM" = the same layer as H^{⊗n}, weight phase, H^{⊗n} (hadamard-mixer.ts) on the WebAssembly SIMD kernels ' +
-    '(server/wasm/sim-kernels.wat; 2m + 1 memory passes, 5 for n = 19…24), one thread, same pass unit. Target: ≤ 6 passes at n = 24.',
+    '(server/wasm/sim-kernels.wat; 2m + 1 memory passes with WASM_BLOCKING, 3 for n = 15…24), one thread, same pass unit. Target: ≤ 6 passes at n = 24.',
   '',
   '### Hadamard + WebAssembly layer on 1 and 2 threads (wall time, same run)',
   '',
@@ -333,7 +336,7 @@ const section = [
     'seed 3, once with the JavaScript kernels (rotation layers, gates.ts) and once with the WebAssembly backend injected ' +
     '(SolveContext.stateKernels). Process CPU seconds. Target: ≥ 3× faster, same answer.',
   '',
-  table(['depots', 'JS CPU s', 'WASM CPU s', 'speed-up', 'JS cut', 'WASM cut', 'same answer'], optTable),
+  skipOptimisation ? 'Not measured in this run (`--skip-optimisation`).' : table(['depots', 'JS CPU s', 'WASM CPU s', 'speed-up', 'JS cut', 'WASM cut', 'same answer'], optTable),
   '',
   '### Two threads, JS kernels (parallel-layers.ts, wall time, best of a few)',
   '',
