@@ -9,7 +9,7 @@ import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
 import { TextField } from '../ui/TextField';
 import { Body, Heading, Label, Small } from '../ui/Text';
-import { deviceTimeRows, deviceTimeRule, LAYOUT_LABEL, noiseRows, qasmLinks, type LayoutKey } from './circuit-view';
+import { assumedDuration, deviceTimeRows, deviceTimeRule, LAYOUT_LABEL, noiseRows, qasmLinks, type LayoutKey } from './circuit-view';
 import { ResourceTable, Row } from './ResourceTable';
 import { Segmented } from './controls';
 import type { RunJob } from './types';
@@ -60,7 +60,7 @@ export function CircuitPanel(props: { runId: number; job: RunJob; result: Result
           <Small>{deviceTimeRule(deviceTime)}</Small>
           {assumptions ? (
             <Small testID="assumptions">
-              Assumed: {FIELDS.map((k) => `${DEVICE_DEFAULTS[k].label} ${DEVICE_DEFAULTS[k].unit === 's' ? `${Number((assumptions[k] * 1e9).toPrecision(4))} ns` : `${Number((100 * assumptions[k]).toPrecision(3))} %`}`).join('; ')}. Defaults: {DEVICE_DEFAULTS.twoQubitError.source.replace(/^Pauli error [^,]+, /, '')}; read-out and reset times are assumptions.
+              Assumed: {FIELDS.map((k) => `${DEVICE_DEFAULTS[k].label} ${DEVICE_DEFAULTS[k].unit === 's' ? assumedDuration(assumptions[k]) : `${Number((100 * assumptions[k]).toPrecision(3))} %`}`).join('; ')}. Defaults: {DEVICE_DEFAULTS.twoQubitError.source.replace(/^Pauli error [^,]+, /, '')}; read-out and reset times are assumptions.
             </Small>
           ) : null}
         </View>

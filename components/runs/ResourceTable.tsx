@@ -40,7 +40,8 @@ export function ResourceTable(props: { circuit: NonNullable<JobResult['circuit']
 
 const styles = StyleSheet.create({
   tableRow: { flexDirection: 'row', borderBottomWidth: StyleSheet.hairlineWidth, borderColor: colors.line, paddingVertical: space.xs },
-  cell: { flex: 1, textAlign: 'right', fontVariant: ['tabular-nums'], color: colors.ink },
+  // The left padding keeps wrapped header words of neighbouring columns apart.
+  cell: { flex: 1, textAlign: 'right', fontVariant: ['tabular-nums'], color: colors.ink, paddingLeft: space.sm },
   first: { flex: 2, textAlign: 'left' },
   head: { fontWeight: '600' },
   cardRow: { paddingVertical: space.xs, gap: 2 },

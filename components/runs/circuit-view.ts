@@ -39,6 +39,12 @@ export function formatDuration(s: number): string {
   return `${(s / 86400).toPrecision(3)} days`;
 }
 
+/** An assumed duration in the unit it is usually quoted in, without padding zeros: 25 ns, 1 µs, 100 µs. */
+export function assumedDuration(s: number): string {
+  const [scale, unit] = s < 1e-6 ? [1e9, 'ns'] : s < 1e-3 ? [1e6, 'µs'] : s < 1 ? [1e3, 'ms'] : [1, 's'];
+  return `${Number((s * scale).toPrecision(4))} ${unit}`;
+}
+
 export interface DeviceTimeRow {
   layout: LayoutKey;
   label: string;

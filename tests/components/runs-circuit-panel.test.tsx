@@ -56,6 +56,8 @@ test('phone: resources per layout, device time, noise with ratios and the noisy 
   expect(screen.getByTestId('noise-trajectories').textContent).toContain('3.100 ± 0.012');
   expect(screen.getByTestId('noisy-best').textContent).toContain('cut weight 4');
   expect(screen.getByTestId('assumptions').textContent).toMatch(/from memory/);
+  // Durations in the unit they are quoted in (was "reset and latency per shot 100000 ns").
+  expect(screen.getByTestId('assumptions').textContent).toMatch(/one-qubit gate duration 25 ns; two-qubit gate duration 12 ns; read-out duration 1 µs; reset and latency per shot 100 µs/);
   expect(screen.queryByTestId('edit-assumptions')).toBeNull(); // dispatchers see the defaults only
 });
 
