@@ -11,6 +11,7 @@ import { apiRoutes } from './routes';
 import { errorBody, mountRoutes, type RouteSpec } from './lib/routes';
 import { throttleTouch } from './middleware/session-touch';
 import { serveWebAssets } from './lib/static-assets';
+import { prerenderedFileFor } from './lib/prerender';
 
 export const SESSION_COOKIE = 'spinyard.sid';
 export const SESSION_MAX_AGE_MS = 14 * 24 * 3600 * 1000;
@@ -103,10 +104,17 @@ export function createApp(deps: Deps, extras: AppExtras = {}) {
   const webDir = config.WEB_DIR ?? path.resolve(__dirname, '..', 'dist', 'web');
   const indexHtml = path.join(webDir, 'index.html');
   // Brotli/gzip copies written at build; hashed names cached for a year, pages revalidated (lib/static-assets).
-  app.use(serveWebAssets(webDir));
-  // Single-page app fallback (Express 5 has no '*' route): every other GET gets index.html.
+  const webAssets = serveWebAssets(webDir);
+  app.use(webAssets);
+  // Single-page app fallback (Express 5 has no '*' route): every other GET gets index.html,
+  // except pages prerendered at build (lib/prerender), sent like any file (compressed, no-cache).
   app.use((req, res, next) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') return next();
+    const prerendered = prerenderedFileFor(req.path);
+    if (prerendered && fs.existsSync(path.join(webDir, prerendered))) {
+      req.url = `/${prerendered}`;
+      return webAssets(req, res, next);
+    }
     if (!fs.existsSync(indexHtml)) {
       res.status(503).type('text/plain').send('The web app has not been built yet. Run `npm run build:web` (npm start does this for you).');
       return;

@@ -1,8 +1,11 @@
 import { StyleSheet, View } from 'react-native';
 import { Link, useLocalSearchParams, useRouter } from 'expo-router';
+import { useQueryClient } from '@tanstack/react-query';
 import { pageAfterSignIn } from './next';
+import { usePrerenderedHandover } from './prerendered';
 import { SignInSchema, type SignIn } from '../../shared/schemas/auth';
 import { useSignInMutation } from '../queries/auth';
+import { prefetchFirstNetworkList } from '../queries/networks';
 import { colors, space } from '../theme';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
@@ -16,10 +19,24 @@ export function SignInForm() {
   const { next } = useLocalSearchParams<{ next?: string }>();
   const form = useZodForm(SignInSchema, { email: '', password: '' });
   const signIn = useSignInMutation();
+  const qc = useQueryClient();
+  // The page's HTML may carry a copy of this form (shown before scripts ran): take over from it.
+  usePrerenderedHandover((testID, value) => {
+    if (testID === 'sign-in-email') form.set('email')(value);
+    if (testID === 'sign-in-password') form.set('password')(value);
+  });
   const submit = () => {
     const body = form.validate() as SignIn | null;
     if (!body) return;
-    signIn.mutate(body, { onSuccess: () => router.replace(pageAfterSignIn(next)), onError: form.fromServer });
+    signIn.mutate(body, {
+      onSuccess: () => {
+        const to = pageAfterSignIn(next);
+        // The usual first page: its list is read while its screen's code loads, not after.
+        if (to === '/networks') prefetchFirstNetworkList(qc);
+        router.replace(to);
+      },
+      onError: form.fromServer,
+    });
   };
   return (
     <Card style={styles.card} testID="sign-in-form">

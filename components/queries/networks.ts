@@ -39,13 +39,25 @@ const qs = (p: Record<string, string | number | undefined>) => {
   return parts.length ? `?${parts.join('&')}` : '';
 };
 
+/** The networks list as it first opens (no search, latest first): NetworkList's initial state, and what is fetched early after signing in. */
+export const FIRST_NETWORK_LIST = { search: '', sort: 'updated', order: 'desc' } as const satisfies NetworkListParams;
+
+const networkListQuery = (params: NetworkListParams) => ({
+  queryKey: networkKeys.list(params),
+  staleTime: STALE.list,
+  queryFn: () => api.get<NetworkListItem[]>(`/networks${qs({ search: params.search?.trim(), sort: params.sort, order: params.order })}`),
+});
+
 export function useNetworksQuery(params: NetworkListParams) {
   return useQuery({
-    queryKey: networkKeys.list(params),
-    staleTime: STALE.list,
+    ...networkListQuery(params),
     placeholderData: keepPreviousData, // typing in the search box keeps the last list on screen
-    queryFn: () => api.get<NetworkListItem[]>(`/networks${qs({ search: params.search?.trim(), sort: params.sort, order: params.order })}`),
   });
+}
+
+/** Start reading the first networks list now (signing in: in parallel with loading the list's screen code). */
+export function prefetchFirstNetworkList(qc: QueryClient): void {
+  void qc.prefetchQuery(networkListQuery(FIRST_NETWORK_LIST));
 }
 
 export function useNetworkQuery(id: number) {

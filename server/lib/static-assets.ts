@@ -33,7 +33,7 @@ export function serveWebAssets(webDir: string): RequestHandler {
 }
 
 /** Types worth compressing (text and uncompressed fonts; PNG, WOFF2 and the like are compressed already). */
-const COMPRESSIBLE = new Set(['.js', '.css', '.json', '.svg', '.ico', '.ttf', '.otf', '.txt', '.map', '.wasm']);
+const COMPRESSIBLE = new Set(['.html', '.js', '.css', '.json', '.svg', '.ico', '.ttf', '.otf', '.txt', '.map', '.wasm']);
 
 /**
  * Write `<file>.br` (brotli, quality 11) and `<file>.gz` (gzip, level 9) beside every compressible

@@ -11,7 +11,7 @@
  *   npx tsx tests/bench/load.ts [--seconds 8] [--connections 50] [--runs 100] [--quick] [--no-write] [--route /runs] [--no-drain]
  * --route keeps only the routes whose name contains the text, --no-drain skips part 2 (both for
  * looking into one route; they imply --no-write).
- * LOAD_SQL=1 prints the SQL of each counted answer.
+ * LOAD_SQL=1 prints the SQL of each counted answer; --explain also prints MariaDB's plan (EXPLAIN) of each of its SELECTs.
  * Prints one line `LOAD-METRICS {json}` for tests/bench/all.ts and rewrites `## Load` in docs/benchmarks.md.
  */
 import fs from 'node:fs';
@@ -31,6 +31,7 @@ const RUNS = opt('--runs', quick ? 30 : 100);
 const routeAt = args.indexOf('--route');
 const ROUTE = routeAt >= 0 ? args[routeAt + 1] : null;
 const DRAIN = !args.includes('--no-drain');
+const EXPLAIN = args.includes('--explain');
 const write = !args.includes('--no-write') && !quick && !ROUTE && DRAIN;
 const PORT = 3131;
 const DOC = path.join(__dirname, '../../docs/benchmarks.md');
@@ -132,10 +133,21 @@ async function main() {
     await new Promise((r) => setTimeout(r, 1500)); // answers still in flight from the previous route finish first
     await fetch(base + url, { headers }); // warm: first touches and caches are not the steady state
     let statements = 0;
+    const selects: string[] = [];
     const options = (deps.db as unknown as { options: { logging?: unknown } }).options;
-    options.logging = (sql: string) => { statements++; if (process.env.LOAD_SQL) console.log(`  sql: ${sql.slice(0, 160)}`); };
+    options.logging = (sql: string) => {
+      statements++;
+      if (process.env.LOAD_SQL) console.log(`  sql: ${sql.slice(0, 160)}`);
+      const body = sql.replace(/^Executing \([^)]*\):\s*/, '');
+      if (/^SELECT/i.test(body)) selects.push(body);
+    };
     const check = await fetch(base + url, { headers });
     options.logging = false;
+    if (EXPLAIN) for (const sql of selects) {
+      const [plan] = await deps.db.query(`EXPLAIN ${sql}`);
+      console.log(`  explain: ${sql.slice(0, 200)}`);
+      for (const row of plan as Array<Record<string, unknown>>) console.log(`    ${['table', 'type', 'possible_keys', 'key', 'key_len', 'ref', 'rows', 'Extra'].map((k) => `${k}=${row[k] ?? ''}`).join(' ')}`);
+    }
     if (check.status !== 200) throw new Error(`${route} answered ${check.status} before the load: ${await check.text()}`);
     const times: number[] = [];
     const instance = autocannon({ url: base + url, connections: CONNECTIONS, duration: SECONDS, headers });

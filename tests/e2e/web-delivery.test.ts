@@ -2,8 +2,9 @@
  * How the web app reaches a phone: scripts served compressed (brotli, else gzip) with the right
  * Content-Encoding, Vary and caching; the sign-in page loads no server package and none of the
  * drawing, chart or API-documentation code (checked against the source maps of the very chunks it
- * loaded, dist/web-maps); and an open run screen follows the run through the server's progress
- * stream instead of polling. A real worker process solves the run.
+ * loaded, dist/web-maps); the sign-in form is in the page's HTML (prerendered at build) and the app
+ * takes over from it keeping what was typed; and an open run screen follows the run through the
+ * server's progress stream instead of polling. A real worker process solves the run.
  */
 import fs from 'node:fs';
 import path from 'node:path';
@@ -118,6 +119,47 @@ test('the sign-in page gets compressed, cacheable scripts with no server package
   const plain = await fetch(`${server.url}${entry}`, { headers: { 'accept-encoding': 'identity' } });
   expect(plain.headers.get('content-encoding')).toBeNull();
   expect((await plain.text()).length).toBeGreaterThan(Number(gz.headers.get('content-length')));
+  expect(errors).toEqual([]);
+  await context.close();
+});
+
+test('the sign-in page arrives with its form in the HTML: shown before any script runs, typing kept when the app takes over', async () => {
+  // The page itself: compressed, revalidated, the form inside the prerendered layer, route chunks preloaded.
+  const raw = await fetch(`${server.url}/sign-in?next=/runs`, { headers: { 'accept-encoding': 'br' } });
+  expect(raw.headers.get('content-encoding')).toBe('br');
+  expect(raw.headers.get('cache-control')).toBe('no-cache');
+  expect(raw.headers.get('content-type')).toMatch(/text\/html/);
+  const html = await raw.text();
+  const layer = html.slice(html.indexOf('<div id="prerendered">'), html.indexOf('<div id="root"></div>'));
+  expect(layer).toContain('data-testid="sign-in-email"');
+  expect(layer).toContain('data-testid="sign-in-password"');
+  expect(html).toMatch(/<link rel="preload" as="script" href="\/_expo\/static\/js\/web\/sign-in-[0-9a-f]{32}\.js"/);
+
+  // Scripts held back: the form is on screen anyway, and takes typing.
+  const context = await browser.newContext({ viewport: PHONE });
+  const page = await context.newPage();
+  const errors = watchPageErrors(page);
+  let held = 0;
+  let release = () => {};
+  const gate = new Promise<void>((r) => (release = r));
+  await page.route('**/*.js', async (route) => {
+    held++;
+    await gate;
+    await route.continue();
+  });
+  await page.goto(`${server.url}/sign-in`, { waitUntil: 'commit' }); // DOMContentLoaded waits for the held (deferred) scripts
+  await page.getByTestId('sign-in-email').waitFor({ state: 'visible' });
+  expect(await page.evaluate(() => document.getElementById('root')!.childElementCount)).toBe(0); // no script has run
+  expect(await page.getByTestId('sign-in-submit').getAttribute('aria-disabled')).toBe('true');
+  await page.getByTestId('sign-in-email').fill(analyst.email);
+  await page.getByTestId('sign-in-password').fill(password);
+  expect(held).toBeGreaterThan(0);
+  release();
+  await page.waitForFunction(() => !document.getElementById('prerendered'));
+  expect(await page.getByTestId('sign-in-email').inputValue()).toBe(analyst.email);
+  expect(await page.getByTestId('sign-in-password').inputValue()).toBe(password);
+  await page.getByTestId('sign-in-submit').click();
+  await page.waitForURL((u) => u.pathname === '/networks');
   expect(errors).toEqual([]);
   await context.close();
 });
