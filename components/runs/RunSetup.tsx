@@ -17,6 +17,8 @@ import { CheckRow, ChoiceCard, ChoiceGroup, Segmented } from './controls';
 import { EncodingSummary } from './EncodingSummary';
 import { KIND_HINTS, KIND_LABELS } from './format';
 import { PinPicker } from './PinPicker';
+import { LargeProposal } from './LargeProposal';
+import { largeProposal } from './large-solvers';
 import { createBody, DEFAULT_ADVANCED, initialSetup, partsOf, problemOf, refusedChosen, startBlockers, type SetupState } from './setup';
 import { fieldProblems, solverLine, typedProblems, type AdvancedField } from './setup-words';
 import { REGION_CHOICES } from '../../shared/engine/problem/limits';
@@ -78,6 +80,7 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
   // Settings problems as sentences on their fields: typed text that is no number (caught here),
   // then what the server's check of exactly this body found.
   const labelOf = (name: string) => offered.find((o) => o.name === name)?.label ?? name;
+  const large = largeProposal(defaults.data?.solvers, defaults.data?.defaults, preview.data?.plan?.limits?.maxQubits);
   const problems = [...typedProblems(s.advanced), ...fieldProblems(preview.data?.fields, (i) => (body.solvers[i] ? labelOf(body.solvers[i].solver) : undefined))];
   const fieldError = (f: AdvancedField) => problems.find((p) => p.field === f)?.text;
   const rawFieldMessages = new Set(Object.values(preview.data?.fields ?? {}).flat());
@@ -115,6 +118,7 @@ export function RunSetup(props: { networkId: number; versionId: number; role: Ro
           ? `Chosen for ${defaults.data.depots} depots: exact when small enough, the strongest classical heuristic, and quantum solvers when the qubits each would simulate fit your plan.`
           : 'Choosing defaults for this size…'}
       </Small>
+      {large ? <LargeProposal proposal={large} chosen={chosen} labelOf={labelOf} lineOf={(name) => solverLine(answerOf(name), preview.data?.price, chosen.indexOf(name) >= 0 ? chosen.indexOf(name) + 1 : null)} /> : null}
       {offered
         .filter((o) => allSolvers || chosen.includes(o.name) || defaults.data?.defaults.includes(o.name))
         .map((o) => (

@@ -20,6 +20,9 @@ import { formatPercent, formatSeconds, formatValue, parameterNames, questionLabe
 import { OperatorInspector } from './OperatorInspector';
 import { PartitionView } from './PartitionView';
 import { Scorecard } from './Scorecard';
+import { LargeComparison } from './LargeComparison';
+import { LargeSolverPanels } from './LargeSolverPanels';
+import { largeComparison } from './large-solvers';
 import { buildScorecard } from './scorecard';
 import type { RunDetail, RunJob } from './types';
 import { useLiveTraces } from './useLiveTraces';
@@ -81,6 +84,7 @@ export function RunView(props: { id: number; role: Role | null }) {
   const [chartJob, setChartJob] = useState<number | null>(null);
   const labels = useSolverLabels();
   const card = useMemo(() => (run.data ? buildScorecard(run.data, labels) : null), [run.data, labels]);
+  const large = useMemo(() => (run.data && card ? largeComparison(run.data, card.bound, labels) : null), [run.data, card, labels]);
 
   if (run.isPending) return <Screen title={`Run ${props.id}`}><Body>Loading the run…</Body></Screen>;
   if (run.isError) {
@@ -167,6 +171,8 @@ export function RunView(props: { id: number; role: Role | null }) {
           <Small>Tap a solver to draw its answer on the network.</Small>
         </Card>
       ) : null}
+      {finishedAny && large ? <Card><LargeComparison comparison={large} valueName={valueName} wide={wide} runId={r.id} /></Card> : null}
+      {finishedAny ? <LargeSolverPanels run={r} document={version.data?.document} labelOf={label} wide={wide} /> : null}
       {wide && (partition || variationalDetail) ? (
         <View style={styles.columns}>
           <View style={styles.colWide}>{partition}{variationalDetail}</View>

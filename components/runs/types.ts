@@ -91,7 +91,7 @@ export interface RunPreview {
   forbidden?: string | null;
   /** Settings errors per field, when some entry's settings are out of range. */
   fields?: Record<string, string[]> | null;
-  plan?: { id: string; label: string } | null;
+  plan?: { id: string; label: string; limits?: { maxQubits?: number } } | null;
   solvers: PreviewSolver[];
   estimatedSeconds?: number | null;
   /** Present only for paid runs (billing). */

@@ -45,6 +45,8 @@ const HEURISTIC_PREFERENCE: Record<ProblemKind, string[]> = {
   kway: ['fm', 'best', 'anneal', 'greedy'],
 };
 const DECOMPOSITION_NAMES = ['qaoa-blocks', 'decomposed'];
+/** Variational solvers built for networks beyond the statevector limit, proposed together there. */
+const LARGE_VARIATIONAL_NAMES = ['rqaoa'];
 
 /** log₂ of the assignments exact enumeration would walk: free depots × log₂ k. */
 export function exactLog2Assignments(size: ProblemSize): number {
@@ -57,7 +59,9 @@ export function exactLog2Assignments(size: ProblemSize): number {
 /**
  * The default solver names for a question of this size, in the order the scorecard shows them:
  * exact (when small enough), the strongest classical heuristic, then QAOA and VQE when the
- * qubits each says it simulates fit — or the decomposition solver when they do not.
+ * qubits each says it simulates fit — or, when they do not (above the statevector limit), the
+ * large-network variational solvers: recursive QAOA and the decomposition solver, each when it
+ * takes the problem and its own widest circuit fits.
  */
 export function defaultSolvers(size: ProblemSize, listing: readonly ListedSolver[], opts: DefaultOptions = {}): string[] {
   const find = (name: string) => listing.find((s) => s.name === name && s.kinds.includes(size.kind) && !s.refused);
@@ -71,6 +75,7 @@ export function defaultSolvers(size: ProblemSize, listing: readonly ListedSolver
   const circuits = ['qaoa', 'vqe'].filter((name) => offered(name) && fits(name));
   if (circuits.length > 0) picks.push(...circuits);
   else {
+    picks.push(...LARGE_VARIATIONAL_NAMES.filter((name) => offered(name) && fits(name)));
     const decomposition = DECOMPOSITION_NAMES.find((name) => offered(name) && fits(name));
     if (decomposition) picks.push(decomposition);
   }

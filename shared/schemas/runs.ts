@@ -2,6 +2,8 @@ import { DEPOT_ID_MAX } from '../engine/network/limits';
 import type { CircuitSpec } from '../engine/circuits/of-run';
 import type { NoiseReport, RunDeviceTime } from '../engine/circuits/run-analysis';
 import type { CircuitSummary } from '../engine/circuits/summary';
+import type { DecompositionReport } from '../engine/solvers/types';
+import type { RqaoaRoundEntry } from '../engine/variational/rqaoa-log';
 import { z } from 'zod';
 import { MAX_REGIONS } from '../engine/problem/limits';
 
@@ -131,7 +133,9 @@ export interface JobResultView {
   /** Whether classical local search refined a variational answer, and the value before it. */
   refinement?: { applied: boolean; unrefinedValue: number; unrefinedInfeasible: boolean; moves: number };
   /** Recursive QAOA (rqaoa): rounds, exact remainder, eliminations (depot, the depot it follows, sign, correlation). */
-  recursion?: { rounds: number; remainder: number; eliminationsTotal: number; eliminations: { round: number; depot: string; follows: string | null; sign: 1 | -1; correlation: number }[] };
+  recursion?: { rounds: number; remainder: number; eliminationsTotal: number; eliminations: { round: number; depot: string; follows: string | null; sign: 1 | -1; correlation: number }[]; roundLog?: RqaoaRoundEntry[] };
+  /** qaoa-blocks: block count, sizes, block of each depot, merge method. */
+  decomposition?: DecompositionReport;
   /** Variational jobs: time on a device per layout under the default assumptions. */
   deviceTime?: RunDeviceTime;
   /** Variational jobs started with `noise: true`: noiseless vs noisy values. */
@@ -156,6 +160,20 @@ export interface JobView {
   error: string | null;
 }
 
+/**
+ * The best balanced answer found for the same question on the same network version by any run of
+ * the organisation (this one included; server/services/runs/best-known.ts). Not a certified optimum
+ * unless `provenOptimal`.
+ */
+export interface BestKnownView {
+  value: number;
+  runId: number;
+  solver: string;
+  provenOptimal: boolean;
+  /** Runs asked the same question on this version (this one included). */
+  runsCompared: number;
+}
+
 export interface RunView {
   id: number;
   status: RunStatus;
@@ -172,6 +190,8 @@ export interface RunView {
   releasedAt: string | null;
   finishedAt: string | null;
   jobs: JobView[];
+  /** Best known answer to this question on this network version (null before any answer). */
+  bestKnown?: BestKnownView | null;
 }
 
 export interface RunListItem {

@@ -80,8 +80,8 @@ test('large max-cut (60 depots): no exact enumeration (2^60), decomposition inst
   const versionId = await versionOf('Large ring', 60);
   const res = await viewer.post('/solvers/defaults', { versionId, problem: { kind: 'maxcut' } }).expect(200);
   const q = Object.fromEntries(res.body.solvers.map((s: { name: string; qubits: number }) => [s.name, s.qubits]));
-  expect(q).toMatchObject({ qaoa: 60, 'qaoa-blocks': 14 }); // blocks of 14 depots: the widest circuit
-  expect(res.body.defaults).toEqual(['tabu', 'qaoa-blocks']);
+  expect(q).toMatchObject({ qaoa: 60, 'qaoa-blocks': 14, rqaoa: 16 }); // blocks of 14 depots; rqaoa's exact remainder of 16
+  expect(res.body.defaults).toEqual(['tabu', 'rqaoa', 'qaoa-blocks']);
 });
 
 test('a version of another organisation is not found', async () => {

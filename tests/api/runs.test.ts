@@ -392,3 +392,19 @@ describe('downloads, preview, list, delete', () => {
     expect(run.jobs[0].result.value).toBe(12);
   });
 });
+
+describe('best known answer (server/services/runs/best-known.ts)', () => {
+  test('the best balanced answer of any run asking the same question on the version, proven first among equals; another question has its own', async () => {
+    const first = await as(org.tokens.analyst).post('/runs', { versionId: petersen.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'exact' }], timeLimitSeconds: 2 });
+    await finished(org.tokens.viewer, first.body.id);
+    const second = await as(org.tokens.analyst).post('/runs', { versionId: petersen.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 1 });
+    const run = await finished(org.tokens.viewer, second.body.id);
+    // Petersen graph max-cut 12 (common practice): proven by exact in the first run, whatever greedy found here.
+    expect(run.bestKnown).toMatchObject({ value: 12, provenOptimal: true, solver: 'exact' });
+    expect(run.bestKnown.runId).toBeLessThanOrEqual(first.body.id);
+    expect(run.bestKnown.runsCompared).toBeGreaterThanOrEqual(2);
+    const split = await as(org.tokens.analyst).post('/runs', { versionId: petersen.versionId, problem: { kind: 'bisection', tolerance: 0 }, solvers: [{ solver: 'greedy' }], timeLimitSeconds: 1 });
+    const bis = await finished(org.tokens.viewer, split.body.id);
+    expect(bis.bestKnown).toMatchObject({ runId: split.body.id, runsCompared: 1, value: bis.jobs[0].result.value });
+  });
+});

@@ -47,13 +47,14 @@ describe('run setup rules', () => {
 
 describe('defaultSolvers (shared by API and app)', () => {
   // Each solver has answered for the problem: the qubits it would simulate, whether it (or the plan) refuses.
-  const listing = (qubits: number, extra: Record<string, { qubits?: number; refused?: boolean }> = {}) => [
+  const listing = (qubits: number, extra: Record<string, { qubits?: number; refused?: boolean; kinds?: readonly ('maxcut' | 'bisection' | 'kway')[] }> = {}) => [
     { name: 'exact', family: 'exact' as const, kinds: ['maxcut', 'bisection', 'kway'] as const },
     { name: 'tabu', family: 'heuristic' as const, kinds: ['maxcut', 'bisection'] as const },
     { name: 'fm', family: 'heuristic' as const, kinds: ['bisection', 'kway'] as const },
     { name: 'qaoa', family: 'variational' as const, kinds: ['maxcut', 'bisection', 'kway'] as const, qubits },
     { name: 'vqe', family: 'variational' as const, kinds: ['maxcut', 'bisection', 'kway'] as const, qubits },
     { name: 'decomposed', family: 'variational' as const, kinds: ['maxcut'] as const, qubits: 14 },
+    { name: 'rqaoa', family: 'variational' as const, kinds: ['maxcut', 'bisection'] as const, qubits: 16 },
   ].map((s) => ({ ...s, ...extra[s.name] }));
   test('small max-cut: exact, tabu, QAOA and VQE', () => {
     expect(defaultSolvers({ kind: 'maxcut', depots: 12 }, listing(12))).toEqual(['exact', 'tabu', 'qaoa', 'vqe']);
@@ -62,8 +63,16 @@ describe('defaultSolvers (shared by API and app)', () => {
     expect(defaultSolvers({ kind: 'bisection', depots: 12 }, listing(16))).toEqual(['exact', 'fm', 'qaoa', 'vqe']);
   });
   test('large max-cut: no exact enumeration (2^200 assignments), decomposition instead of direct circuits', () => {
-    expect(defaultSolvers({ kind: 'maxcut', depots: 200 }, listing(200))).toEqual(['tabu', 'decomposed']);
-    expect(defaultSolvers({ kind: 'maxcut', depots: 30 }, listing(VARIATIONAL_MAX_QUBITS + 1))).toEqual(['tabu', 'decomposed']);
+    expect(defaultSolvers({ kind: 'maxcut', depots: 200 }, listing(200))).toEqual(['tabu', 'rqaoa', 'decomposed']);
+    expect(defaultSolvers({ kind: 'maxcut', depots: 30 }, listing(VARIATIONAL_MAX_QUBITS + 1))).toEqual(['tabu', 'rqaoa', 'decomposed']);
+  });
+  test('above the statevector limit both large-network solvers are proposed, each only where it takes the problem', () => {
+    // rqaoa refuses bisection above 80 free depots (variational/rqaoa-problem.ts): the decomposition alone.
+    expect(defaultSolvers({ kind: 'bisection', depots: 300 }, listing(300, { rqaoa: { refused: true }, decomposed: { kinds: ['maxcut', 'bisection'] } }))).toEqual(['fm', 'decomposed']);
+    // Small enough for direct circuits: neither is proposed.
+    expect(defaultSolvers({ kind: 'maxcut', depots: 12 }, listing(12))).not.toContain('rqaoa');
+    // A plan whose qubits are below rqaoa's exact remainder: not proposed.
+    expect(defaultSolvers({ kind: 'maxcut', depots: 300 }, listing(300), { maxQubits: 15 })).toEqual(['tabu', 'decomposed']);
   });
   test('pinned depots shrink the exact search (30 depots, 10 pinned: 2^20 assignments)', () => {
     expect(defaultSolvers({ kind: 'maxcut', depots: 30, pinned: 10 }, listing(20))[0]).toBe('exact');
@@ -73,8 +82,8 @@ describe('defaultSolvers (shared by API and app)', () => {
   });
   test('never a solver that refuses or that the plan refuses, and circuits stay within the plan\'s qubits', () => {
     expect(defaultSolvers({ kind: 'maxcut', depots: 12 }, listing(12, { qaoa: { refused: true } }))).toEqual(['exact', 'tabu', 'vqe']);
-    expect(defaultSolvers({ kind: 'maxcut', depots: 18 }, listing(18), { maxQubits: 16 })).toEqual(['exact', 'tabu', 'decomposed']);
-    expect(defaultSolvers({ kind: 'maxcut', depots: 200 }, listing(200, { decomposed: { refused: true } }))).toEqual(['tabu']);
+    expect(defaultSolvers({ kind: 'maxcut', depots: 18 }, listing(18), { maxQubits: 16 })).toEqual(['exact', 'tabu', 'rqaoa', 'decomposed']);
+    expect(defaultSolvers({ kind: 'maxcut', depots: 200 }, listing(200, { decomposed: { refused: true }, rqaoa: { refused: true } }))).toEqual(['tabu']);
   });
 });
 

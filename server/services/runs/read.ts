@@ -5,6 +5,7 @@ import { getSolver } from '../../../shared/engine/solvers/registry';
 import type { JobView, ProblemInput, RunListItem, RunListQuery, RunView } from '../../../shared/schemas/runs';
 import type { RunRow } from '../../models/run';
 import type { RunJobRow } from '../../models/run-job';
+import { bestKnownFor } from './best-known';
 
 /**
  * Reading runs: one run with its jobs and checked results, and the organisation's run list.
@@ -69,10 +70,11 @@ export async function getRun(deps: RunServiceDeps, organisationId: number, id: n
   const run = await findRun(deps, organisationId, id);
   const jobs = await deps.models.RunJob.findAll({ where: { runId: id, organisationId }, order: [['position', 'ASC']] });
   const names = await networkNames(deps, [run.networkId]);
+  const problem = parseJson(run.problem, { kind: 'maxcut' } as ProblemInput);
   return {
     id: run.id,
     status: run.status,
-    problem: parseJson(run.problem, { kind: 'maxcut' } as ProblemInput),
+    problem,
     networkId: run.networkId,
     versionId: run.versionId,
     networkName: names.get(run.networkId) ?? null,
@@ -84,6 +86,7 @@ export async function getRun(deps: RunServiceDeps, organisationId: number, id: n
     releasedAt: iso(run.releasedAt),
     finishedAt: iso(run.finishedAt),
     jobs: jobs.map((j) => jobView(j.get({ plain: true }) as RunJobRow)),
+    bestKnown: await bestKnownFor(deps, organisationId, run.versionId, problem),
   };
 }
 

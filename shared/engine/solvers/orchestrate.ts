@@ -170,6 +170,7 @@ export function createOrchestrator(lookup: (name: string) => AnySolverDefinition
     if (raw.circuitSpec) result.circuitSpec = raw.circuitSpec;
     if (raw.refinement) result.refinement = raw.refinement;
     if (raw.recursion) result.recursion = raw.recursion;
+    if (raw.decomposition) result.decomposition = raw.decomposition;
     if (raw.deviceTime) result.deviceTime = raw.deviceTime;
     // Noise ratios against the run's bound (else its value), known only here.
     if (raw.noise) result.noise = withReference(raw.noise, problem.kind, bound !== null ? { value: bound, what: `the bound (${boundSource})` } : { value, what: 'the value found by this solver' });

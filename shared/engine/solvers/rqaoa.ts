@@ -53,6 +53,7 @@ export const rqaoaSolver = defineSolver({
       batchFraction: s.batch === 'auto' ? defaultBatchFraction(spins) : s.batch,
       refine: s.refine,
       hurry: () => ctx.cancel?.cancelled === true || elapsed() >= HURRY_AT * ctx.timeLimitSeconds,
+      overdue: () => ctx.cancel?.cancelled === true || elapsed() >= ctx.timeLimitSeconds,
       onRound: (r) => ctx.onProgress?.({ fraction: Math.min(1, Math.max(1 - r.spins / Math.max(1, spins), elapsed() / ctx.timeLimitSeconds)), iteration: r.round, energy: r.energy }),
     });
     const notes = [
@@ -76,7 +77,7 @@ export const rqaoaSolver = defineSolver({
       notes,
       ...(out.feasible ? {} : { infeasible: true }),
       refinement: { applied: s.refine, unrefinedValue: out.unrefinedValue, unrefinedInfeasible: !out.unrefinedFeasible, moves: out.refineMoves },
-      recursion: { rounds: out.rounds, remainder: out.remainder, eliminations: out.steps.slice(0, 2000), eliminationsTotal: out.steps.length },
+      recursion: { rounds: out.rounds, remainder: out.remainder, eliminations: out.steps.slice(0, 2000), eliminationsTotal: out.steps.length, roundLog: out.roundLog },
     };
   },
 });

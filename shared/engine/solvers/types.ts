@@ -6,6 +6,7 @@ import type { CircuitSummary } from '../circuits/summary';
 import type { PlannedCircuit } from './circuit-plan';
 import type { EncodingOptions } from '../encodings';
 import type { Problem, ProblemKind } from '../problem/types';
+import type { RqaoaRoundEntry } from '../variational/rqaoa-log';
 
 /** A circuit a solver simulates: the problem it encodes and the encoding options, in words. */
 export interface CircuitTarget {
@@ -75,6 +76,8 @@ export interface SolveResult {
   refinement?: { applied: boolean; unrefinedValue: number; unrefinedInfeasible: boolean; moves: number };
   /** Recursive QAOA: rounds, depots solved exactly at the end, and the eliminations in order. */
   recursion?: RecursionReport;
+  /** qaoa-blocks: the blocks (count, sizes, block per depot) and the merge method. */
+  decomposition?: DecompositionReport;
   notes?: string[];
   /** Variational runs: qubits and gate counts per qubit layout (docs/runs.md, "Circuit resources"). */
   circuit?: CircuitSummary;
@@ -167,6 +170,21 @@ export interface RecursionReport {
   /** Eliminations in order (at most the first 2,000; `eliminationsTotal` counts all). */
   eliminations: RecursionStep[];
   eliminationsTotal: number;
+  /** Per round: depots eliminated, correlations used (variational/rqaoa-log.ts; ≤ 120 entries, merged above). */
+  roundLog?: RqaoaRoundEntry[];
+}
+
+/** qaoa-blocks: how the network was cut into blocks and how the blocks were oriented. */
+export interface DecompositionReport {
+  blocks: number;
+  /** Depots per block, in block order. */
+  sizes: number[];
+  /** Block of each depot, in input order (the run screen colours the drawing by it). */
+  blockOf: number[];
+  /** Widest block circuit (qubits). */
+  largestQubits: number;
+  /** How block orientations were chosen (decompose.ts). */
+  merge: 'single' | 'exact' | 'rqaoa' | 'local';
 }
 
 /**

@@ -149,7 +149,7 @@ function orientMaxcut(problem: Problem, state: BlocksState, blockOf: ArrayLike<n
     // Any number of blocks: recursive QAOA (closed-form level 1), never a wide circuit.
     state.merge.method = 'rqaoa';
     const encoding = encodeMaxCut(mergeProblem);
-    const out = runRqaoa(encoding.operator, { stopAt: Math.min(opts.mergeExactLimit, RQAOA_MAX_REMAINDER), batchFraction: defaultBatchFraction(encoding.numQubits), hurry: () => control.shouldStop() });
+    const out = runRqaoa(encoding.operator, { stopAt: Math.min(opts.mergeExactLimit, RQAOA_MAX_REMAINDER), batchFraction: defaultBatchFraction(encoding.numQubits), hurry: () => control.shouldStop(), overdue: () => control.shouldStop() });
     state.evaluations += out.evaluations;
     flip = encoding.decode(bitsOfSpins(out.spins));
   }

@@ -8,6 +8,7 @@ import type { Problem } from '../problem/types';
 import { level1Coefficients, level1ExpectationOf } from './level1';
 import { level1Graph } from './level1-graph';
 import { bitsOfSpins, runRqaoa, type RqaoaRound } from './rqaoa';
+import { roundLog, type RoundInfo, type RqaoaRoundEntry } from './rqaoa-log';
 
 /**
  * Recursive QAOA on a splitting question (variational/rqaoa.ts on the encoding's operator).
@@ -29,6 +30,7 @@ export interface RqaoaProblemOptions {
   batchFraction: number;
   refine: boolean;
   hurry?: () => boolean;
+  overdue?: () => boolean;
   onRound?: (round: RqaoaRound) => void;
 }
 
@@ -60,6 +62,8 @@ export interface RqaoaProblemOutcome {
   evaluations: number;
   /** Depot eliminations in order (slack qubits of the bisection encoding are left out). */
   steps: RqaoaStep[];
+  /** Per round: depots eliminated and the correlations used (rqaoa-log.ts; at most ROUND_LOG_CAP entries). */
+  roundLog: RqaoaRoundEntry[];
 }
 
 /** Why rqaoa will not take a problem, or null. */
@@ -78,7 +82,9 @@ export function rqaoaOnProblem(problem: Problem, opts: RqaoaProblemOptions): Rqa
   const refusal = rqaoaRefusal(problem);
   if (refusal) throw new RangeError(refusal);
   const encoding = problem.kind === 'bisection' ? encodeBisection(problem) : encodeMaxCut(problem);
-  const out = runRqaoa(encoding.operator, { stopAt: opts.stopAt, batchFraction: opts.batchFraction, hurry: opts.hurry, onRound: opts.onRound });
+  const rounds: RoundInfo[] = [];
+  const onRound = (r: RqaoaRound) => { rounds.push({ round: r.round, spins: r.spins, gamma: r.gamma, beta: r.beta }); opts.onRound?.(r); };
+  const out = runRqaoa(encoding.operator, { stopAt: opts.stopAt, batchFraction: opts.batchFraction, hurry: opts.hurry, overdue: opts.overdue, onRound });
   const raw = encoding.decode(bitsOfSpins(out.spins));
   const unrefinedValue = crossingWeight(problem, raw);
   const unrefinedFeasible = isBalanced(problem, raw);
@@ -118,5 +124,6 @@ export function rqaoaOnProblem(problem: Problem, opts: RqaoaProblemOptions): Rqa
     remainder: out.remainder,
     evaluations: out.evaluations,
     steps,
+    roundLog: roundLog(rounds, steps),
   };
 }

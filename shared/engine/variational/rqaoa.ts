@@ -2,7 +2,7 @@ import type { IsingOperator } from '../operators/types';
 import { isingDiagonal } from '../statevector/diagonal';
 import { eliminateSpins, type SpinRelation } from './ising-eliminate';
 import { level1Coefficients, level1Correlations } from './level1';
-import { optimiseLevel1Angles } from './level1-angles';
+import { bestBeta, optimiseLevel1Angles } from './level1-angles';
 import { level1Graph, type Level1Graph } from './level1-graph';
 
 /**
@@ -31,8 +31,14 @@ export interface RqaoaOptions {
    * rule. 0 = one per round, as in the paper.
    */
   batchFraction: number;
-  /** Checked between rounds; true makes every later round take all it can (no cone rule). */
+  /**
+   * Checked between rounds; true makes every later round take a quarter of the spins left (no
+   * cone rule) and reuse the previous round's γ (one pass over the graph instead of an angle
+   * search: the reduced operator densifies as spins merge, so searches get dearer late).
+   */
   hurry?: () => boolean;
+  /** Checked between rounds; true (time is up or the run was cancelled): take every relation one pass allows. */
+  overdue?: () => boolean;
   onRound?: (round: RqaoaRound) => void;
 }
 
@@ -128,6 +134,48 @@ function pickRelations(g: Level1Graph, z: Float64Array, zz: Float64Array, want: 
   return out;
 }
 
+/**
+ * Overdue (time is up): impose the strongest correlations along a maximum-|correlation| spanning
+ * forest (Kruskal; ⟨Z_u⟩ ties a spin to a virtual fixed spin), so one pass settles every spin
+ * but one per component. Each relation is re-rooted onto its component's root (or fixed), so no
+ * relation chains: eliminateSpins takes them in one call.
+ */
+function forestRelations(g: Level1Graph, z: Float64Array, zz: Float64Array): (SpinRelation & { correlation: number })[] {
+  const { n, op } = g;
+  const ground = n;
+  const parent = Int32Array.from({ length: n + 1 }, (_, i) => i);
+  const parity = new Int8Array(n + 1).fill(1); // sign of a spin relative to its parent
+  const find = (u: number): number => {
+    let root = u, sgn = 1;
+    while (parent[root] !== root) { sgn *= parity[root]; root = parent[root]; }
+    // Path compression keeping each spin's sign relative to the root.
+    for (let x = u, sx = sgn; parent[x] !== x; ) { const next = parent[x], sn = sx * parity[x]; parent[x] = root; parity[x] = sx as 1 | -1; x = next; sx = sn; }
+    return root;
+  };
+  const signToRoot = (u: number) => { find(u); return u === parent[u] ? 1 : parity[u]; };
+  const cands: Candidate[] = [];
+  for (let t = 0; t < zz.length; t++) cands.push({ strength: Math.abs(zz[t]), corr: zz[t], u: op.quadI[t], v: op.quadJ[t] });
+  for (let u = 0; u < n; u++) if (op.linear[u] !== 0) cands.push({ strength: Math.abs(z[u]), corr: z[u], u, v: ground });
+  cands.sort((a, b) => b.strength - a.strength || a.u - b.u || a.v - b.v);
+  const used = new Map<number, number>(); // spin → the correlation that settled it
+  for (const c of cands) {
+    const ru = find(c.u), rv = find(c.v);
+    if (ru === rv) continue;
+    // s_u = sign·s_v ⇒ root_u = sign·(s_u/root_u)·(s_v/root_v)·root_v; the ground stays a root.
+    const rel = ((c.corr < 0 ? -1 : 1) * signToRoot(c.u) * signToRoot(c.v)) as 1 | -1;
+    if (ru === ground) { parent[rv] = ru; parity[rv] = rel; used.set(rv, c.corr); }
+    else { parent[ru] = rv; parity[ru] = rel; used.set(ru, c.corr); }
+  }
+  const out: (SpinRelation & { correlation: number })[] = [];
+  for (let u = 0; u < n; u++) {
+    const root = find(u);
+    if (root === u) continue;
+    const sgn = signToRoot(u) as 1 | -1;
+    out.push({ qubit: u, partner: root === ground ? -1 : root, sign: sgn, correlation: used.get(u) ?? 0 });
+  }
+  return out;
+}
+
 /** Lowest-energy state of a small operator by its full diagonal (spins, ±1). */
 function solveExactly(op: IsingOperator): Int8Array {
   const s = new Int8Array(op.numQubits).fill(1);
@@ -164,17 +212,19 @@ export function runRqaoa(original: IsingOperator, opts: RqaoaOptions): RqaoaOutc
     }
     if (op.numQubits <= opts.stopAt) break;
     round++;
+    const hurry = opts.hurry?.() ?? false;
+    const overdue = opts.overdue?.() ?? false;
     // Round 1 on an operator that lost only idle spins has the same closed form as the whole.
     const reuse = round === 1 && first !== null && op.quadCoeff.length === original.quadCoeff.length;
     const angles = reuse ? { ...first, coefficients: level1Coefficients(g, first.gamma) }
-      : optimiseLevel1Angles(g, gammaPrev === undefined ? {} : { aroundGamma: gammaPrev });
+      : hurry && gammaPrev !== undefined ? atGamma(g, gammaPrev)
+        : optimiseLevel1Angles(g, gammaPrev === undefined ? {} : { aroundGamma: gammaPrev });
     evaluations += reuse ? 1 : angles.evaluations;
     gammaPrev = angles.gamma;
     const { z, zz } = level1Correlations(angles.coefficients, angles.beta);
-    const hurry = opts.hurry?.() ?? false;
     const room = op.numQubits - opts.stopAt;
-    const want = Math.min(room, hurry ? Math.max(1, Math.ceil(op.numQubits / 4)) : Math.max(1, Math.ceil(opts.batchFraction * op.numQubits)));
-    const picked = pickRelations(g, z, zz, want, !hurry);
+    const want = Math.min(room, overdue ? room : hurry ? Math.max(1, Math.ceil(op.numQubits / 4)) : Math.max(1, Math.ceil(opts.batchFraction * op.numQubits)));
+    const picked = overdue ? forestRelations(g, z, zz) : pickRelations(g, z, zz, want, !hurry);
     for (const r of picked) eliminations.push({ qubit: orig[r.qubit], partner: r.partner >= 0 ? orig[r.partner] : -1, sign: r.sign, correlation: r.correlation, round });
     opts.onRound?.({ round, spins: op.numQubits, gamma: angles.gamma, beta: angles.beta, energy: angles.energy, eliminated: picked.length });
     const red = eliminateSpins(op, picked);
@@ -189,6 +239,13 @@ export function runRqaoa(original: IsingOperator, opts: RqaoaOptions): RqaoaOutc
     spins[e.qubit] = e.partner < 0 ? e.sign : e.sign * spins[e.partner];
   }
   return { spins, energy: isingEnergy(original, spins), firstParams, firstEnergy, rounds: round, eliminations, evaluations, remainder: op.numQubits };
+}
+
+/** One pass at a given γ with its best β (late rounds in a hurry). */
+function atGamma(g: Level1Graph, gamma: number) {
+  const coefficients = level1Coefficients(g, gamma);
+  const { beta, energy } = bestBeta(coefficients);
+  return { gamma, beta, energy, coefficients, evaluations: 1 };
 }
 
 function remap(orig: Int32Array, newIndex: Int32Array, size: number): Int32Array {

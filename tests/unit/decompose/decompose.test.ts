@@ -238,3 +238,25 @@ describe('qaoa-blocks refine setting (honest comparison with classical solvers)'
     expect(r.infeasible === true).toBe(!isBalanced(problem, r.assignment));
   });
 });
+
+describe('qaoa-blocks result: the blocks the run screen shows', () => {
+  test('count, sizes and the block of each depot agree, each block within the block size, the split few-laned', async () => {
+    const problem = maxcut(90, randomGraph(90, 0.06, 12));
+    const r = await solveProblem(problem, 'qaoa-blocks', { blockSize: 10, maxIterations: 10, rounds: 0 }, { seed: 1, timeLimitSeconds: 30 }, { bounds: false });
+    const d = r.decomposition!;
+    expect(d.blockOf).toHaveLength(90);
+    expect(d.sizes).toHaveLength(d.blocks);
+    expect(d.sizes.reduce((a, b) => a + b, 0)).toBe(90);
+    expect(Math.max(...d.sizes)).toBeLessThanOrEqual(10);
+    d.sizes.forEach((size, b) => expect(d.blockOf.filter((x) => x === b)).toHaveLength(size));
+    expect(d.blocks).toBeGreaterThanOrEqual(9);
+    expect(d.largestQubits).toBeLessThanOrEqual(10);
+    expect(['exact', 'rqaoa']).toContain(d.merge);
+    // A partitioner's blocks keep more lanes inside than a random split of the same sizes would
+    // (a random split keeps about Σ s(s−1) / (n(n−1)) of them; common practice).
+    let inside = 0;
+    for (let e = 0; e < problem.network.m; e++) if (d.blockOf[problem.network.laneFrom[e]] === d.blockOf[problem.network.laneTo[e]]) inside++;
+    const randomShare = d.sizes.reduce((a, s) => a + s * (s - 1), 0) / (90 * 89);
+    expect(inside / problem.network.m).toBeGreaterThan(3 * randomShare);
+  });
+});

@@ -5,6 +5,7 @@ import { isingDiagonal } from '../../../shared/engine/statevector/diagonal';
 import { eliminateSpins } from '../../../shared/engine/variational/ising-eliminate';
 import { level1Coefficients, level1Correlations } from '../../../shared/engine/variational/level1';
 import { level1Graph } from '../../../shared/engine/variational/level1-graph';
+import { optimiseLevel1Angles } from '../../../shared/engine/variational/level1-angles';
 import { isingEnergy, runRqaoa } from '../../../shared/engine/variational/rqaoa';
 import { problemOf, randomGraph } from '../encodings/fixtures';
 
@@ -113,5 +114,31 @@ describe('recursive QAOA (Bravyi, Kliesch, Koenig & Tang, PRL 125, 260505 (2020)
     expect(out.energy).toBeCloseTo(isingEnergy(enc.operator, out.spins), 8);
     // Better than the expectation of the first level-1 state it started from.
     expect(out.energy).toBeLessThan(out.firstEnergy);
+  });
+});
+
+describe('late rounds keep to the time limit (solvers/rqaoa.ts hurry at 60 % of it, overdue at 100 %)', () => {
+  // Dense operators densify further as spins merge, so a warm angle search per late round
+  // (≥ 7 closed-form passes) overran a 20 s limit six-fold on G1; in a hurry a round is one pass.
+  test('in a hurry every round after the first costs one closed-form pass and takes a quarter of the spins', () => {
+    const op = encodeMaxCut(problemOf(50, randomGraph(createRng(8), 50, 0.2), { kind: 'maxcut' })).operator;
+    const calm = runRqaoa(op, { stopAt: 12, batchFraction: 0 });
+    const hurried = runRqaoa(op, { stopAt: 12, batchFraction: 0, hurry: () => true });
+    // Round 1 reuses the whole-operator search (1 pass); rounds 2… one pass each.
+    const wholeSearch = optimiseLevel1Angles(level1Graph(op)).evaluations;
+    expect(hurried.evaluations).toBe(wholeSearch + hurried.rounds);
+    expect(hurried.rounds).toBeLessThan(10); // ≈ log_{4/3}(50/12), not 38
+    expect(calm.evaluations).toBeGreaterThan(wholeSearch + 5 * (calm.rounds - 1));
+  });
+
+  test('overdue: one pass settles every spin but one per component (strongest-correlation spanning forest)', () => {
+    const op = encodeMaxCut(problemOf(200, randomGraph(createRng(9), 200, 0.05), { kind: 'maxcut', pins: { '7': 1 } })).operator;
+    const out = runRqaoa(op, { stopAt: 12, batchFraction: 0, hurry: () => true, overdue: () => true });
+    expect(out.rounds).toBe(1); // a quarter per round would need ≈ 10 (200·0.75^r ≤ 12)
+    expect(out.remainder).toBeLessThanOrEqual(12);
+    // Every imposed relation holds in the answer (the forest's relations were re-rooted, never chained).
+    for (const e of out.eliminations) expect(out.spins[e.qubit]).toBe(e.partner < 0 ? e.sign : e.sign * out.spins[e.partner]);
+    expect(out.spins.every((s) => s === 1 || s === -1)).toBe(true);
+    expect(out.energy).toBeCloseTo(isingEnergy(op, out.spins), 9);
   });
 });
