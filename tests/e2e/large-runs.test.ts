@@ -26,7 +26,7 @@ const DEPOTS = 300;
 async function isolate() {
   applyTestEnv();
   process.env.DB_NAME = 'spinyard_e2e_large';
-  process.env.REDIS_URL = 'redis://127.0.0.1:6391/10';
+  process.env.REDIS_URL = 'redis://127.0.0.1:6391/11';
   const { loadConfig } = await import('../../server/config');
   const { createDatabase } = await import('../../server/db');
   const admin = createDatabase({ ...loadConfig(), DB_NAME: 'mysql' });
