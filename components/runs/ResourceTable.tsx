@@ -42,7 +42,7 @@ const styles = StyleSheet.create({
   tableRow: { flexDirection: 'row', borderBottomWidth: StyleSheet.hairlineWidth, borderColor: colors.line, paddingVertical: space.xs },
   // The left padding keeps wrapped header words of neighbouring columns apart.
   cell: { flex: 1, textAlign: 'right', fontVariant: ['tabular-nums'], color: colors.ink, paddingLeft: space.sm },
-  first: { flex: 2, textAlign: 'left' },
+  first: { flex: 2, textAlign: 'left', paddingLeft: 0 },
   head: { fontWeight: '600' },
   cardRow: { paddingVertical: space.xs, gap: 2 },
 });
