@@ -41,7 +41,8 @@ export async function prerenderPages(dir: string, mapsDir?: string): Promise<str
   const shell = fs.readFileSync(shellFile, 'utf8');
   let chromium: typeof import('playwright-core').chromium;
   try {
-    ({ chromium } = await import('playwright-core'));
+    // require, not import(): project code loads one way on Node (tests/unit/server/module-loading.test.ts).
+    ({ chromium } = require('playwright-core') as typeof import('playwright-core'));
   } catch {
     console.log('prerender: playwright-core not installed; pages start from the plain shell');
     return [];
