@@ -18,8 +18,10 @@ import { createGainHeap } from './gain-heap';
  * after `stall` moves without a new best; it then rolls back to the best prefix. (Letting a
  * region overshoot the limit by one depot during a pass, as two-way FM does, was tried and
  * measured worse on G22 and G43.) Gains live in
- * one indexed heap keyed by each depot's best gain; a key gone stale because a region filled up
- * is corrected when the depot reaches the top.
+ * one indexed heap keyed by each depot's best allowed gain; a key gone stale because a region
+ * filled up is corrected when the depot reaches the top. A depot whose favourite region is full
+ * waits on that region's list and is looked at again as soon as a depot leaves it (under a tight
+ * balance most moves are blocked, and the room a move frees is where the next gain lies).
  */
 export interface KwayFmOptions {
   /** Passes at most (a pass that gains nothing ends the refinement). */
@@ -117,20 +119,23 @@ export function kwayFmRefine(g: PartGraph, part: Int8Array, k: number, limit: nu
   const stall = Math.max(opts.stallMin, Math.round(opts.stallShare * n));
   // A tiny random tie-break per depot and pass, so equal gains are not always taken in index order.
   const jitter = new Float64Array(n);
+  const waiting: number[][] = Array.from({ length: k }, () => []);
 
   /** Best allowed move of v: sets target[v], returns the gain (−Infinity when none fits). */
   const bestMove = (v: number): number => {
     const own = part[v];
     ties.gather(g, part, v);
     const inside = ties.conn[own];
-    let best = -Infinity, bt = -1;
+    let best = -Infinity, bt = -1, favourite = -1, favouriteTie = -Infinity;
     for (let t = 0; t < ties.count(); t++) {
       const r = ties.touched[t];
+      if (r !== own && ties.conn[r] > favouriteTie) { favouriteTie = ties.conn[r]; favourite = r; }
       if (r === own || load[r] + vw[v] > limit) continue;
       // Among equal ties prefer the lighter region (room for later moves).
       const score = ties.conn[r] - 1e-9 * load[r];
       if (score > best) { best = score; bt = r; }
     }
+    if (favourite >= 0 && load[favourite] + vw[v] > limit && (bt < 0 || ties.conn[bt] < favouriteTie)) waiting[favourite].push(v);
     if (bt < 0) return -Infinity;
     target[v] = bt;
     return ties.conn[bt] - inside;
@@ -144,6 +149,7 @@ export function kwayFmRefine(g: PartGraph, part: Int8Array, k: number, limit: nu
   for (let pass = 0; pass < opts.maxPasses; pass++) {
     heap.clear();
     locked.fill(0);
+    for (let r = 0; r < k; r++) waiting[r].length = 0;
     for (let v = 0; v < n; v++) {
       jitter[v] = rng.next() * 1e-7;
       if (pin[v] >= 0 || !isBoundary(v)) continue;
@@ -177,6 +183,18 @@ export function kwayFmRefine(g: PartGraph, part: Int8Array, k: number, limit: nu
         if (gu === -Infinity) heap.remove(u);
         else if (heap.has(u)) heap.update(u, gu + jitter[u]);
         else heap.insert(u, gu + jitter[u]);
+      }
+      // `from` has room now: the depots that wanted it are looked at again.
+      if (waiting[from].length > 0) {
+        const list = waiting[from];
+        waiting[from] = [];
+        for (const u of list) {
+          if (locked[u] || pin[u] >= 0 || part[u] === from) continue;
+          const gu = bestMove(u);
+          if (gu === -Infinity) heap.remove(u);
+          else if (heap.has(u)) heap.update(u, gu + jitter[u]);
+          else heap.insert(u, gu + jitter[u]);
+        }
       }
     }
     for (let t = len - 1; t >= bestLen; t--) {
