@@ -4,7 +4,7 @@
  * A worker killed mid-job loses nothing: its queue lock lapses, another worker's stalled-job
  * check puts the job back, and the guarded result write keeps the outcome to exactly one.
  */
-import { Worker } from 'bullmq';
+import { Worker, type Job } from 'bullmq';
 import { Redis } from 'ioredis';
 import { loadConfig, ConfigError } from './config';
 import { createDeps, closeDeps, type Deps } from './deps';
@@ -13,6 +13,7 @@ import { loadRunsConfig, type RunsConfig } from './services/queue-config';
 import { cancelChannel, closeSolveQueue, reconcileQueue, type SolveJobData } from './services/queue';
 import { CANCEL_GRACE_MS, createJobProcessor, markEntryFailed, workerName, type ProcessorEnv } from './workers/process-job';
 import { createThreadSlot } from './workers/thread-slot';
+import { SPREAD_CHILD, type ChildData, type ParentData } from './workers/spread-job';
 import { billingRunHooks } from './services/billing-run-hooks';
 import { startQueueReconciler } from './services/queue-reconciler';
 
@@ -57,14 +58,16 @@ export async function startWorker(): Promise<StartedWorker> {
   const subscriber = new Redis(config.REDIS_URL, { maxRetriesPerRequest: null });
   subscriber.on('error', () => {});
   subscriber.on('message', (_channel: string, message: string) => {
-    env.running.get(Number(message))?.cancel(CANCEL_GRACE_MS);
+    for (const handle of env.running.get(Number(message)) ?? []) handle.cancel(CANCEL_GRACE_MS);
   });
   await subscriber.subscribe(cancelChannel(rc.RUN_QUEUE_NAME));
 
   const connection = new Redis(config.REDIS_URL, { maxRetriesPerRequest: null });
   connection.on('error', () => {});
-  const worker = new Worker<SolveJobData>(rc.RUN_QUEUE_NAME, processor, {
+  const worker = new Worker<ParentData | ChildData>(rc.RUN_QUEUE_NAME, processor, {
     connection,
+    // Recorded on each entry it takes (processedBy): which worker ran which child of a spread solve.
+    name: env.workerName,
     concurrency: rc.WORKER_CONCURRENCY,
     lockDuration: rc.RUN_LOCK_MS,
     stalledInterval: rc.RUN_STALLED_INTERVAL_MS,
@@ -73,10 +76,18 @@ export async function startWorker(): Promise<StartedWorker> {
   worker.on('error', (err) => deps.logger.warn({ err }, 'solve worker: queue error'));
   worker.on('failed', (entry, err) => {
     if (!entry) return;
+    if (entry.name === SPREAD_CHILD) {
+      // A batch of a spread solve failed for good: its parent entry fails with it (failParentOnFailure); record that on the job row.
+      const child = entry as unknown as Job<ChildData>;
+      const final = child.attemptsMade >= (child.opts.attempts ?? 1) || /stalled/i.test(err.message);
+      deps.logger.warn({ err: err.message, job: child.data.parent.jobId, child: child.id, final }, 'solve worker: spread child entry failed');
+      if (final) void markEntryFailed(deps, child.data.parent, "part of the solve spread over the workers could not be processed; the details are in the solve worker's log").catch(() => {});
+      return;
+    }
     const final = entry.attemptsMade >= (entry.opts.attempts ?? 1) || /stalled/i.test(err.message);
     deps.logger.warn({ err: err.message, job: entry.id, final }, 'solve worker: queue entry failed');
     // The queue error's text (database messages, paths) stays in the log above; members see a sentence.
-    if (final) void markEntryFailed(deps, entry.data, /stalled/i.test(err.message) ? 'the job was interrupted too many times (its worker kept stopping); retry it' : "the job could not be processed; the details are in the solve worker's log").catch(() => {});
+    if (final) void markEntryFailed(deps, entry.data as ParentData, /stalled/i.test(err.message) ? 'the job was interrupted too many times (its worker kept stopping); retry it' : "the job could not be processed; the details are in the solve worker's log").catch(() => {});
   });
   await worker.waitUntilReady();
   await reconcileQueue(deps).catch((err) => deps.logger.warn({ err }, 'solve worker: reconcile failed'));

@@ -33,6 +33,14 @@ const RunsConfigSchema = z.object({
    * At most 30 s, so a lost entry waits at most that long.
    */
   RUN_RECONCILE_MS: z.coerce.number().int().min(200).max(30_000).default(15_000),
+  /**
+   * Staged solves (qaoa-blocks): a stage with at least this many independent tasks (blocks) is
+   * spread over all workers as child entries on the queue; smaller stages run in the job's own
+   * thread. 0 = never spread.
+   */
+  RUN_SPREAD_MIN_TASKS: z.coerce.number().int().min(0).max(100_000).default(16),
+  /** Most child entries per spread stage (tasks are batched to fit; fewer, larger batches cost less queue traffic). */
+  RUN_SPREAD_CHILDREN: z.coerce.number().int().min(1).max(1000).default(24),
   /** Default per-solver time limit when a run does not give one. */
   RUN_DEFAULT_SECONDS: z.coerce.number().positive().max(3600).default(10),
 });

@@ -128,6 +128,23 @@ export async function removeEntries(deps: Pick<Deps, 'redis'>, entries: { jobId:
   }
 }
 
+/**
+ * Cancel the children of spread solves (server/workers/spread-job.ts): child entries not started
+ * leave the queue (when the last one goes, BullMQ hands the parent back to the workers, which
+ * store its best answer as cancelled); running children stop on the job's cancel flag.
+ */
+export async function removeWaitingChildren(deps: Pick<Deps, 'redis'>, entries: { jobId: number; generation: number }[]): Promise<void> {
+  const { queue } = solveQueue(deps);
+  for (const e of entries) {
+    try {
+      const job = await queue.getJob(queueEntryId(e.jobId, e.generation));
+      if (job) await job.removeUnprocessedChildren();
+    } catch {
+      // a child being taken right now: it sees the cancel flag and answers at once
+    }
+  }
+}
+
 const LIVE_STATES = new Set(['waiting', 'active', 'delayed', 'prioritized', 'waiting-children']);
 
 /**

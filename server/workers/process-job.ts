@@ -11,7 +11,14 @@ import { getVersionDocument } from '../services/networks';
 import { cancelKey, optimumKey, runChannel, type RunEvent, type SolveJobData } from '../services/queue';
 import type { RunsConfig } from '../services/queue-config';
 import { refreshRunStatus } from '../services/runs-status';
-import type { SlotRun, ThreadSlot } from './thread-slot';
+import type { RunResult } from '../../shared/engine/solvers/orchestrate';
+import { runsInStages } from '../../shared/engine/solvers/orchestrate';
+import { INTERNAL_ERROR, type StageRequest } from './solve-task';
+import type { SlotOutcome, ThreadSlot } from './thread-slot';
+import {
+  processSpreadChild, spreadStage, track, waitOrCollect, SPREAD_CHILD,
+  type ChildData, type ChildEnv, type ChildValue, type ParentData, type RunningJobs, type SpreadData,
+} from './spread-job';
 
 /**
  * The queue processor of a worker process: claim the job row (attempt + 1, guarded), run the
@@ -24,8 +31,8 @@ export interface ProcessorEnv {
   config: RunsConfig;
   /** Free solve threads (one per concurrency slot). */
   slots: ThreadSlot[];
-  /** Running jobs of this process by job id (the cancel subscriber looks them up). */
-  running: Map<number, SlotRun>;
+  /** Running solves of this process by job id, children of spread solves included (the cancel subscriber looks them up). */
+  running: RunningJobs;
   workerName: string;
 }
 
@@ -61,17 +68,24 @@ export function createJobProcessor(env: ProcessorEnv) {
     return changed === 1;
   };
 
-  return async function processSolveJob(entry: Job<SolveJobData>): Promise<ProcessOutcome> {
-    const { jobId, generation } = entry.data;
+  const childEnv = (): ChildEnv => ({ deps, config, slots: env.slots, running: env.running, workerName: env.workerName, cancelGraceMs: CANCEL_GRACE_MS, hardLimitMs: hardLimitMs(3600, config.RUN_GRACE_SECONDS) });
+
+  return async function processSolveJob(entry: Job<ParentData | ChildData>, token?: string): Promise<ProcessOutcome | ChildValue> {
+    if (entry.name === SPREAD_CHILD) return processSpreadChild(childEnv(), entry as Job<ChildData>);
+    const parent = entry as Job<ParentData>;
+    const { jobId, generation } = parent.data;
     const found = await RunJob.findByPk(jobId);
     if (!found) return 'stale';
     const row = found.get({ plain: true }) as RunJobRow;
     if (row.generation !== generation) return 'stale';
     if (row.status !== 'queued' && row.status !== 'running') return 'finished-elsewhere';
     const run = (await Run.findByPk(row.runId))?.get({ plain: true }) as RunRow | undefined;
+    // A spread solve coming back from its children: same claim, next stage (cancelled or not: it stores its best answer).
+    const resumed = parent.data.spread && row.status === 'running' && row.attempt === parent.data.spread.attempt ? parent.data.spread : undefined;
+    if (parent.data.spread && !resumed) return 'claimed-elsewhere';
 
     // Cancelled (or deleted) before this worker got to it: record that without running.
-    if (!run || run.deletedAt || (await deps.redis.exists(cancelKey(config.RUN_QUEUE_NAME, jobId, generation))) === 1) {
+    if (!run || run.deletedAt || (!resumed && (await deps.redis.exists(cancelKey(config.RUN_QUEUE_NAME, jobId, generation))) === 1)) {
       const [changed] = await RunJob.update(
         { status: 'cancelled', finishedAt: new Date(), error: run && !run.deletedAt ? 'cancelled before it started' : 'the run was deleted' },
         { where: { id: jobId, generation, status: ['queued', 'running'] } },
@@ -81,15 +95,21 @@ export function createJobProcessor(env: ProcessorEnv) {
       return 'cancelled';
     }
 
-    const attempt = row.attempt + 1;
-    const [claimed] = await RunJob.update(
-      { status: 'running', attempt, startedAt: new Date(), worker: env.workerName, progress: 0, live: null, error: null },
-      { where: { id: jobId, generation, attempt: row.attempt, status: ['queued', 'running'] } },
-    );
-    if (claimed !== 1) return 'claimed-elsewhere';
-    deps.logger.info({ jobId, attempt, entry: entry.id, worker: env.workerName }, 'solve job claimed');
-    await refreshRunStatus(deps, run.id);
-    await publish(deps.redis, { type: 'status', runId: run.id, jobId, status: 'running' });
+    let attempt: number;
+    if (resumed) {
+      attempt = resumed.attempt;
+      deps.logger.info({ jobId, attempt, stage: resumed.stage, entry: parent.id, worker: env.workerName }, 'spread solve resumed');
+    } else {
+      attempt = row.attempt + 1;
+      const [claimed] = await RunJob.update(
+        { status: 'running', attempt, startedAt: new Date(), worker: env.workerName, progress: 0, live: null, error: null },
+        { where: { id: jobId, generation, attempt: row.attempt, status: ['queued', 'running'] } },
+      );
+      if (claimed !== 1) return 'claimed-elsewhere';
+      deps.logger.info({ jobId, attempt, entry: parent.id, worker: env.workerName }, 'solve job claimed');
+      await refreshRunStatus(deps, run.id);
+      await publish(deps.redis, { type: 'status', runId: run.id, jobId, status: 'running' });
+    }
 
     const slot = env.slots.pop();
     if (!slot) throw new Error('no free solve thread (concurrency and slots disagree)');
@@ -109,33 +129,57 @@ export function createJobProcessor(env: ProcessorEnv) {
           pendingWrite = RunJob.update({ progress: Math.min(1, Math.max(0, p.fraction)), live: JSON.stringify(live) }, { where: { id: jobId, status: 'running', attempt } }).catch(() => {});
         }
       };
-      const handle = slot.run(
-        {
-          document,
-          problem: JSON.parse(run.problem) as ProblemSpec,
-          solver: row.solver,
-          settings: JSON.parse(row.settings) as Record<string, unknown>,
-          seed: run.seed,
-          timeLimitSeconds: run.timeLimitSeconds,
-        },
-        { hardLimitMs: hardLimitMs(run.timeLimitSeconds, config.RUN_GRACE_SECONDS), onProgress },
-      );
-      env.running.set(jobId, handle);
-      // Another job of this run may have proven an optimum (now or while this one runs).
-      const readOptimum = () => deps.redis.get(optimumKey(config.RUN_QUEUE_NAME, run.id)).then((v) => { if (v !== null && Number.isFinite(Number(v))) handle.setKnownOptimum(Number(v)); }, () => {});
-      void readOptimum();
-      // The pub/sub message normally arrives first; this poll covers a missed message.
-      const poll = setInterval(() => {
-        deps.redis.exists(cancelKey(config.RUN_QUEUE_NAME, jobId, generation)).then((n) => { if (n === 1) handle.cancel(CANCEL_GRACE_MS); }, () => {});
+      // Staged solvers run stage by stage; large stages are spread over the queue (spread-job.ts).
+      const startedAt = resumed?.startedAt ?? Date.now();
+      const minSpread = config.RUN_SPREAD_MIN_TASKS > 0 ? config.RUN_SPREAD_MIN_TASKS : Number.MAX_SAFE_INTEGER;
+      let spread = resumed;
+      let stage: StageRequest | undefined;
+      if (resumed) {
+        // Children still pending (this parent came back through the stalled check): wait again.
+        const collected = await waitOrCollect(parent, token, resumed);
+        spread = collected.spread;
+        stage = { kind: 'resume', startedAt, minSpread, state: resumed.state, answers: collected.answers };
+      }      else if (runsInStages(row.solver)) stage = { kind: 'start', startedAt, minSpread };
+      const runInThread = async (): Promise<SlotOutcome> => {
+        const handle = slot.run(
+          {
+            stage,
+            document,
+            problem: JSON.parse(run.problem) as ProblemSpec,
+            solver: row.solver,
+            settings: JSON.parse(row.settings) as Record<string, unknown>,
+            seed: run.seed,
+            timeLimitSeconds: run.timeLimitSeconds,
+          },
+          { hardLimitMs: hardLimitMs(Math.max(0, run.timeLimitSeconds - (Date.now() - startedAt) / 1000), config.RUN_GRACE_SECONDS), onProgress },
+        );
+        const untrack = track(env.running, jobId, handle);
+        // Another job of this run may have proven an optimum (now or while this one runs).
+        const readOptimum = () => deps.redis.get(optimumKey(config.RUN_QUEUE_NAME, run.id)).then((v) => { if (v !== null && Number.isFinite(Number(v))) handle.setKnownOptimum(Number(v)); }, () => {});
         void readOptimum();
-      }, 500);
-      const outcome = await handle.outcome.finally(() => {
-        clearInterval(poll);
-        env.running.delete(jobId);
-      });
+        // The pub/sub message normally arrives first; this poll covers a missed message.
+        const poll = setInterval(() => {
+          deps.redis.exists(cancelKey(config.RUN_QUEUE_NAME, jobId, generation)).then((n) => { if (n === 1) handle.cancel(CANCEL_GRACE_MS); }, () => {});
+          void readOptimum();
+        }, 500);
+        return handle.outcome.finally(() => {
+          clearInterval(poll);
+          untrack();
+        });
+      };
+      let outcome = await runInThread();
+      while (outcome.kind === 'spread') {
+        // Leaves this worker (WaitingChildrenError) until the children are done, unless they already are.
+        const next = await spreadStage({ deps, config }, parent, token, {
+          attempt, startedAt, state: outcome.state, tasks: outcome.tasks, progress: outcome.progress, solver: row.solver, timeLimitSeconds: run.timeLimitSeconds,
+        });
+        spread = next.spread;
+        stage = { kind: 'resume', startedAt, minSpread, state: outcome.state, answers: next.answers };
+        outcome = await runInThread();
+      }
       await pendingWrite;
 
-      if (outcome.kind !== 'done' && outcome.detail) {
+      if ((outcome.kind === 'error' || outcome.kind === 'killed') && outcome.detail) {
         deps.logger.error({ jobId, attempt, solver: row.solver, detail: outcome.detail }, 'solve job failed inside the solver');
       }
       let status: JobStatus;
@@ -146,13 +190,17 @@ export function createJobProcessor(env: ProcessorEnv) {
       }
       if (outcome.kind === 'done') {
         status = outcome.cancelled ? 'cancelled' : 'succeeded';
-        fields = { status, result: JSON.stringify(outcome.result), progress: 1, error: outcome.cancelled ? 'cancelled; the best answer found until then is kept' : null };
+        const result = spread ? withSpreadReport(outcome.result, spread) : outcome.result;
+        fields = { status, result: JSON.stringify(result), progress: 1, error: outcome.cancelled ? 'cancelled; the best answer found until then is kept' : null };
       } else if (outcome.kind === 'error') {
         status = 'failed';
         fields = { status, error: outcome.message };
-      } else {
+      } else if (outcome.kind === 'killed') {
         status = outcome.reason === 'cancel' ? 'cancelled' : 'failed';
         fields = { status, error: outcome.message };
+      } else {
+        status = 'failed';
+        fields = { status, error: INTERNAL_ERROR };
       }
       const stored = await finishRow(jobId, attempt, fields);
       await refreshRunStatus(deps, run.id);
@@ -162,6 +210,13 @@ export function createJobProcessor(env: ProcessorEnv) {
       env.slots.push(slot);
     }
   };
+}
+
+/** Which workers answered a spread solve's block tasks (stored with the result; the run view shows the note). */
+function withSpreadReport(result: RunResult, spread: SpreadData): RunResult & { spread: { stages: number; batches: number; workers: Record<string, number> } } {
+  const names = Object.keys(spread.workers);
+  const note = `block solves spread over ${names.length} worker process(es) in ${spread.stage + 1} stage(s), ${spread.created} batch(es): ${names.map((w) => `${w} answered ${spread.workers[w]}`).join(', ')}`;
+  return { ...result, notes: [...result.notes, note], spread: { stages: spread.stage + 1, batches: spread.created, workers: spread.workers } };
 }
 
 /**

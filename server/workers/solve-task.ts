@@ -9,8 +9,20 @@ import type { RunResult } from '../../shared/engine/solvers/orchestrate';
  */
 export const INTERNAL_ERROR = "internal error in the solver; the details are in the solve worker's log";
 
+/**
+ * Staged solvers (qaoa-blocks) in a solve thread: `start` / `resume` run stages here while a
+ * stage has fewer than `minSpread` tasks (or the run is stopping) and hand back a larger stage's
+ * tasks to spread over the queue (spread-job.ts); `tasks` runs a batch of one stage's tasks.
+ */
+export type StageRequest =
+  | { kind: 'start'; startedAt: number; minSpread: number }
+  | { kind: 'resume'; startedAt: number; minSpread: number; state: unknown; answers: unknown[] }
+  | { kind: 'tasks'; tasks: unknown[]; deadline: number };
+
 /** What the worker's main thread sends a solve thread (plain data, structured-cloned). */
 export interface SolveTask {
+  /** Absent: the whole solve here (solveProblem). A `tasks` request reads neither document nor problem. */
+  stage?: StageRequest;
   document: NetworkDocument;
   problem: ProblemSpec;
   solver: string;
@@ -32,5 +44,9 @@ export type SolveThreadMessage =
   | { type: 'started' }
   | { type: 'progress'; progress: SolveProgress }
   | { type: 'done'; result: RunResult; cancelled: boolean }
+  /** A staged solve's next stage, to spread: its tasks and the state to resume from. */
+  | { type: 'spread'; state: unknown; tasks: unknown[]; progress: { from: number; to: number } }
+  /** Answers to a `tasks` request, in its order. */
+  | { type: 'answers'; answers: unknown[] }
   /** `message` is shown to every member of the organisation; `detail` (stack text) goes to the worker's log only. */
   | { type: 'error'; message: string; userError: boolean; detail?: string };

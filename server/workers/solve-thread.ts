@@ -6,7 +6,7 @@
 import { parentPort } from 'node:worker_threads';
 import { buildCompactNetwork } from '../../shared/engine/network/build';
 import { bindProblem } from '../../shared/engine/problem/bind';
-import { solveProblem } from '../../shared/engine/solvers/orchestrate';
+import { resumeStaged, runStagedTask, solveProblem, startStaged, type StagedRunStep } from '../../shared/engine/solvers/orchestrate';
 import type { SolveProgress } from '../../shared/engine/solvers/types';
 import { simKernelsBackend } from '../lib/sim-wasm';
 import { loadRunsConfig } from '../services/queue-config';
@@ -33,10 +33,43 @@ async function handle(task: SolveTask): Promise<void> {
     post({ type: 'progress', progress: { ...progress } });
   };
   try {
+    const stage = task.stage;
+    const stateKernels = simKernelsBackend();
+    if (stage?.kind === 'tasks') {
+      const shouldStop = () => cancel.cancelled || Date.now() >= stage.deadline;
+      const answers = stage.tasks.map((t, i) => {
+        const answer = runStagedTask(task.solver, t, { shouldStop, stateKernels });
+        onProgress({ fraction: (i + 1) / stage.tasks.length });
+        return answer;
+      });
+      post({ type: 'answers', answers });
+      return;
+    }
     const network = buildCompactNetwork(task.document);
     const problem = bindProblem(network, task.problem);
-    const result = await solveProblem(problem, task.solver, task.settings, { seed: task.seed, timeLimitSeconds: task.timeLimitSeconds, cancel, onProgress, knownOptimum, stateKernels: simKernelsBackend(simThreads) });
-    post({ type: 'done', result, cancelled: cancel.cancelled });
+    const ctx = { seed: task.seed, timeLimitSeconds: task.timeLimitSeconds, cancel, onProgress, knownOptimum, stateKernels };
+    if (!stage) {
+      const result = await solveProblem(problem, task.solver, task.settings, ctx);
+      post({ type: 'done', result, cancelled: cancel.cancelled });
+      return;
+    }
+    const staged = { ...ctx, startedAt: stage.startedAt };
+    const shouldStop = () => cancel.cancelled || Date.now() >= stage.startedAt + task.timeLimitSeconds * 1000;
+    let step: StagedRunStep = stage.kind === 'start'
+      ? await startStaged(problem, task.solver, task.settings, staged)
+      : await resumeStaged(problem, task.solver, task.settings, stage.state, stage.answers, staged);
+    // Small stages (and every stage once the run is stopping) run here: spreading them costs more than it saves.
+    while (step.kind === 'spread' && (step.tasks.length < stage.minSpread || shouldStop())) {
+      const { tasks, progress } = step;
+      const answers = tasks.map((t, i) => {
+        const answer = runStagedTask(task.solver, t, { shouldStop, stateKernels });
+        onProgress({ fraction: progress.from + ((progress.to - progress.from) * (i + 1)) / tasks.length });
+        return answer;
+      });
+      step = await resumeStaged(problem, task.solver, task.settings, step.state, answers, staged);
+    }
+    if (step.kind === 'spread') post({ type: 'spread', state: step.state, tasks: step.tasks, progress: step.progress });
+    else post({ type: 'done', result: step.result, cancelled: cancel.cancelled });
   } catch (e) {
     const err = e as Error;
     const userError = USER_ERRORS.has(err?.name);

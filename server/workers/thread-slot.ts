@@ -11,6 +11,8 @@ import type { SolveTask, SolveThreadMessage } from './solve-task';
  */
 export type SlotOutcome =
   | { kind: 'done'; result: RunResult; cancelled: boolean }
+  | { kind: 'spread'; state: unknown; tasks: unknown[]; progress: { from: number; to: number } }
+  | { kind: 'answers'; answers: unknown[] }
   | { kind: 'error'; message: string; userError: boolean; detail?: string }
   | { kind: 'killed'; reason: 'cancel' | 'timeout' | 'crash'; message: string; detail?: string };
 // `message` is what members see (no paths, no stack); `detail` is for the worker's log.
@@ -72,6 +74,8 @@ export function createThreadSlot(entry: string = ENTRY): ThreadSlot {
           hard = overdue(opts.hardLimitMs, `stopped after ${Math.round(opts.hardLimitMs / 1000)} s: the solver went past its time limit and grace period`);
         } else if (msg.type === 'progress') opts.onProgress(msg.progress);
         else if (msg.type === 'done') finish({ kind: 'done', result: msg.result, cancelled: msg.cancelled });
+        else if (msg.type === 'spread') finish({ kind: 'spread', state: msg.state, tasks: msg.tasks, progress: msg.progress });
+        else if (msg.type === 'answers') finish({ kind: 'answers', answers: msg.answers });
         else finish({ kind: 'error', message: msg.message, userError: msg.userError, detail: msg.detail });
       };
       const onError = (err: Error) => {

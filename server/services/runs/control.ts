@@ -1,7 +1,7 @@
 import { conflict } from '../../lib/http-error';
 import type { RunView } from '../../../shared/schemas/runs';
 import type { RunJobRow } from '../../models/run-job';
-import { assertQueueUp, enqueueJobs, removeEntries, requestCancel, type SolveJobData } from '../queue';
+import { assertQueueUp, enqueueJobs, removeEntries, removeWaitingChildren, requestCancel, type SolveJobData } from '../queue';
 import { refreshRunStatus } from '../runs-status';
 import { findRun, getRun, type RunServiceDeps } from './read';
 
@@ -10,7 +10,8 @@ import { findRun, getRun, type RunServiceDeps } from './read';
 /**
  * Cancel: queued jobs become cancelled at once (and leave the queue); running ones get the
  * cancel flag — their worker stops the solver within about a second and stores the best answer
- * found so far (status cancelled).
+ * found so far (status cancelled). A solve spread over the workers also loses its children not
+ * yet started; its running children stop on the same flag.
  */
 export async function cancelRun(deps: RunServiceDeps, organisationId: number, id: number): Promise<RunView> {
   await findRun(deps, organisationId, id);
@@ -19,6 +20,7 @@ export async function cancelRun(deps: RunServiceDeps, organisationId: number, id
   if (jobs.length === 0) throw conflict('Nothing to cancel: every job of this run has finished.');
   // Flag first, so a worker that is claiming a queued job right now still sees it.
   await requestCancel(deps, jobs);
+  await removeWaitingChildren(deps, jobs.filter((j) => j.status === 'running').map((j) => ({ jobId: j.id, generation: j.generation })));
   const queued = jobs.filter((j) => j.status === 'queued');
   if (queued.length > 0) {
     await deps.models.RunJob.update(
@@ -67,6 +69,7 @@ export async function deleteRun(deps: RunServiceDeps, organisationId: number, id
   if (live.length > 0) {
     await assertQueueUp(deps.redis);
     await requestCancel(deps, live);
+    await removeWaitingChildren(deps, live.filter((j) => j.status === 'running').map((j) => ({ jobId: j.id, generation: j.generation })));
     await deps.models.RunJob.update({ status: 'cancelled', finishedAt: new Date(), error: 'the run was deleted' }, { where: { id: live.map((j) => j.id), status: 'queued' } });
     await removeEntries(deps, live.filter((j) => j.status === 'queued').map((j) => ({ jobId: j.id, generation: j.generation })));
   }
