@@ -34,7 +34,7 @@ async function handle(task: SolveTask): Promise<void> {
   };
   try {
     const stage = task.stage;
-    const stateKernels = simKernelsBackend();
+    const stateKernels = simKernelsBackend(simThreads);
     if (stage?.kind === 'tasks') {
       const shouldStop = () => cancel.cancelled || Date.now() >= stage.deadline;
       const answers = stage.tasks.map((t, i) => {

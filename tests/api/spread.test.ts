@@ -12,7 +12,7 @@ import {
   applyRunsEnv, createTestApp, networkBody, orgWithTokens, randomEdges, saveNetwork, startWorkerChild, waitFor, type Edge, type TestApp, type WorkerChild,
 } from './runs-support';
 
-const SMTP_PORT = 3189;
+const SMTP_PORT = 3186; // ports 3180–3189 belong to the solve-service suites
 // Stages of ≥ 4 blocks are spread, one block per child (at most 12 children per stage).
 applyRunsEnv({ smtpPort: SMTP_PORT, queue: 'spread-test', extra: { RUN_LOCK_MS: '4000', RUN_SPREAD_MIN_TASKS: '4', RUN_SPREAD_CHILDREN: '12' } });
 

@@ -1,12 +1,12 @@
 /**
  * `npm run bench`: runs every benchmark as its own process — simulator (sim.ts), classical
- * (classical.ts), partitioning against METIS (partition.ts), solve service (service.ts), load (load.ts), large variational (large-variational.ts), web (web.ts) — one after another (they would
+ * (classical.ts), partitioning against METIS (partition.ts), solve service (service.ts), load (load.ts), large variational (large-variational.ts), one run spread over workers (spread.ts), web (web.ts) — one after another (they would
  * disturb each other's timings on 2 cores), reads the markdown each prints, and prints ONE table
  * of ratios (metric, measured, target, ratio = measured / target, met?). Each benchmark rewrites
  * its own section of docs/benchmarks.md; this script writes the `## Summary` section at the top
  * (machine, date, what ran) and leaves the other sections alone.
  *
- *   npx tsx tests/bench/all.ts [--quick] [--full load,…] [--only sim,classical,service,load,web] [--no-write]
+ *   npx tsx tests/bench/all.ts [--quick] [--full load,…] [--only sim,classical,partition,service,load,variational,spread,web] [--no-write]
  * --quick passes each benchmark its short options (and they then leave their sections alone);
  * --full names benchmarks that run with their full options even under --quick; --reuse names
  * benchmarks that are not run again: their ratios are read from their current section of
@@ -29,7 +29,7 @@ const full = fullAt >= 0 ? args[fullAt + 1].split(',') : [];
 const shortFor = (b: { name: string }) => quick && !full.includes(b.name);
 const reuseAt = args.indexOf('--reuse');
 const reuse = reuseAt >= 0 ? args[reuseAt + 1].split(',') : [];
-const SECTION: Record<string, string> = { sim: '## Simulator', classical: '## Classical', partition: '## Partitioning vs METIS', service: '## Service', load: '## Load', variational: '## Large variational', web: '## Web' };
+const SECTION: Record<string, string> = { sim: '## Simulator', classical: '## Classical', partition: '## Partitioning vs METIS', service: '## Service', load: '## Load', variational: '## Large variational', spread: '## Spread', web: '## Web' };
 
 /** The current section of docs/benchmarks.md for one benchmark, and the date its run wrote. */
 function sectionOf(name: string): { text: string; written: string } | null {
@@ -51,6 +51,7 @@ const BENCHES: Bench[] = [
   { name: 'service', file: 'tests/bench/service.ts', args: [], quickArgs: ['--runs', '8', '--paced', '5', '--cancels', '2', '--no-write'] },
   { name: 'load', file: 'tests/bench/load.ts', args: [], quickArgs: ['--quick'] },
   { name: 'variational', file: 'tests/bench/large-variational.ts', args: [], quickArgs: ['--limit', '20', '--instances', 'G11', '--batch-study', '', '--no-write'] },
+  { name: 'spread', file: 'tests/bench/spread.ts', args: [], quickArgs: ['--max-iterations', '20', '--no-write'] },
   { name: 'web', file: 'tests/bench/web.ts', args: [], quickArgs: ['--quick'] },
 ];
 
@@ -151,6 +152,10 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
     if (m) rows.push({ bench, metric: '2-worker / 1-worker throughput', measured: Number(m[1]), target: 1.5, better: 'higher', unit: '×' });
     const c = /Cancel latency[^\n]*median: \*\*([\d.]+) ms\*\*/.exec(out);
     if (c) rows.push({ bench, metric: 'cancel → cancelled, median of long runs', measured: Number(c[1]), target: 1000, better: 'lower', unit: 'ms' });
+  }
+  if (bench === 'spread') {
+    const m = /wall-time ratio: \*\*([\d.]+)\*\*/.exec(out);
+    if (m) rows.push({ bench, metric: 'one 2,000-depot qaoa-blocks run, 1-worker / 2-worker wall time (shared machine: load beside it)', measured: Number(m[1]), target: 1.6, better: 'higher', unit: '×' });
   }
   if (bench === 'load') {
     const m = /^LOAD-METRICS (.*)$/m.exec(out);

@@ -11,6 +11,8 @@
  *     (variational/rqaoa.ts), which needs no wide circuit at any number of blocks;
  *  4. improve: re-solve each block by QAOA with its surroundings fixed (our addition), and
  *     refine with 1-flip local search.
+ * The steps run as stages in block-stages.ts (the in-process solve and the solve worker, which
+ * spreads the block solves over the job queue, share them); this file keeps their helpers.
  * A heuristic: no optimality guarantee (the caller shows it next to the classical best and the bound).
  */
 import { compactFromEdges } from '../network/build';
