@@ -140,6 +140,7 @@ export function createJobProcessor(env: ProcessorEnv) {
         spread = collected.spread;
         stage = { kind: 'resume', startedAt, minSpread, state: resumed.state, answers: collected.answers };
       }      else if (runsInStages(row.solver)) stage = { kind: 'start', startedAt, minSpread };
+      const cancelKeySet = () => deps.redis.exists(cancelKey(config.RUN_QUEUE_NAME, jobId, generation)).then((n) => n === 1, () => false);
       const runInThread = async (): Promise<SlotOutcome> => {
         const handle = slot.run(
           {
@@ -154,12 +155,15 @@ export function createJobProcessor(env: ProcessorEnv) {
           { hardLimitMs: hardLimitMs(Math.max(0, run.timeLimitSeconds - (Date.now() - startedAt) / 1000), config.RUN_GRACE_SECONDS), onProgress },
         );
         const untrack = track(env.running, jobId, handle);
+        const cancelled = cancelKeySet;
+        // A spread solve resumed after a cancel: stop at once (its remaining stages then run as no-ops).
+        if (await cancelled()) handle.cancel(CANCEL_GRACE_MS);
         // Another job of this run may have proven an optimum (now or while this one runs).
         const readOptimum = () => deps.redis.get(optimumKey(config.RUN_QUEUE_NAME, run.id)).then((v) => { if (v !== null && Number.isFinite(Number(v))) handle.setKnownOptimum(Number(v)); }, () => {});
         void readOptimum();
         // The pub/sub message normally arrives first; this poll covers a missed message.
         const poll = setInterval(() => {
-          deps.redis.exists(cancelKey(config.RUN_QUEUE_NAME, jobId, generation)).then((n) => { if (n === 1) handle.cancel(CANCEL_GRACE_MS); }, () => {});
+          void cancelled().then((yes) => { if (yes) handle.cancel(CANCEL_GRACE_MS); });
           void readOptimum();
         }, 500);
         return handle.outcome.finally(() => {
@@ -169,12 +173,17 @@ export function createJobProcessor(env: ProcessorEnv) {
       };
       let outcome = await runInThread();
       while (outcome.kind === 'spread') {
-        // Leaves this worker (WaitingChildrenError) until the children are done, unless they already are.
-        const next = await spreadStage({ deps, config }, parent, token, {
-          attempt, startedAt, state: outcome.state, tasks: outcome.tasks, progress: outcome.progress, solver: row.solver, timeLimitSeconds: run.timeLimitSeconds,
-        });
-        spread = next.spread;
-        stage = { kind: 'resume', startedAt, minSpread, state: outcome.state, answers: next.answers };
+        if (await cancelKeySet()) {
+          // Cancelled meanwhile: no more children; the stage resumes without answers (its blocks keep their sides).
+          stage = { kind: 'resume', startedAt, minSpread, state: outcome.state, answers: [] };
+        } else {
+          // Leaves this worker (WaitingChildrenError) until the children are done, unless they already are.
+          const next = await spreadStage({ deps, config }, parent, token, {
+            attempt, startedAt, state: outcome.state, tasks: outcome.tasks, progress: outcome.progress, solver: row.solver, timeLimitSeconds: run.timeLimitSeconds,
+          });
+          spread = next.spread;
+          stage = { kind: 'resume', startedAt, minSpread, state: outcome.state, answers: next.answers };
+        }
         outcome = await runInThread();
       }
       await pendingWrite;
