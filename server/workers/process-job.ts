@@ -180,7 +180,7 @@ export function createJobProcessor(env: ProcessorEnv) {
           // Leaves this worker (WaitingChildrenError) until the children are done, unless they already are.
           const next = await spreadStage({ deps, config }, parent, token, {
             attempt, startedAt, state: outcome.state, tasks: outcome.tasks, progress: outcome.progress, solver: row.solver, timeLimitSeconds: run.timeLimitSeconds,
-          });
+          }, spread);
           spread = next.spread;
           stage = { kind: 'resume', startedAt, minSpread, state: outcome.state, answers: next.answers };
         }

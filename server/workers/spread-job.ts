@@ -119,9 +119,10 @@ async function addChildren(env: SpreadEnv, entry: Job<ParentData>, spread: Sprea
 export async function spreadStage(
   env: SpreadEnv, entry: Job<ParentData>, token: string | undefined,
   stage: { attempt: number; startedAt: number; state: unknown; tasks: unknown[]; progress: { from: number; to: number }; solver: string; timeLimitSeconds: number },
+  /** The stage before, as collected (its answers counted per worker), if any. */
+  previous: SpreadData | undefined,
 ): Promise<{ answers: unknown[]; spread: SpreadData }> {
   const batches = batchesOf(stage.tasks, env.config.RUN_SPREAD_CHILDREN);
-  const previous = entry.data.spread?.attempt === stage.attempt ? entry.data.spread : undefined;
   const spread: SpreadData = {
     stage: (previous?.stage ?? -1) + 1, attempt: stage.attempt, startedAt: stage.startedAt, state: stage.state,
     progress: stage.progress, batches: batches.length, created: (previous?.created ?? 0) + batches.length, workers: previous?.workers ?? {},
