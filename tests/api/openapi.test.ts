@@ -29,5 +29,10 @@ describe('GET /api/openapi.json', () => {
       expect(res.body.paths[path]?.[r.method]).toBeDefined();
       if (r.body) expect(res.body.paths[path][r.method].requestBody.content['application/json'].schema).toBeDefined();
     }
+    // The run preview documents each solver's circuit resources per layout (docs/runs.md).
+    const preview = res.body.paths['/api/runs/preview'].post.responses['200'].content['application/json'].schema;
+    const circuit = preview.properties.solvers.items.properties.circuit;
+    expect(JSON.stringify(circuit)).toMatch(/"twoQubitDepth"/);
+    expect(Object.keys(circuit.anyOf.find((s: { type?: string }) => s.type === 'object').properties.layouts.properties)).toEqual(['all', 'line', 'grid']);
   });
 });
