@@ -62,7 +62,7 @@ export function RecursionRounds(props: { recursion: NonNullable<JobResultView['r
     </View>
   );
 }
-const WIDTHS = [110, 100, 170, 130, 140, 70, 70];
+const WIDTHS = [130, 100, 170, 130, 140, 70, 70];
 
 /** qaoa-blocks' blocks: how many, their sizes, the merge, and the network coloured by block. */
 export function BlocksView(props: { decomposition: DecompositionReport; document: Pick<NetworkDocument, 'depots' | 'lanes'>; label: string; blockSize?: number }) {
