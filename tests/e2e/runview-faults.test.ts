@@ -13,7 +13,7 @@ import { launchBrowser, PHONE, WIDE, watchPageErrors } from '../support/browser'
 import { startTestServer } from '../support/server';
 import { applyTestEnv } from '../support/env';
 import { startWorkerProcess } from '../support/worker-process';
-import { moneyShown, nameStartsWithVisible, PERCENT, secondsOf, shot, splitAcrossLines } from '../support/page-checks';
+import { faultChecks, moneyShown, nameStartsWithVisible, PERCENT, secondsOf, shot, splitAcrossLines } from '../support/page-checks';
 import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail/mail-catcher';
 import { startPaymentFake, type PaymentFake } from '../../server/fakes/payments/payment-fake';
 import { createOrgWithRoles, TEST_PASSWORD, type OrgWithRoles } from '../api/setup/test-app';
@@ -151,72 +151,83 @@ describe.each([
   });
   beforeEach(async () => {
     context = await browser.newContext({ viewport, hasTouch: touch, isMobile: touch, acceptDownloads: true });
+    // A missing element fails its check in 15 s (checks go on after a failure; see faultChecks).
+    context.setDefaultTimeout(15_000);
   });
   afterEach(async () => {
     await context.close();
   });
 
   test('run setup: plain lines first, no placeholders, a bad value marked on its field with Start disabled, cleared when fixed', async () => {
+    const c = faultChecks();
     const page = await signIn(context, org.users.analyst.email);
     const errors = watchPageErrors(page);
     await page.goto(`${server.url}/runs/new?networkId=${twelve.id}&versionId=${twelve.versionId}`);
     await page.getByTestId('kind-maxcut').click();
     await page.getByTestId('encoding-summary').waitFor();
     await page.getByTestId('solver-qaoa').waitFor();
-    await page.waitForFunction(() => /qubits/.test(document.querySelector('[data-testid="solver-qaoa"]')?.textContent ?? ''));
-
-    // Plain words: each chosen quantum solver says what it needs; no formula is on screen before
-    // the details control is opened.
-    await expect(page.getByTestId('solver-qaoa').textContent()).resolves.toMatch(/needs 12 qubits · about \d+ (s|min) · free/);
-    const before = await page.locator('body').innerText();
-    expect(before).not.toMatch(/⌈|Σ|ε|2\^|S =|Shots for ±/);
+    await page.waitForFunction(() => /qubits/.test(document.querySelector('[data-testid="solver-qaoa"]')?.textContent ?? '')).catch(() => undefined);
     await shot(page, `runview-setup-plain-${label}`);
 
-    // No settings key stands in for a number in any solver's description.
-    await page.getByTestId('all-solvers').click();
-    await page.getByTestId('solver-qaoa-blocks').waitFor();
-    const solverTexts = await page.locator('[data-testid^="solver-"]').allInnerTexts();
-    expect(solverTexts.length).toBeGreaterThan(5);
-    for (const t of solverTexts) expect(t).not.toMatch(/\b[a-z]+[A-Z][A-Za-z]*\b|[{}]/);
-    await page.getByTestId('solver-qaoa-blocks').scrollIntoViewIfNeeded();
-    await shot(page, `runview-setup-all-solvers-${label}`);
-    await page.getByTestId('all-solvers').click();
+    await c.check('Run setup: a plain line per solver; no formula before the details control, the figures behind it', async () => {
+      await expect(page.getByTestId('solver-qaoa').textContent()).resolves.toMatch(/needs 12 qubits · about \d+ (s|min) · free/);
+      expect(await page.locator('body').innerText()).not.toMatch(/⌈|Σ|ε|2\^|S =|Shots for ±/);
+      await page.getByTestId('encoding-details-toggle').click();
+      await page.getByTestId('enc-qubits').getByText('12', { exact: true }).waitFor();
+      await page.getByTestId('encoding-details-toggle').click();
+    });
 
-    // A bad advanced value: a sentence right under its field, the field edged in red, no API path,
-    // Start disabled naming the reason; fixing the value clears all three.
+    await c.check('Run setup: no settings key ("at most blockSize depots") in any solver description', async () => {
+      await page.getByTestId('all-solvers').click();
+      await page.getByTestId('solver-qaoa-blocks').waitFor();
+      const solverTexts = await page.locator('[data-testid^="solver-"]').allInnerTexts();
+      await page.getByTestId('solver-qaoa-blocks').scrollIntoViewIfNeeded();
+      await shot(page, `runview-setup-all-solvers-${label}`);
+      await page.getByTestId('all-solvers').click();
+      expect(solverTexts.length).toBeGreaterThan(5);
+      for (const t of solverTexts) expect(t).not.toMatch(/\b[a-z]+[A-Z][A-Za-z]*\b|[{}]/);
+    });
+
+    // A bad advanced value: a sentence right under its field, the field marked, no API path,
+    // Start disabled naming the reason; fixing the value clears all of them.
     await page.getByTestId('advanced-toggle').click();
     const layers = page.getByRole('textbox', { name: /^Circuit layers/ });
     await layers.fill('-3');
-    const sentence = page.getByText(/^Circuit layers.*-3.*\.$/).first();
-    await sentence.waitFor({ timeout: 10_000 });
-    const field = (await layers.boundingBox())!;
-    const said = (await sentence.boundingBox())!;
-    expect(said.y).toBeGreaterThanOrEqual(field.y + field.height - 1);
-    expect(said.y - (field.y + field.height)).toBeLessThan(40);
-    // Marked: invalid for assistive technology, and edged in the error red (read without focus, whose ring would hide it).
-    await layers.evaluate((e) => (e as HTMLInputElement).blur());
-    await expect(layers.getAttribute('aria-invalid')).resolves.toBe('true');
-    const edge = await layers.evaluate((e) => getComputedStyle(e).borderTopColor);
-    const calm = await page.getByRole('textbox', { name: /^Shots per energy estimate/ }).evaluate((e) => getComputedStyle(e).borderTopColor);
-    expect(edge).toBe(DANGER_RGB);
-    expect(calm).not.toBe(DANGER_RGB);
-    expect(await page.locator('body').innerText()).not.toMatch(/solvers\.\d+\.settings/);
-    await page.waitForFunction(() => /^Cannot start: Circuit layers/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
-    await expect(enabled(page, 'start-run')).resolves.toBe(false);
-    await sentence.scrollIntoViewIfNeeded();
+    await page.waitForTimeout(1500); // the preview of this body has answered
     await shot(page, `runview-setup-bad-value-${label}`);
+    await c.check('Run setup: a bad advanced value is a sentence under its field, the field marked, no API path', async () => {
+      const sentence = page.getByText(/^Circuit layers.*-3.*\.$/).first();
+      await sentence.waitFor({ timeout: 10_000 });
+      const field = (await layers.boundingBox())!;
+      const said = (await sentence.boundingBox())!;
+      expect(said.y).toBeGreaterThanOrEqual(field.y + field.height - 1);
+      expect(said.y - (field.y + field.height)).toBeLessThan(40);
+      expect(await page.locator('body').innerText()).not.toMatch(/solvers\.\d+\.settings/);
+      // Marked: invalid for assistive technology, and edged in the error red (read without focus, whose ring would hide it).
+      await layers.evaluate((e) => (e as HTMLInputElement).blur());
+      await expect(layers.getAttribute('aria-invalid')).resolves.toBe('true');
+      const edge = await layers.evaluate((e) => getComputedStyle(e).borderTopColor);
+      const calm = await page.getByRole('textbox', { name: /^Shots per energy estimate/ }).evaluate((e) => getComputedStyle(e).borderTopColor);
+      expect(edge).toBe(DANGER_RGB);
+      expect(calm).not.toBe(DANGER_RGB);
+    });
+    await c.check('Run setup: Start stays disabled while the value is bad, naming the reason', async () => {
+      await page.waitForFunction(() => /^Cannot start: Circuit layers/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
+      await expect(enabled(page, 'start-run')).resolves.toBe(false);
+    });
     await layers.fill('2');
-    await page.waitForFunction(() => /^Start run with/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
-    await expect(page.getByText(/^Circuit layers.*\.$/).count()).resolves.toBe(0);
-    await expect(enabled(page, 'start-run')).resolves.toBe(true);
-
-    // The formulas are there for analysts, behind the details control.
-    await page.getByTestId('encoding-details-toggle').click();
-    await page.getByTestId('enc-qubits').getByText('12', { exact: true }).waitFor();
-    expect(errors).toEqual([]);
+    await c.check('Run setup: fixing the value removes the sentence and enables Start', async () => {
+      await page.waitForFunction(() => /^Start run with/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
+      await expect(page.getByText(/^Circuit layers.*\.$/).count()).resolves.toBe(0);
+      await expect(page.getByText(/solvers\.\d+\.settings/).count()).resolves.toBe(0);
+      await expect(enabled(page, 'start-run')).resolves.toBe(true);
+    });
+    await c.check('Run setup: no page errors', async () => expect(errors).toEqual([]));
+    c.done(`setup-${label}`);
   });
 
   test('paid run: a refusal leaves with its cause, prices stay on one line, waiting for payment says so, a card payment is one history line', async () => {
+    const c = faultChecks();
     const page = await signIn(context, paying.users.owner.email);
     const errors = watchPageErrors(page);
     await page.goto(`${server.url}/runs/new?networkId=${ring.id}&versionId=${ring.versionId}`);
@@ -226,24 +237,30 @@ describe.each([
     // A refused solver: named in the summary and on Start; unticking it removes both.
     await page.getByTestId('all-solvers').click();
     await page.getByTestId('solver-exact').click();
-    await page.getByTestId('refusal-exact').waitFor({ timeout: 10_000 });
-    await page.waitForFunction(() => /^Untick/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
-    await expect(enabled(page, 'start-run')).resolves.toBe(false);
+    await page.getByText(/will not run/).first().waitFor({ timeout: 10_000 });
     await shot(page, `runview-setup-refused-${label}`);
+    await c.check('Run setup: a refused solver keeps Start disabled, naming it', async () => {
+      await page.waitForFunction(() => /^Untick/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
+      await expect(enabled(page, 'start-run')).resolves.toBe(false);
+    });
     await page.getByTestId('solver-exact').click();
-    await page.getByTestId('refusal-exact').waitFor({ state: 'detached', timeout: 10_000 });
-    await expect(page.getByTestId('encoding-summary').innerText()).resolves.not.toMatch(/will not run/);
-    await page.waitForFunction(() => /^Start run with 1 solver/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
-    await expect(enabled(page, 'start-run')).resolves.toBe(true);
+    await c.check('Run setup: the refusal leaves when its cause (the ticked solver) is removed', async () => {
+      await page.waitForFunction(() => /^Start run with 1 solver/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
+      await page.waitForTimeout(1000);
+      await expect(page.getByTestId('encoding-summary').innerText()).resolves.not.toMatch(/will not run/);
+      await expect(enabled(page, 'start-run')).resolves.toBe(true);
+    });
 
     // The price of a real paid run, on one line wherever it shows (cost line, details, Start).
-    await page.getByTestId('run-cost').getByText('€2.50', { exact: false }).waitFor();
-    await page.getByTestId('encoding-details-toggle').click();
+    await page.getByText(/€2\.50/).first().waitFor();
+    if ((await page.getByTestId('encoding-details-toggle').count()) > 0) await page.getByTestId('encoding-details-toggle').click();
     await page.getByTestId('enc-price-lines').waitFor();
-    await page.getByTestId('run-cost').scrollIntoViewIfNeeded();
-    expect(await moneyShown(page)).toBeGreaterThanOrEqual(3);
-    await expect(splitAcrossLines(page)).resolves.toEqual([]);
+    await page.getByText(/€2\.50/).first().scrollIntoViewIfNeeded();
     await shot(page, `runview-setup-price-${label}`);
+    await c.check('Run setup: every price shown stays on one line (paid run)', async () => {
+      expect(await moneyShown(page)).toBeGreaterThanOrEqual(3);
+      await expect(splitAcrossLines(page)).resolves.toEqual([]);
+    });
     await page.getByTestId('start-run').scrollIntoViewIfNeeded();
     await shot(page, `runview-setup-start-${label}`);
     await page.getByTestId('start-run').click();
@@ -252,15 +269,20 @@ describe.each([
 
     // Waiting for payment: the solver's line says so, and no clock counts.
     await page.getByTestId('run-payment').waitFor();
-    const waiting = await page.getByTestId('status-tabu').innerText();
-    expect(waiting).toBe('Waiting for payment');
-    await page.waitForTimeout(2500);
-    await expect(page.getByTestId('status-tabu').innerText()).resolves.toBe(waiting);
-    await expect(page.getByTestId('run-elapsed').innerText()).resolves.toBe('');
-    expect(await page.locator('body').innerText()).not.toMatch(/Waiting for a worker/);
-    expect(await moneyShown(page)).toBeGreaterThanOrEqual(1);
-    await expect(splitAcrossLines(page)).resolves.toEqual([]);
+    await page.waitForTimeout(1000);
     await shot(page, `runview-awaiting-payment-${label}`);
+    await c.check('Payment: while the run waits for payment its solver says so; no seconds count, no "Waiting for a worker"', async () => {
+      const waiting = await page.getByTestId('status-tabu').innerText();
+      expect(waiting).toBe('Waiting for payment');
+      await page.waitForTimeout(2500);
+      await expect(page.getByTestId('status-tabu').innerText()).resolves.toBe(waiting);
+      await expect(page.getByTestId('run-elapsed').innerText()).resolves.toBe('');
+      expect(await page.locator('body').innerText()).not.toMatch(/Waiting for a worker/);
+    });
+    await c.check('Payment: the price on the run screen stays on one line', async () => {
+      expect(await moneyShown(page)).toBeGreaterThanOrEqual(1);
+      await expect(splitAcrossLines(page)).resolves.toEqual([]);
+    });
 
     // A declined card, then a paid one: back from the payment page the decline is gone.
     await page.getByTestId('run-pay-card').click();
@@ -272,26 +294,32 @@ describe.each([
     await page.waitForURL((u) => u.pathname.startsWith('/pay/'));
     await page.getByRole('button', { name: 'Pay €2.50' }).click();
     await page.waitForURL((u) => u.pathname === `/runs/${runId}` && u.searchParams.get('payment') === 'success');
-    await page.getByText(/Confirming the payment|Paid €2\.50 by card/).first().waitFor({ timeout: 20_000 });
-    await expect(page.getByText(/Card payment failed/).count()).resolves.toBe(0);
-    await shot(page, `runview-payment-returned-${label}`);
-    await page.getByTestId('run-payment-done').getByText('Paid €2.50 by card', { exact: false }).waitFor({ timeout: 20_000 });
-    await expect(page.getByText(/Card payment failed/).count()).resolves.toBe(0);
+    await c.check('Payment: back from a successful card payment, no old "Card payment failed"', async () => {
+      await page.getByText(/Confirming the payment|Paid €2\.50 by card/).first().waitFor({ timeout: 20_000 });
+      await expect(page.getByText(/Card payment failed/).count()).resolves.toBe(0);
+      await shot(page, `runview-payment-returned-${label}`);
+      await page.getByTestId('run-payment-done').getByText('Paid €2.50 by card', { exact: false }).waitFor({ timeout: 20_000 });
+      await expect(page.getByText(/Card payment failed/).count()).resolves.toBe(0);
+    });
 
     // Billing history: the card payment for the run is one line, not +€2.50 and −€2.50.
     await page.goto(`${server.url}/billing`);
     await page.getByTestId('billing-screen').waitFor();
-    const history = page.getByTestId(label === 'wide' ? 'ledger-table' : 'ledger-list');
-    await history.getByText('Run paid by card').waitFor();
-    const rows = await history.locator('[data-testid^="ledger-"]').allInnerTexts();
-    expect(rows.filter((t) => /2\.50/.test(t))).toHaveLength(1);
-    await history.scrollIntoViewIfNeeded();
-    await shot(page, `runview-billing-history-${label}`);
-    expect(errors).toEqual([]);
+    await page.getByText(/Run paid|Large solve|card/i).first().waitFor().catch(() => undefined);
+    await c.check('Billing history: one card payment is one line', async () => {
+      const history = page.getByTestId(/^ledger-(table|list)$/);
+      await history.scrollIntoViewIfNeeded();
+      await shot(page, `runview-billing-history-${label}`);
+      const rows = await history.locator('[data-testid^="ledger-"]').allInnerTexts();
+      expect(rows.filter((t) => /2\.50/.test(t))).toHaveLength(1);
+    });
+    await c.check('Paid run: no page errors', async () => expect(errors).toEqual([]));
     await waitForRun(runId, 60).catch(() => undefined); // leave the worker free for the next test
+    c.done(`paid-${label}`);
   });
 
   test('run screen: an exact energy has no "± 0" while live', async () => {
+    const c = faultChecks();
     const { createRun } = await import('../../server/services/runs');
     const actor = { organisationId: org.organisationId, userId: org.users.analyst.id, role: 'analyst' as const };
     // Signed in first: the run starts at once. Exact expectations (shots 0) with enough starts to
@@ -305,14 +333,18 @@ describe.each([
       if (t) seen.push(t);
       await page.waitForTimeout(100);
     }
-    const live = seen.filter((t) => /energy/.test(t));
-    expect({ live: live.length > 0, seen: seen.slice(-5) }).toEqual({ live: true, seen: seen.slice(-5) });
-    for (const t of live) expect(t).not.toMatch(/±\s*0(?![.,]?\d)/);
     await shot(page, `runview-live-exact-energy-${label}`);
+    await c.check('Run view: a live row of an exact evaluation has no "± 0"', async () => {
+      const live = seen.filter((t) => /energy/.test(t));
+      expect({ live: live.length > 0, seen: seen.slice(-5) }).toEqual({ live: true, seen: seen.slice(-5) });
+      for (const t of live) expect(t).not.toMatch(/±\s*0(?![.,]?\d)/);
+    });
     await waitForRun(run.id);
+    c.done(`live-${label}`);
   });
 
   test('run screen: count scale, restart marks, visible band, θ with names, time to best without waiting for tabu, Side 0/1, report, labels', async () => {
+    const c = faultChecks();
     const { createRun } = await import('../../server/services/runs');
     const actor = { organisationId: org.organisationId, userId: org.users.analyst.id, role: 'analyst' as const };
     // exact first: it proves the optimum, and tabu (10 s allowed) should stop on reaching it.
@@ -333,71 +365,87 @@ describe.each([
     const errors = watchPageErrors(page);
     await page.goto(`${server.url}/runs/${run.id}`);
     await page.getByTestId('proven-exact').waitFor({ timeout: 20_000 });
-
-    // Tabu stopped on the proven optimum, well inside its 10 s, and the scorecard says when each solver reached its best.
-    const tabuTime = secondsOf(await page.getByTestId('time-tabu').innerText());
-    expect(tabuTime).toBeLessThan(5);
-    expect(secondsOf(await page.getByTestId('toBest-tabu').innerText())).toBeLessThanOrEqual(tabuTime);
     await page.getByTestId('scorecard').scrollIntoViewIfNeeded();
     await shot(page, `runview-scorecard-${label}`);
 
-    // QAOA's samples have a count scale.
+    await c.check('Run view: a 12-depot run does not wait for tabu once exact proved the optimum', async () => {
+      const tabu = await server.deps.models.RunJob.findOne({ where: { runId: run.id, solver: 'tabu' } });
+      const seconds = JSON.parse(tabu!.get('result') as string).seconds as number;
+      expect(seconds).toBeLessThan(5);
+    });
+    await c.check('Run view: the scorecard shows time to best', async () => {
+      const tabuTime = secondsOf(await page.getByTestId('time-tabu').innerText());
+      expect(secondsOf(await page.getByTestId('toBest-tabu').innerText())).toBeLessThanOrEqual(tabuTime);
+    });
+
     await page.getByTestId('score-qaoa').click();
-    await page.getByTestId('sample-histogram').scrollIntoViewIfNeeded();
-    const ticks = (await page.getByTestId('histogram-tick').allTextContents()).map((t) => Number(t.replace(/,/g, '')));
-    expect(ticks.length).toBeGreaterThan(1);
-    expect(ticks[0]).toBe(0);
-    expect(ticks.every(Number.isInteger)).toBe(true);
-    await shot(page, `runview-histogram-${label}`);
+    await c.check('Run view: the histogram has a count scale', async () => {
+      await page.getByTestId('sample-histogram').scrollIntoViewIfNeeded();
+      await shot(page, `runview-histogram-${label}`);
+      const ticks = (await page.getByTestId('histogram-tick').allTextContents()).map((t) => Number(t.replace(/,/g, '')));
+      expect(ticks.length).toBeGreaterThan(1);
+      expect(ticks[0]).toBe(0);
+      expect(ticks.every(Number.isInteger)).toBe(true);
+    });
 
     // The energy chart: each restart marked where it begins (3 starts → 2 marks, unless the time
     // limit cut the starts short), the marks explained; the shot-noise band clearly visible.
     const card = page.getByTestId('convergence-card');
     await card.scrollIntoViewIfNeeded();
-    const marks = await card.getByTestId('convergence-restart-marker').allTextContents();
-    expect(marks.length).toBeGreaterThanOrEqual(1);
-    expect(marks[0]).toBe('start 2');
-    await expect(card.getByTestId('convergence-restarts').innerText()).resolves.toMatch(/start 2/);
-    const band = card.getByTestId('convergence-band');
-    expect(Number(await band.getAttribute('fill-opacity'))).toBeGreaterThanOrEqual(0.45);
-    expect((await band.boundingBox())!.height).toBeGreaterThan(4);
     await shot(page, `runview-convergence-${label}`);
+    await c.check('Run view: the convergence chart marks each restart and explains it', async () => {
+      const marks = await card.getByTestId('convergence-restart-marker').allTextContents();
+      expect(marks.length).toBeGreaterThanOrEqual(1);
+      expect(marks[0]).toBe('start 2');
+      await expect(card.getByTestId('convergence-restarts').innerText()).resolves.toMatch(/start 2/);
+    });
+    await c.check('Run view: the ± standard-error band is clearly visible', async () => {
+      const band = card.getByTestId('convergence-band');
+      expect(Number(await band.getAttribute('fill-opacity'))).toBeGreaterThanOrEqual(0.45);
+      expect((await band.boundingBox())!.height).toBeGreaterThan(4);
+    });
 
-    // VQE's θ values stay with their names: one line per parameter, the name on the value's line.
     await page.getByTestId('score-vqe').click();
-    await page.getByTestId('final-params').scrollIntoViewIfNeeded();
-    const params = page.getByTestId('final-params').getByTestId('param');
-    expect(await params.count()).toBeGreaterThan(4);
-    for (const h of await params.evaluateAll((els) => els.map((e) => e.getBoundingClientRect().height))) expect(h).toBeLessThan(26);
-    for (const t of await params.allInnerTexts()) expect(t).toMatch(/^θ\S*\s=\s-?\d/);
-    await shot(page, `runview-vqe-params-${label}`);
+    await c.check("Run view: VQE's θ values stay with their names", async () => {
+      await page.getByTestId('final-params').scrollIntoViewIfNeeded();
+      await shot(page, `runview-vqe-params-${label}`);
+      const params = page.getByTestId('final-params').getByTestId('param');
+      expect(await params.count()).toBeGreaterThan(4);
+      for (const h of await params.evaluateAll((els) => els.map((e) => e.getBoundingClientRect().height))) expect(h).toBeLessThan(26);
+      for (const t of await params.allInnerTexts()) expect(t).toMatch(/^θ\S*\s=\s-?\d/);
+    });
 
-    // Sides named as the CSV numbers them.
-    await page.getByTestId('region-0').getByText('Side 0', { exact: true }).waitFor();
-    await page.getByTestId('region-1').getByText('Side 1', { exact: true }).waitFor();
-    await page.getByTestId('partition-view').scrollIntoViewIfNeeded();
-    await shot(page, `runview-partition-${label}`);
+    await c.check('Run view: two-region results say Side 0/1 like the CSV', async () => {
+      await page.getByTestId('partition-view').scrollIntoViewIfNeeded();
+      await shot(page, `runview-partition-${label}`);
+      await page.getByTestId('region-0').getByText('Side 0', { exact: true }).waitFor();
+      await page.getByTestId('region-1').getByText('Side 1', { exact: true }).waitFor();
+    });
 
-    // The printable report: no zoom buttons, no "Tap a depot".
     await page.goto(`${server.url}/runs/${run.id}/report`);
     await page.getByTestId('report-assignment').waitFor();
-    expect(await page.getByTestId('zoom-in').count()).toBe(0);
-    expect(await page.getByText(/Tap a depot/).count()).toBe(0);
     await shot(page, `runview-report-${label}`);
+    await c.check('Report: no zoom buttons, no "Tap a depot…"', async () => {
+      expect(await page.getByTestId('zoom-in').count()).toBe(0);
+      expect(await page.getByText(/Tap a depot/).count()).toBe(0);
+    });
 
-    // The runs list names solvers by their labels.
     await page.goto(`${server.url}/runs`);
     const item = page.getByTestId(`run-item-${run.id}`);
     await item.waitFor();
     const listed = await item.innerText();
-    expect(listed).toMatch(/Exact enumeration/);
-    expect(listed).toMatch(/Tabu search/);
-    expect(listed).not.toMatch(/\b(exact|tabu|qaoa|vqe)\b/);
     await shot(page, `runview-runs-list-${label}`);
-    expect(errors).toEqual([]);
+    await c.check('Runs list: solver labels, not codes', async () => {
+      expect(listed).toMatch(/Exact enumeration/);
+      expect(listed).toMatch(/Tabu search/);
+      expect(listed).not.toMatch(/\b(exact|tabu|qaoa|vqe)\b/);
+    });
+    await c.check('Run view: no page errors', async () => expect(errors).toEqual([]));
+    c.done(`runview-${label}`);
   });
 
   test('k-way run: "Took" is never shorter than a solver\'s own time; the runs list shows fm by its label', async () => {
+    const c = faultChecks();
     const { createRun } = await import('../../server/services/runs');
     const actor = { organisationId: org.organisationId, userId: org.users.analyst.id, role: 'analyst' as const };
     const run = await createRun(server.deps, actor, {
@@ -411,39 +459,52 @@ describe.each([
     const page = await signIn(context, org.users.analyst.email);
     await page.goto(`${server.url}/runs/${run.id}`);
     await page.getByTestId('scorecard').waitFor({ timeout: 20_000 });
-    const took = secondsOf(await page.getByTestId('run-elapsed').innerText());
-    const own = await Promise.all(['exact', 'fm', 'qaoa'].map(async (s) => secondsOf(await page.getByTestId(`time-${s}`).innerText())));
-    expect(Math.max(...own)).toBeGreaterThan(0);
-    expect(took).toBeGreaterThanOrEqual(Math.max(...own) - 0.005);
-    // Each solver's percentage stays on one line beside its long label.
-    await expect(page.getByTestId('run-progress').innerText()).resolves.toMatch(/100 %/);
-    await expect(splitAcrossLines(page, PERCENT)).resolves.toEqual([]);
-    await page.getByTestId('region-2').getByText('Region 2', { exact: true }).waitFor();
     await page.getByTestId('run-progress').scrollIntoViewIfNeeded();
     await shot(page, `runview-kway-took-${label}`);
+    await c.check('Run view: "Took" reflects the solvers\' time in a k-way run', async () => {
+      const took = secondsOf(await page.getByTestId('run-elapsed').innerText());
+      // The solvers' own times as stored (independent of the screen's formatting).
+      const jobs = await server.deps.models.RunJob.findAll({ where: { runId: run.id } });
+      const own = jobs.map((j) => JSON.parse(j.get('result') as string).seconds as number);
+      expect(Math.max(...own)).toBeGreaterThan(0.01);
+      expect(took).toBeGreaterThanOrEqual(Math.max(...own) - 0.005);
+    });
+    await c.check("Run view: each solver's percentage stays on one line beside its label", async () => {
+      await expect(page.getByTestId('run-progress').innerText()).resolves.toMatch(/100 %/);
+      await expect(splitAcrossLines(page, PERCENT)).resolves.toEqual([]);
+    });
+    await c.check('Run view: k regions named Region 0…k−1 like the CSV', async () => {
+      await page.getByTestId('region-2').getByText('Region 2', { exact: true }).waitFor();
+    });
     await page.goto(`${server.url}/runs`);
+    await page.getByTestId(`run-item-${run.id}`).waitFor();
     const listed = await page.getByTestId(`run-item-${run.id}`).innerText();
-    expect(listed).not.toMatch(/\bfm\b/);
+    await c.check('Runs list: fm shown by its label', async () => expect(listed).not.toMatch(/\bfm\b/));
+    c.done(`kway-${label}`);
   });
 
   test('lanes table: each row is named by what it shows, starting with it (WCAG 2.5.3 Label in Name)', async () => {
+    const c = faultChecks();
     const page = await signIn(context, org.users.analyst.email);
     await page.goto(`${server.url}/networks/${twelve.id}`);
     await page.getByTestId('network-screen').waitFor();
     await page.getByTestId('tab-lanes').click();
     await page.getByTestId('lanes-table').waitFor();
-    const rows = page.locator('[data-testid^="lane-row-"]');
-    expect(await rows.count()).toBe(16);
-    for (const row of await rows.all()) {
-      const button = row.getByRole('button');
-      const visible = await button.innerText();
-      const name = (await button.getAttribute('aria-label')) ?? visible;
-      expect({ visible, name, ok: nameStartsWithVisible(name, visible) }).toEqual({ visible, name, ok: true });
-    }
-    // Speech users say what they see: the first lane is found by its two ends.
-    await page.getByRole('button', { name: /^Q1\s*Q2$/ }).click();
-    await expect(page.getByRole('button', { name: /^Q1\s*Q2$/ }).getAttribute('aria-pressed')).resolves.toBe('true');
     await page.getByTestId('lanes-table').scrollIntoViewIfNeeded();
     await shot(page, `runview-lanes-table-${label}`);
+    await c.check('Lanes table: every row\'s accessible name starts with its visible text', async () => {
+      const rows = page.locator('[data-testid^="lane-row-"]');
+      expect(await rows.count()).toBe(16);
+      for (const row of await rows.all()) {
+        const button = row.getByRole('button');
+        const visible = await button.innerText();
+        const name = (await button.getAttribute('aria-label')) ?? visible;
+        expect({ visible, name, ok: nameStartsWithVisible(name, visible) }).toEqual({ visible, name, ok: true });
+      }
+      // Speech users say what they see: the first lane is found by its two ends.
+      await page.getByRole('button', { name: /^Q1\s*Q2$/ }).click();
+      await expect(page.getByRole('button', { name: /^Q1\s*Q2$/ }).getAttribute('aria-pressed')).resolves.toBe('true');
+    });
+    c.done(`lanes-${label}`);
   });
 });

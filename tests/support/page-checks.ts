@@ -79,3 +79,30 @@ export function nameStartsWithVisible(name: string, visible: string): boolean {
   const n = words(name), v = words(visible);
   return v.length > 0 && v.every((w, i) => n[i] === w);
 }
+
+/**
+ * Named checks inside one browser test, each run even when an earlier one failed, so a run at an
+ * older commit says which faults each fix removed. `done` writes the outcome to
+ * .data/fault-checks/<name>.json and fails the test when any check failed.
+ */
+export function faultChecks() {
+  const results: { fault: string; ok: boolean; error?: string }[] = [];
+  return {
+    async check(fault: string, body: () => Promise<void>) {
+      try {
+        await body();
+        results.push({ fault, ok: true });
+      } catch (e) {
+        results.push({ fault, ok: false, error: String((e as Error)?.message ?? e).split('\n').slice(0, 8).join('\n') });
+      }
+    },
+    done(name: string) {
+      const dir = path.resolve(__dirname, '..', '..', '.data', 'fault-checks');
+      fs.mkdirSync(dir, { recursive: true });
+      fs.writeFileSync(path.join(dir, `${name}.json`), JSON.stringify(results, null, 2));
+      const failed = results.filter((r) => !r.ok);
+      if (failed.length) throw new Error(failed.map((f) => `✕ ${f.fault}\n${f.error}`).join('\n\n'));
+      if (results.length === 0) throw new Error('no checks ran');
+    },
+  };
+}
