@@ -13,7 +13,7 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, screenshot } from '../support/browser';
 import { startTestServer } from '../support/server';
 import { startWorkerProcess } from '../support/worker-process';
-import { signInAs } from '../support/screens';
+import { signInAs, softChecks } from '../support/screens';
 import { holdTestDatabase } from '../api/setup/db-lock';
 import { createOrgWithRoles, type OrgWithRoles } from '../api/setup/test-app';
 import { createNetwork, addVersion } from '../../server/services/networks';
@@ -104,10 +104,14 @@ describe.each([
     await page.getByTestId('audit-row').first().waitFor({ timeout: 30_000 });
     const rows = await page.getByTestId('audit-row').allTextContents();
     await screenshot(page, `screens-words-audit-${label}`);
-    expect(rows.some((r) => r.includes('removed Words viewer'))).toBe(true);
-    const text = rows.join('\n');
-    expect(text).not.toMatch(/\b[a-z]+\.[a-z]+_[a-z_]+\b/); // no dotted codes such as billing.payment_succeeded
-    expect(text).toMatch(/Card payment of €25\.00/);
+    const c = softChecks();
+    await c.check('who was removed', () => expect(rows.filter((r) => r.includes('removed Words viewer'))).toHaveLength(1));
+    await c.check('billing in words', () => {
+      const text = rows.join('\n');
+      expect(text).not.toMatch(/\b[a-z]+\.[a-z]+_[a-z_]+\b/); // no dotted codes such as billing.payment_succeeded
+      expect(text).toMatch(/Card payment of €25\.00/);
+    });
+    expect(c.failed).toEqual({});
   });
 
   test('dates: one style on networks, versions, runs, team, audit and billing', async () => {
@@ -123,6 +127,8 @@ describe.each([
     };
     await visit('networks', '/networks', () => page.getByText('Quillmere words').first().waitFor());
     await visit('versions', `/networks/${networkId}`, async () => {
+      await page.getByTestId('network-screen').waitFor();
+      await page.getByText(/Version 2 of 2/).first().waitFor();
       await page.getByTestId('tab-versions').click();
       await page.getByTestId('version-1').waitFor();
     });
@@ -142,15 +148,18 @@ describe.each([
     const page = await signInAs(context, server.url, org.users.analyst);
     page.setDefaultTimeout(10_000);
     await page.goto(`${server.url}/runs/new?networkId=${networkId}&versionId=${versionId}`);
-    const box = page.getByRole('checkbox').first();
+    const box = page.getByRole('checkbox', { disabled: false }).first();
     await box.waitFor({ timeout: 30_000 });
     const checked = async (l: ReturnType<Page['getByRole']>) => (await l.getAttribute('aria-checked')) === 'true';
-    const before = await checked(box);
-    await box.focus();
-    await page.keyboard.press('Space');
-    await expect(checked(box)).resolves.toBe(!before);
-    await page.keyboard.press('Space');
-    await expect(checked(box)).resolves.toBe(before);
+    const c = softChecks();
+    await c.check('Space toggles a solver checkbox', async () => {
+      const before = await checked(box);
+      await box.focus();
+      await page.keyboard.press('Space');
+      await expect(checked(box)).resolves.toBe(!before);
+      await page.keyboard.press('Space');
+      await expect(checked(box)).resolves.toBe(before);
+    });
 
     const radios = page.getByRole('radiogroup', { name: 'Question' }).getByRole('radio');
     await expect(radios.count()).resolves.toBe(3);
@@ -159,29 +168,36 @@ describe.each([
       return -1;
     };
     const start = await chosen();
-    await radios.nth(start).focus();
-    await page.keyboard.press('ArrowDown');
-    await expect(chosen()).resolves.toBe((start + 1) % 3);
-    await expect(radios.nth((start + 1) % 3).evaluate((el) => el === document.activeElement)).resolves.toBe(true);
-    await page.keyboard.press('ArrowUp');
-    await expect(chosen()).resolves.toBe(start);
-    const other = (start + 2) % 3;
-    await radios.nth(other).focus();
-    await page.keyboard.press('Space');
-    await expect(chosen()).resolves.toBe(other);
-    await radios.nth(start).focus();
-    await page.keyboard.press('Space');
-    await expect(chosen()).resolves.toBe(start);
+    await c.check('arrow keys move the question choice and the focus', async () => {
+      await radios.nth(start).focus();
+      await page.keyboard.press('ArrowDown');
+      await expect(chosen()).resolves.toBe((start + 1) % 3);
+      await expect(radios.nth((start + 1) % 3).evaluate((el) => el === document.activeElement)).resolves.toBe(true);
+      await page.keyboard.press('ArrowUp');
+      await expect(chosen()).resolves.toBe(start);
+    });
+    await c.check('Space chooses a question card', async () => {
+      const other = (start + 2) % 3;
+      await radios.nth(other).focus();
+      await page.keyboard.press('Space');
+      await expect(chosen()).resolves.toBe(other);
+      await radios.nth(start).focus();
+      await page.keyboard.press('Space');
+      await expect(chosen()).resolves.toBe(start);
+    });
 
     // Pins without the drawing: find a depot in the list, arrow keys choose its side.
-    await page.getByLabel('Find a depot to pin').fill('Ossel');
-    const free = page.getByRole('radio', { name: 'Ossel Bridge (Q2): Free' });
-    await free.focus();
-    await page.keyboard.press('ArrowRight');
-    await page.getByTestId('pin-Q2').waitFor();
-    await expect(page.getByTestId('pin-Q2').textContent()).resolves.toMatch(/Ossel Bridge → Side 0/);
-    await free.scrollIntoViewIfNeeded();
+    await c.check('pins from the list beside the drawing', async () => {
+      await page.getByLabel('Find a depot to pin').fill('Ossel', { timeout: 5000 });
+      const free = page.getByRole('radio', { name: 'Ossel Bridge (Q2): Free' });
+      await free.focus();
+      await page.keyboard.press('ArrowRight');
+      await page.getByTestId('pin-Q2').waitFor();
+      await expect(page.getByTestId('pin-Q2').textContent()).resolves.toMatch(/Ossel Bridge → Side 0/);
+      await free.scrollIntoViewIfNeeded();
+    });
     await screenshot(page, `screens-words-pins-${label}`);
+    expect(c.failed).toEqual({});
   });
 
   test('keyboard: Tab reaches the drawing canvas; Enter there adds a depot', async () => {

@@ -86,3 +86,21 @@ export function nameProblems(p: DrawingParts, chosen: readonly string[] = []): s
   }
   return [...new Set(out)];
 }
+
+/**
+ * Several independent checks in one browser session: each failure is recorded under its name and
+ * the rest still run, so one report shows every fault present (`expect(c.failed).toEqual({})`).
+ */
+export function softChecks() {
+  const failed: Record<string, string> = {};
+  return {
+    failed,
+    async check(name: string, fn: () => unknown | Promise<unknown>): Promise<void> {
+      try {
+        await fn();
+      } catch (e) {
+        failed[name] = String((e as Error).message ?? e).replace(/\u001b\[[0-9;]*m/g, '').split('\n').filter((l) => l.trim()).slice(0, 8).join(' | ').slice(0, 600);
+      }
+    },
+  };
+}
