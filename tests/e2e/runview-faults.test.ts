@@ -128,9 +128,9 @@ const enabled = async (page: Page, testId: string) => {
 /** Untick every chosen solver but `keep` (the size-based defaults differ by network). */
 async function onlySolver(page: Page, keep: string) {
   await page.getByTestId(`solver-${keep}`).waitFor();
-  for (const box of await page.locator('[data-testid^="solver-"][aria-checked="true"]').all()) {
-    if ((await box.getAttribute('data-testid')) !== `solver-${keep}`) await box.click();
-  }
+  // One at a time: each untick re-renders the list (a snapshot of the boxes would go stale).
+  const others = page.locator(`[data-testid^="solver-"][aria-checked="true"]:not([data-testid="solver-${keep}"])`);
+  for (let i = 0; i < 20 && (await others.count()) > 0; i++) await others.first().click();
   if ((await page.getByTestId(`solver-${keep}`).getAttribute('aria-checked')) !== 'true') await page.getByTestId(`solver-${keep}`).click();
 }
 
