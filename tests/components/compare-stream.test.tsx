@@ -3,35 +3,16 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { CompareView } from '../../components/runs/CompareView';
 import type { RunDetail } from '../../components/runs/types';
+import { MockStream } from '../support/mock-event-stream';
 
 jest.mock('expo-router', () => ({ useRouter: () => ({ push: jest.fn(), replace: jest.fn() }), useLocalSearchParams: () => ({}) }));
-
-/** A stand-in for the browser's EventSource that the test drives (as in runs-stream.test.tsx). */
-class MockStream {
-  static all: MockStream[] = [];
-  onopen: (() => void) | null = null;
-  onerror: (() => void) | null = null;
-  closed = false;
-  private listeners: Record<string, Array<(e: { data: string }) => void>> = {};
-  constructor(readonly path: string) {
-    MockStream.all.push(this);
-  }
-  addEventListener(name: string, f: (e: { data: string }) => void) {
-    (this.listeners[name] ??= []).push(f);
-  }
-  close() {
-    this.closed = true;
-  }
-  emit(name: string, data: unknown) {
-    for (const f of this.listeners[name] ?? []) f({ data: JSON.stringify(data) });
-  }
-}
 
 const mockGet = jest.fn();
 jest.mock('../../components/api/client', () => ({
   api: { get: (path: string) => mockGet(path), post: jest.fn(async () => ({})), delete: jest.fn() },
   ApiError: class extends Error {},
-  openEventStream: (path: string) => new MockStream(path),
+  // The shared stand-in, loaded inside the factory because jest hoists this call above imports.
+  openEventStream: (path: string) => new (jest.requireActual('../support/mock-event-stream') as typeof import('../support/mock-event-stream')).MockStream(path),
 }));
 
 // Triangle, unit lanes: max cut = 2 (odd cycle C3: n − 1, common practice).
