@@ -40,6 +40,12 @@ export type ProcessOutcome = 'stale' | 'finished-elsewhere' | 'claimed-elsewhere
 
 /** Cancel grace: the solver gets this long to return its best answer before its thread is stopped. */
 export const CANCEL_GRACE_MS = 800;
+/**
+ * A staged solve resumed after a cancel merges the answers its children already gave: that merge
+ * IS its best answer, so it gets longer than the plain grace (a 320-depot merge took over 800 ms
+ * on a busy machine, and the thread was stopped with no answer at all).
+ */
+export const RESUMED_CANCEL_GRACE_MS = 20_000;
 
 export function workerName(): string {
   return `${hostname()}#${process.pid}`;
@@ -142,7 +148,8 @@ export function createJobProcessor(env: ProcessorEnv) {
       }      else if (runsInStages(row.solver)) stage = { kind: 'start', startedAt, minSpread };
       const cancelKeySet = () => deps.redis.exists(cancelKey(config.RUN_QUEUE_NAME, jobId, generation)).then((n) => n === 1, () => false);
       const runInThread = async (): Promise<SlotOutcome> => {
-        const handle = slot.run(
+        const grace = stage?.kind === 'resume' ? RESUMED_CANCEL_GRACE_MS : CANCEL_GRACE_MS;
+        const started = slot.run(
           {
             stage,
             document,
@@ -154,16 +161,18 @@ export function createJobProcessor(env: ProcessorEnv) {
           },
           { hardLimitMs: hardLimitMs(Math.max(0, run.timeLimitSeconds - (Date.now() - startedAt) / 1000), config.RUN_GRACE_SECONDS), onProgress },
         );
+        // Every cancel of this thread (the flag poll here, the worker's cancel message) gets at least its grace.
+        const handle: typeof started = { ...started, cancel: (ms) => started.cancel(Math.max(ms, grace)) };
         const untrack = track(env.running, jobId, handle);
         const cancelled = cancelKeySet;
         // A spread solve resumed after a cancel: stop at once (its remaining stages then run as no-ops).
-        if (await cancelled()) handle.cancel(CANCEL_GRACE_MS);
+        if (await cancelled()) handle.cancel(grace);
         // Another job of this run may have proven an optimum (now or while this one runs).
         const readOptimum = () => deps.redis.get(optimumKey(config.RUN_QUEUE_NAME, run.id)).then((v) => { if (v !== null && Number.isFinite(Number(v))) handle.setKnownOptimum(Number(v)); }, () => {});
         void readOptimum();
         // The pub/sub message normally arrives first; this poll covers a missed message.
         const poll = setInterval(() => {
-          void cancelled().then((yes) => { if (yes) handle.cancel(CANCEL_GRACE_MS); });
+          void cancelled().then((yes) => { if (yes) handle.cancel(grace); });
           void readOptimum();
         }, 500);
         return handle.outcome.finally(() => {
