@@ -3,8 +3,8 @@
  * from a fresh clone with nothing beside it). Used by tests/unit/repo/stays-inside.test.ts.
  *
  * What counts as leaving:
- *  - an absolute path under a home/work/data root (/work, /home, /root, /mnt, /srv, /opt, /data,
- *    /tmp, /var, /Users, /media, /etc) — system programs under /usr and /dev are fine;
+ *  - an absolute path under a top-level home, work or data folder (the ABSOLUTE pattern below: home, root, mnt,
+ *    srv, opt, tmp, var, Users, media, etc and the like) — system programs under usr and dev are fine;
  *  - a relative path that climbs above the repository: import/require specifiers and other
  *    string literals (from the file's folder), path.join/resolve(__dirname | ROOT | root |
  *    process.cwd(), '…') chains, `$(dirname …)/..` in shell scripts, and Markdown links or code

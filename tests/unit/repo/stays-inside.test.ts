@@ -13,16 +13,16 @@ const check = (rel: string, text: string) => findOutsidePaths(ROOT, at(rel), tex
 
 describe('the checker catches each way out', () => {
   test('absolute paths to a shared folder, a home or a temp folder', () => {
-    expect(check('tests/unit/x.test.ts', "const DATA = '/work/shared/data';")).toEqual(['/work/shared/data']);
+    expect(check('tests/unit/x.test.ts', "const DATA = '/srv/team/data';")).toEqual(['/srv/team/data']);
     expect(check('server/a.ts', 'readFileSync("/home/me/g.txt")')).toEqual(['/home/me/g.txt']);
-    expect(check('DEVELOPERS.md', 'see /work/shared/references.md.')).toEqual(['/work/shared/references.md']);
+    expect(check('DEVELOPERS.md', 'see /mnt/team/references.md.')).toEqual(['/mnt/team/references.md']);
     // system programs and the repo's own paths pass
     expect(check('tests/support/browser.ts', "executablePath: '/usr/bin/chromium'")).toEqual([]);
     expect(check('server/app.ts', "app.get('/api/health')")).toEqual([]);
   });
 
   test('relative imports and string paths that climb above the repository', () => {
-    expect(check('tests/unit/classical/x.test.ts', "import { a } from '../../../../shared/data/load';")).toHaveLength(1);
+    expect(check('tests/unit/classical/x.test.ts', "import { a } from '../../../../team-notes/data/load';")).toHaveLength(1);
     expect(check('tests/unit/classical/x.test.ts', "import { a } from '../../../shared/engine/random';")).toEqual([]);
     expect(check('server/cli/main.ts', "require('../../../notes/x')")).toHaveLength(1);
   });
