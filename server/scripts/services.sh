@@ -44,6 +44,7 @@ ensure_debian_packages() {
   [ ${#missing[@]} -eq 0 ] && return 0
   say "installing Debian packages: ${missing[*]}"
   if [ "$(id -u)" != 0 ]; then fail "missing ${missing[*]}; run as root or: sudo apt-get install -y ${missing[*]}"; fi
+  mkdir -p "$ROOT/.data"
   { apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "${missing[@]}"; } >"$ROOT/.data/apt.log" 2>&1 \
     || fail "could not install ${missing[*]} (see .data/apt.log); check the Debian package mirror and run again"
 }
