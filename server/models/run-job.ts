@@ -27,6 +27,10 @@ export interface RunJobRow {
   finishedAt: Date | null;
   /** JSON of the checked RunResult (value, assignment, bound, gap, trace, samples …). */
   result: string | null;
+  /** The result's value, feasibility and proof as columns (services/runs/answer-columns.ts); null without a result. */
+  answerValue: number | null;
+  answerFeasible: boolean | null;
+  answerProven: boolean | null;
   error: string | null;
   createdAt: Date;
   updatedAt: Date;
@@ -54,6 +58,9 @@ export function defineRunJob(db: Sequelize): RunJobModel {
       startedAt: { type: DataTypes.DATE, allowNull: true },
       finishedAt: { type: DataTypes.DATE, allowNull: true },
       result: { type: DataTypes.TEXT('long'), allowNull: true },
+      answerValue: { type: DataTypes.DOUBLE, allowNull: true },
+      answerFeasible: { type: DataTypes.BOOLEAN, allowNull: true },
+      answerProven: { type: DataTypes.BOOLEAN, allowNull: true },
       error: { type: DataTypes.TEXT, allowNull: true },
     },
     { tableName: 'run_jobs', underscored: true },

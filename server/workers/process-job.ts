@@ -15,6 +15,7 @@ import type { RunResult } from '../../shared/engine/solvers/orchestrate';
 import { runsInStages } from '../../shared/engine/solvers/orchestrate';
 import { INTERNAL_ERROR, type StageRequest } from './solve-task';
 import type { SlotOutcome, ThreadSlot } from './thread-slot';
+import { answerColumnsOf } from '../services/runs/answer-columns';
 import {
   processSpreadChild, spreadStage, track, waitOrCollect, SPREAD_CHILD,
   type ChildData, type ChildEnv, type ChildValue, type ParentData, type RunningJobs, type SpreadData,
@@ -209,7 +210,7 @@ export function createJobProcessor(env: ProcessorEnv) {
       if (outcome.kind === 'done') {
         status = outcome.cancelled ? 'cancelled' : 'succeeded';
         const result = spread ? withSpreadReport(outcome.result, spread) : outcome.result;
-        fields = { status, result: JSON.stringify(result), progress: 1, error: outcome.cancelled ? 'cancelled; the best answer found until then is kept' : null };
+        fields = { status, result: JSON.stringify(result), ...answerColumnsOf(result), progress: 1, error: outcome.cancelled ? 'cancelled; the best answer found until then is kept' : null };
       } else if (outcome.kind === 'error') {
         status = 'failed';
         fields = { status, error: outcome.message };

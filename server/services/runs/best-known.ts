@@ -5,7 +5,7 @@
  * values a proven-optimal answer, then the earliest run, is named. It is what the team has seen,
  * not a certified optimum (unless `provenOptimal`): the app says so beside it.
  */
-import { Op, col, fn, literal } from 'sequelize';
+import { Op } from 'sequelize';
 import { better, senseOf } from '../../../shared/engine/problem/compare';
 import type { BestKnownView, ProblemInput } from '../../../shared/schemas/runs';
 import type { Deps } from '../../deps';
@@ -14,12 +14,6 @@ import type { Deps } from '../../deps';
 export function questionKey(p: ProblemInput): string {
   const pins = Object.entries(p.pins ?? {}).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
   return JSON.stringify([p.kind, p.kind === 'kway' ? p.k ?? null : null, p.kind === 'maxcut' ? null : p.tolerance ?? null, pins]);
-}
-
-/** The top-level `value` of a stored result from its first characters (`{"solver":…,"sense":…,"value":12.5,…`). */
-export function valueOf(head: string | null): number | null {
-  const m = head ? /^\{"solver":"[^"]*","sense":"(?:max|min)","value":(-?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?)[,}]/.exec(head) : null;
-  return m ? Number(m[1]) : null;
 }
 
 const parse = (text: string | null): ProblemInput | null => {
@@ -35,22 +29,17 @@ export async function bestKnownFor(deps: Pick<Deps, 'models'>, organisationId: n
   const key = questionKey(problem);
   const ids = runs.filter((r) => { const q = parse(r.problem); return q !== null && questionKey(q) === key; }).map((r) => r.id);
   if (ids.length === 0) return null;
-  // Only the few fields ranked, found by the database in the stored text (results hold whole
-  // assignments, so they are not parsed here): the orchestrator writes `value` third, after the
-  // solver name and the sense; `infeasible` / `provenOptimal` are top-level keys no nested object
-  // uses. (MariaDB 10.11's JSON_VALUE answered NULL on these documents, so it is not used.)
   const rows = (await deps.models.RunJob.findAll({
-    where: { organisationId, runId: { [Op.in]: ids }, status: 'succeeded' },
-    attributes: ['runId', 'solver', [fn('LEFT', col('result'), 240), 'head'], [literal(`LOCATE('"infeasible":true', result) > 0`), 'infeasible'], [literal(`LOCATE('"provenOptimal":true', result) > 0`), 'proven']],
+    where: { organisationId, runId: { [Op.in]: ids }, status: 'succeeded', answerValue: { [Op.ne]: null }, answerFeasible: true },
+    attributes: ['runId', 'solver', 'answerValue', 'answerProven'],
     order: [['runId', 'ASC'], ['position', 'ASC']],
     raw: true,
-  })) as unknown as Array<{ runId: number; solver: string; head: string | null; infeasible: number | string | null; proven: number | string | null }>;
+  })) as unknown as Array<{ runId: number; solver: string; answerValue: number; answerProven: boolean | number }>;
   const sense = senseOf(problem.kind);
   let best: BestKnownView | null = null;
   for (const r of rows) {
-    const value = valueOf(r.head);
-    if (value === null || Number(r.infeasible) === 1) continue;
-    const proven = Number(r.proven) === 1;
+    const value = Number(r.answerValue);
+    const proven = Boolean(Number(r.answerProven));
     const candidate = { value, runId: r.runId, solver: r.solver, provenOptimal: proven, runsCompared: ids.length };
     const rank = (v: number) => ({ value: v, feasible: true });
     const equal = best !== null && !better(sense, rank(value), rank(best.value)) && !better(sense, rank(best.value), rank(value));

@@ -4,6 +4,7 @@ import type { RunJobRow } from '../../models/run-job';
 import { assertQueueUp, enqueueJobs, removeEntries, removeWaitingChildren, requestCancel, type SolveJobData } from '../queue';
 import { refreshRunStatus } from '../runs-status';
 import { findRun, getRun, type RunServiceDeps } from './read';
+import { NO_ANSWER } from './answer-columns';
 
 /** Controlling runs that exist: cancel, retry (a refunded run waits for a new payment), delete. */
 
@@ -49,7 +50,7 @@ export async function retryRun(deps: RunServiceDeps, organisationId: number, id:
     const entries: SolveJobData[] = [];
     for (const j of jobs) {
       const [changed] = await deps.models.RunJob.update(
-        { status: 'queued', generation: j.generation + 1, progress: 0, live: null, result: null, error: null, startedAt: null, finishedAt: null, queuedAt: new Date(), worker: null },
+        { status: 'queued', generation: j.generation + 1, progress: 0, live: null, result: null, ...NO_ANSWER, error: null, startedAt: null, finishedAt: null, queuedAt: new Date(), worker: null },
         { where: { id: j.id, status: j.status, generation: j.generation }, transaction },
       );
       if (changed) entries.push({ jobId: j.id, runId: id, organisationId, generation: j.generation + 1 });
