@@ -4,30 +4,15 @@
  * first 240 characters of the stored text for `value`, so a result written with its keys in
  * another order (or an older one) was silently left out of the ranking.
  */
-import request from 'supertest';
-import { createTestApp, orgWithTokens, networkBody, saveNetwork, type TestApp } from './runs-support';
+import { appWithoutWorker, runOfFourJobs } from './runs-support';
 import { backfillAnswerColumns } from '../../server/migrations/20261202-0700-job-answer-columns';
 import { bestKnownFor } from '../../server/services/runs/best-known';
 
-let t: TestApp;
-beforeAll(async () => {
-  process.env.RUN_QUEUE_NAME = `best-known-columns-${Date.now().toString(36)}`; // no worker takes these jobs
-  process.env.LOG_LEVEL = 'silent';
-  t = await createTestApp();
-});
-afterAll(async () => {
-  const { closeSolveQueue } = await import('../../server/services/queue');
-  if (t) await closeSolveQueue(t.deps);
-  await t?.close();
-});
+const app = appWithoutWorker('best-known-columns');
 
 test('stored results of any key order are backfilled into the columns and ranked; infeasible and unparsable ones are not', async () => {
-  const org = await orgWithTokens(t.deps, 'Answer columns yard', 'team');
-  const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Answer columns', 4, [[0, 1, 1], [1, 2, 1], [2, 3, 1]]));
-  const created = await request(t.app).post('/api/runs').set('Authorization', `Bearer ${org.tokens.dispatcher}`)
-    .send({ versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }, { solver: 'tabu' }, { solver: 'anneal' }, { solver: 'exact' }] });
-  expect(created.status).toBe(201);
-  const jobs = (await t.deps.models.RunJob.findAll({ where: { runId: created.body.id }, order: [['position', 'ASC']] })).map((j) => j.get('id') as number);
+  const t = app();
+  const { org, net, jobs } = await runOfFourJobs(t, 'Answer columns');
   const padding = 'x'.repeat(400); // pushes `value` past the first 240 characters
   const stored = [
     JSON.stringify({ solver: 'greedy', sense: 'max', value: 2, assignment: [0, 1, 0, 0] }),

@@ -2,29 +2,14 @@
  * Job errors stored before faults were kept to the worker's log still showed server file paths to
  * every member; the 20261202-0600 migration rewrites them and leaves input-problem errors alone.
  */
-import request from 'supertest';
-import { createTestApp, orgWithTokens, networkBody, saveNetwork, type TestApp } from './runs-support';
+import { appWithoutWorker, runOfFourJobs } from './runs-support';
 import { up } from '../../server/migrations/20261202-0600-job-errors-without-paths';
 
-let t: TestApp;
-beforeAll(async () => {
-  process.env.RUN_QUEUE_NAME = `job-error-migration-${Date.now().toString(36)}`; // no worker takes these jobs
-  process.env.LOG_LEVEL = 'silent';
-  t = await createTestApp();
-});
-afterAll(async () => {
-  const { closeSolveQueue } = await import('../../server/services/queue');
-  if (t) await closeSolveQueue(t.deps);
-  await t?.close();
-});
+const app = appWithoutWorker('job-error-migration');
 
 test('old fault texts with paths become the sentence used now; other errors stay', async () => {
-  const org = await orgWithTokens(t.deps, 'Old errors yard', 'team');
-  const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody('Old errors', 4, [[0, 1, 1], [1, 2, 1], [2, 3, 1]]));
-  const created = await request(t.app).post('/api/runs').set('Authorization', `Bearer ${org.tokens.dispatcher}`)
-    .send({ versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }, { solver: 'tabu' }, { solver: 'anneal' }, { solver: 'exact' }] });
-  expect(created.status).toBe(201);
-  const jobs = (await t.deps.models.RunJob.findAll({ where: { runId: created.body.id }, order: [['position', 'ASC']] })).map((j) => j.get('id') as number);
+  const t = app();
+  const { jobs } = await runOfFourJobs(t, 'Old errors');
   const old = [
     "internal error in the solver: Cannot find module '/srv/spinyard/shared/engine/classical/threads/pool' imported from /srv/spinyard/shared/engine/solvers/classical.ts",
     'the solver thread crashed: TypeError: x is undefined\n    at run (/srv/spinyard/server/workers/solve-thread.ts:30:5)',

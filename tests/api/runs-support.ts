@@ -158,3 +158,33 @@ export async function waitFor<T>(what: string, probe: () => Promise<T | null | u
 }
 
 export { createTestApp, type TestApp };
+
+/**
+ * For suites that only look at stored rows: an app whose queue no worker serves (jobs stay
+ * queued), with the hooks that open and close it. Call at the top level of a test file.
+ */
+export function appWithoutWorker(queue: string): () => TestApp {
+  let t: TestApp | undefined;
+  beforeAll(async () => {
+    process.env.RUN_QUEUE_NAME = `${queue}-${uniqueTag()}`;
+    process.env.LOG_LEVEL = 'silent';
+    t = await createTestApp();
+  });
+  afterAll(async () => {
+    const { closeSolveQueue } = await import('../../server/services/queue');
+    if (t) await closeSolveQueue(t.deps);
+    await t?.close();
+  });
+  return () => t!;
+}
+
+/** A 4-depot path network and a run of four solver jobs on it (greedy, tabu, anneal, exact). */
+export async function runOfFourJobs(t: TestApp, label: string) {
+  const org = await orgWithTokens(t.deps, `${label} yard`, 'team');
+  const net = await saveNetwork(t.app, org.tokens.dispatcher, networkBody(label, 4, [[0, 1, 1], [1, 2, 1], [2, 3, 1]]));
+  const created = await request(t.app).post('/api/runs').set('Authorization', `Bearer ${org.tokens.dispatcher}`)
+    .send({ versionId: net.versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'greedy' }, { solver: 'tabu' }, { solver: 'anneal' }, { solver: 'exact' }] });
+  if (created.status !== 201) throw new Error(`run not created: ${created.status} ${JSON.stringify(created.body)}`);
+  const jobs = (await t.deps.models.RunJob.findAll({ where: { runId: created.body.id }, order: [['position', 'ASC']] })).map((j) => j.get('id') as number);
+  return { org, net, runId: created.body.id as number, jobs };
+}
