@@ -50,5 +50,12 @@ export const type = {
 
 /** Wide layout (side rail, tables) from this window width up. */
 export const WIDE_BREAKPOINT = 1024;
+/**
+ * The keyboard focus mark of every pressable control: an outline, which takes no room, so taking
+ * focus never moves anything (a thicker border once re-wrapped a row of tabs between a tap's
+ * press and release, and the tap was lost).
+ */
+export const focusRing = { outlineColor: colors.focus, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: 1 } as const;
+
 /** Smallest touch target (WCAG 2.5.5 / common practice). */
 export const TOUCH = 44;

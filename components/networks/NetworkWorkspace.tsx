@@ -5,7 +5,7 @@ import { summariseNetwork } from '../../shared/networks/summary';
 import { NetworkEditor } from '../drawing/NetworkEditor';
 import { draftFromDocument, emptySelection, setLaneWeight, toDocument, type Selection } from '../drawing/draft';
 import { useDraftHistory } from '../drawing/useDraftHistory';
-import { colors, radius, space, WIDE_BREAKPOINT } from '../theme';
+import { colors, space, WIDE_BREAKPOINT } from '../theme';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
@@ -13,6 +13,7 @@ import { Small } from '../ui/Text';
 import { DepotsTable } from './DepotsTable';
 import { LanesTable } from './LanesTable';
 import { SummaryBar } from './SummaryBar';
+import { WorkspaceTabs } from './WorkspaceTabs';
 
 type Tab = 'drawing' | 'depots' | 'lanes' | 'versions';
 
@@ -80,17 +81,13 @@ export function NetworkWorkspace(props: {
   const lanes = <LanesTable lanes={draft.lanes} selected={selection.lanes} onSelect={selectLane} onWeightChange={changeWeight} readOnly={props.readOnly} />;
   const tabs: Tab[] = wide ? ['depots', 'lanes', ...(props.versions ? (['versions'] as Tab[]) : [])] : ['drawing', 'depots', 'lanes', ...(props.versions ? (['versions'] as Tab[]) : [])];
   const current = wide && tab === 'drawing' ? 'depots' : tab;
-  const label = (t: Tab) => (t === 'drawing' ? 'Drawing' : t === 'depots' ? `Depots (${draft.depots.length})` : t === 'lanes' ? `Lanes (${draft.lanes.length})` : 'Versions');
-  const tabRow = (
-    <View style={styles.tabs} accessibilityRole="tablist">
-      {tabs.map((t) => (
-        <Button key={t} label={label(t)} accessibilityRole="tab" selected={current === t} tone={current === t ? 'primary' : 'quiet'} onPress={() => setTab(t)} testID={`tab-${t}`} style={styles.tab} />
-      ))}
-    </View>
+  const tabBar = (
+    <WorkspaceTabs
+      tabs={tabs.map((t) => (t === 'drawing' ? { key: t, name: 'Drawing' } : t === 'depots' ? { key: t, name: 'Depots', count: draft.depots.length } : t === 'lanes' ? { key: t, name: 'Lanes', count: draft.lanes.length } : { key: t, name: 'Versions' }))}
+      current={current}
+      onChange={(t) => setTab(t as Tab)}
+    />
   );
-  // Phones: the tabs wrap onto a second line when the counts get long rather than scrolling a
-  // fourth tab out of sight (nothing showed it was there).
-  const tabBar = tabRow;
   const panel = current === 'drawing' ? editor : current === 'depots' ? depots : current === 'lanes' ? lanes : props.versions;
 
   return (
@@ -124,8 +121,6 @@ export function NetworkWorkspace(props: {
 
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
-  tabs: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs, padding: 2, borderRadius: radius.md, backgroundColor: colors.surfaceSunk, alignSelf: 'flex-start' },
-  tab: { paddingHorizontal: space.sm },
   columns: { flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' },
   left: { flex: 3, minWidth: 0 },
   right: { flex: 2, minWidth: 0 },

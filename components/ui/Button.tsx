@@ -1,5 +1,5 @@
 import { ActivityIndicator, Pressable, StyleSheet, Text, type StyleProp, type ViewStyle } from 'react-native';
-import { colors, fonts, radius, space, TOUCH } from '../theme';
+import { colors, focusRing, fonts, radius, space, TOUCH } from '../theme';
 
 export type ButtonTone = 'primary' | 'secondary' | 'danger' | 'quiet';
 
@@ -12,18 +12,15 @@ export function Button(props: {
   style?: StyleProp<ViewStyle>;
   testID?: string;
   accessibilityHint?: string;
-  /** 'tab' for a tab of a tablist (then `selected` says which one shows). */
-  accessibilityRole?: 'button' | 'tab';
-  selected?: boolean;
 }) {
   const tone = props.tone ?? 'primary';
   const inactive = props.disabled || props.busy;
   return (
     <Pressable
-      accessibilityRole={props.accessibilityRole ?? 'button'}
+      accessibilityRole="button"
       accessibilityLabel={props.label}
       accessibilityHint={props.accessibilityHint}
-      accessibilityState={props.accessibilityRole === 'tab' ? { disabled: !!inactive, selected: !!props.selected } : { disabled: !!inactive, busy: !!props.busy }}
+      accessibilityState={{ disabled: !!inactive, busy: !!props.busy }}
       disabled={inactive}
       onPress={props.onPress}
       testID={props.testID}
@@ -52,7 +49,7 @@ const styles = StyleSheet.create({
   dangerActive: { opacity: 0.9 },
   quiet: { backgroundColor: 'transparent' },
   quietActive: { backgroundColor: colors.surfaceSunk },
-  focused: { borderColor: colors.focus, borderWidth: 2 },
+  focused: focusRing,
   inactive: { opacity: 0.55 },
   label: { fontFamily: fonts.semibold, fontSize: 15 },
   labelOnDark: { color: colors.onInk },

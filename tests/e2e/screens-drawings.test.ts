@@ -170,6 +170,56 @@ describe.each([
         expect({ tab, reachable: hit }).toEqual({ tab, reachable: true });
       }
     });
+    // A tap (phone) or click (wide) on each tab shows its panel; a wrapped second row once took
+    // focus without switching. On phones the four tabs share one row.
+    const panels: [string, string][] = [
+      ...(touch ? ([['tab-drawing', 'drawing-canvas']] as [string, string][]) : []),
+      ['tab-lanes', 'lanes-table'],
+      ['tab-versions', 'versions-panel'],
+      ['tab-depots', 'depots-table'],
+    ];
+    // Root cause of the lost tap: taking focus thickened the border, the row re-wrapped between
+    // press and release, and the release landed outside the tab.
+    await c.check('focus moves no tab or button', async () => {
+      const controls = page.getByTestId('network-screen').locator('[role="tab"], [role="button"]');
+      // Positions within the scrolled page content, so a focus that scrolls the page is no move.
+      const boxes = async () =>
+        controls.evaluateAll((els) => {
+          const origin = document.querySelector('[data-testid="network-screen"]')!.firstElementChild!.getBoundingClientRect();
+          return els.map((e) => {
+            const r = e.getBoundingClientRect();
+            return `${Math.round(r.x - origin.x)},${Math.round(r.y - origin.y)} ${Math.round(r.width)}x${Math.round(r.height)}`;
+          });
+        });
+      const before = await boxes();
+      const moved: string[] = [];
+      for (let i = 0; i < Math.min(before.length, 12); i++) {
+        await controls.nth(i).focus();
+        const after = await boxes();
+        if (after.join('|') !== before.join('|')) moved.push(`focus on ${(await controls.nth(i).getAttribute('aria-label')) ?? i} moved ${after.filter((x, j) => x !== before[j]).length} controls`);
+      }
+      await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
+      expect(moved).toEqual([]);
+    });
+    if (touch) {
+      await c.check('tabs: all four on one row', async () => {
+        const tops = await Promise.all(panels.map(async ([tab]) => Math.round((await page.getByTestId(tab).boundingBox())!.y)));
+        expect(new Set(tops).size).toBe(1);
+      });
+    }
+    await c.check('tabs: a tap on each shows its panel and marks the tab selected', async () => {
+      const shown: Record<string, string> = {};
+      for (const [tab, panel] of [...panels.slice(1), panels[0]]) {
+        await page.getByTestId(tab).scrollIntoViewIfNeeded();
+        const b = (await page.getByTestId(tab).boundingBox())!;
+        if (touch) await page.touchscreen.tap(b.x + b.width / 2, b.y + b.height / 2);
+        else await page.mouse.click(b.x + b.width / 2, b.y + b.height / 2);
+        const visible = await page.getByTestId(panel).first().waitFor({ timeout: 3000 }).then(() => 'panel', () => 'no panel');
+        shown[tab] = `${visible}, aria-selected=${await page.getByTestId(tab).getAttribute('aria-selected')}`;
+      }
+      await screenshot(page, `screens-drawing-tabs-tapped-${label}`);
+      expect(shown).toEqual(Object.fromEntries(panels.map(([t]) => [t, 'panel, aria-selected=true'])));
+    });
     expect(c.failed).toEqual({});
     expect(errors).toEqual([]);
   });

@@ -114,11 +114,7 @@ describe.each([
     expect(c.failed).toEqual({});
   });
 
-  // Known open fault (phone, found 2 Dec 08:07): tapping "Versions" on the wrapped second row of
-  // the workspace tabs focuses the tab without switching to it, so this test cannot reach the
-  // versions list on a phone. Marked failing so the suite stays green and flips red once fixed:
-  // then make it a plain test again.
-  (touch ? test.failing : test)('dates: one style on networks, versions, runs, team, audit and billing', async () => {
+  test('dates: one style on networks, versions, runs, team, audit and billing', async () => {
     const page = await signInAs(context, server.url, org.users.owner);
     page.setDefaultTimeout(15_000);
     const found: Record<string, string[]> = {};
