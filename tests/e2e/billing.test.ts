@@ -11,7 +11,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, screenshot, watchPageErrors } from '../support/browser';
 import { startTestServer } from '../support/server';
-import { applyTestEnv } from '../support/env';
+import { useOwnDatabase } from '../support/own-database';
 import { startWorkerProcess } from '../support/worker-process';
 import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail/mail-catcher';
 import { startPaymentFake, type PaymentFake } from '../../server/fakes/payments/payment-fake';
@@ -31,30 +31,14 @@ let mail: MailCatcher;
 let org: OrgWithRoles;
 let net: { id: number; versionId: number };
 
-/** This file's own database and Redis index (api suites recreate spinyard_test when they start). */
-async function isolate() {
-  applyTestEnv();
-  Object.assign(process.env, {
-    DB_NAME: 'spinyard_e2e_billing',
-    REDIS_URL: 'redis://127.0.0.1:6391/8',
+beforeAll(async () => {
+  await useOwnDatabase('billing', {
     RUN_QUEUE_NAME: `billing-e2e-${Date.now().toString(36)}`,
     SMTP_PORT: String(SMTP_PORT),
     STRIPE_API_PORT: String(PAYMENTS_PORT),
     STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
     RUN_MAIL_AFTER_SECONDS: '3600',
   });
-  const { loadConfig } = await import('../../server/config');
-  const { createDatabase } = await import('../../server/db');
-  const admin = createDatabase({ ...loadConfig(), DB_NAME: 'mysql' });
-  try {
-    await admin.query('CREATE DATABASE IF NOT EXISTS `spinyard_e2e_billing` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci');
-  } finally {
-    await admin.close();
-  }
-}
-
-beforeAll(async () => {
-  await isolate();
   mail = await startMailCatcher({ smtpPort: SMTP_PORT });
   fake = await startPaymentFake({ port: PAYMENTS_PORT, webhookUrl: `http://127.0.0.1:${APP_PORT}/api/billing/webhook`, webhookSecret: WEBHOOK_SECRET });
   server = await startTestServer(APP_PORT);

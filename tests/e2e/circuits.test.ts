@@ -12,7 +12,7 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, watchPageErrors } from '../support/browser';
 import { startTestServer } from '../support/server';
-import { applyTestEnv } from '../support/env';
+import { useOwnDatabase } from '../support/own-database';
 import { startWorkerProcess } from '../support/worker-process';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
@@ -22,23 +22,8 @@ let password = '';
 const ANALYST = 'analyst@quillmere.example';
 const SHOTS = path.resolve(__dirname, '..', '..', '.data', 'screenshots');
 
-/** A database and Redis index of this file's own (as tests/e2e/runs.test.ts, for the same reasons). */
-async function isolate() {
-  applyTestEnv();
-  process.env.DB_NAME = 'spinyard_e2e_circuits';
-  process.env.REDIS_URL = 'redis://127.0.0.1:6391/9';
-  const { loadConfig } = await import('../../server/config');
-  const { createDatabase } = await import('../../server/db');
-  const admin = createDatabase({ ...loadConfig(), DB_NAME: 'mysql' });
-  try {
-    await admin.query('CREATE DATABASE IF NOT EXISTS `spinyard_e2e_circuits` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci');
-  } finally {
-    await admin.close();
-  }
-}
-
 beforeAll(async () => {
-  await isolate();
+  await useOwnDatabase('circuits');
   server = await startTestServer(3193);
   worker = startWorkerProcess();
   const { ensureDemoOrganisation, DEMO_PASSWORD } = await import('../../server/services/seed-demo');

@@ -10,7 +10,7 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, screenshot, watchPageErrors } from '../support/browser';
 import { startTestServer } from '../support/server';
-import { applyTestEnv } from '../support/env';
+import { useOwnDatabase } from '../support/own-database';
 import { startWorkerProcess } from '../support/worker-process';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
@@ -21,21 +21,6 @@ let password = '';
 const ANALYST = 'analyst@quillmere.example';
 const SHOTS = path.resolve(__dirname, '..', '..', '.data');
 const DEPOTS = 300;
-
-/** Own database and Redis index (api suites reset the shared ones; see tests/e2e/runs.test.ts). */
-async function isolate() {
-  applyTestEnv();
-  process.env.DB_NAME = 'spinyard_e2e_large';
-  process.env.REDIS_URL = 'redis://127.0.0.1:6391/11';
-  const { loadConfig } = await import('../../server/config');
-  const { createDatabase } = await import('../../server/db');
-  const admin = createDatabase({ ...loadConfig(), DB_NAME: 'mysql' });
-  try {
-    await admin.query('CREATE DATABASE IF NOT EXISTS `spinyard_e2e_large` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci');
-  } finally {
-    await admin.close();
-  }
-}
 
 /** 20 × 15 depots of the Quillmere Valley on a jittered grid, lanes to the right and below (weights 1–9), seeded. */
 function valley() {
@@ -52,7 +37,7 @@ function valley() {
 }
 
 beforeAll(async () => {
-  await isolate();
+  await useOwnDatabase('large');
   server = await startTestServer(3214);
   worker = startWorkerProcess();
   const { ensureDemoOrganisation, DEMO_PASSWORD } = await import('../../server/services/seed-demo');

@@ -9,7 +9,7 @@ import Papa from 'papaparse';
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, screenshot, watchPageErrors } from '../support/browser';
 import { startTestServer } from '../support/server';
-import { applyTestEnv } from '../support/env';
+import { useOwnDatabase } from '../support/own-database';
 import { startWorkerProcess } from '../support/worker-process';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
@@ -18,27 +18,8 @@ let worker: ReturnType<typeof startWorkerProcess>;
 let demo: { networkId: number; versionId: number; depots: { id: string; name?: string }[]; lanes: { from: string; to: string; weight: number }[] };
 const ANALYST = 'analyst@quillmere.example';
 
-/**
- * A database and Redis index of this file's own: api suites drop and recreate `spinyard_test`
- * when they start, and other suites' workers serve the shared queue, so a shared run could
- * lose its rows or its jobs mid-test.
- */
-async function isolate() {
-  applyTestEnv();
-  process.env.DB_NAME = 'spinyard_e2e_runs';
-  process.env.REDIS_URL = 'redis://127.0.0.1:6391/7';
-  const { loadConfig } = await import('../../server/config');
-  const { createDatabase } = await import('../../server/db');
-  const admin = createDatabase({ ...loadConfig(), DB_NAME: 'mysql' });
-  try {
-    await admin.query('CREATE DATABASE IF NOT EXISTS `spinyard_e2e_runs` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci');
-  } finally {
-    await admin.close();
-  }
-}
-
 beforeAll(async () => {
-  await isolate();
+  await useOwnDatabase('runs');
   server = await startTestServer(3190);
   worker = startWorkerProcess();
   const { ensureDemoOrganisation, DEMO_PASSWORD } = await import('../../server/services/seed-demo');

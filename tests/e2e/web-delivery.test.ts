@@ -11,7 +11,7 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, PHONE, watchPageErrors } from '../support/browser';
 import { startTestServer } from '../support/server';
-import { applyTestEnv } from '../support/env';
+import { useOwnDatabase } from '../support/own-database';
 import { startWorkerProcess } from '../support/worker-process';
 
 const ROOT = path.resolve(__dirname, '..', '..');
@@ -30,23 +30,8 @@ let versionId = 0;
 let analyst = { id: 0, email: '' };
 let password = '';
 
-/** A database and Redis index of this file's own (see runs.test.ts for why). */
-async function isolate() {
-  applyTestEnv();
-  process.env.DB_NAME = 'spinyard_e2e_web';
-  process.env.REDIS_URL = 'redis://127.0.0.1:6391/8';
-  const { loadConfig } = await import('../../server/config');
-  const { createDatabase } = await import('../../server/db');
-  const admin = createDatabase({ ...loadConfig(), DB_NAME: 'mysql' });
-  try {
-    await admin.query('CREATE DATABASE IF NOT EXISTS `spinyard_e2e_web` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci');
-  } finally {
-    await admin.close();
-  }
-}
-
 beforeAll(async () => {
-  await isolate();
+  await useOwnDatabase('web');
   server = await startTestServer(3192);
   worker = startWorkerProcess();
   const { ensureDemoOrganisation, DEMO_PASSWORD } = await import('../../server/services/seed-demo');
