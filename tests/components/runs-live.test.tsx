@@ -1,8 +1,6 @@
-import { act, render, screen, waitFor } from '@testing-library/react';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { SafeAreaProvider } from 'react-native-safe-area-context';
-import { RunView } from '../../components/runs/RunView';
+import { act, screen, waitFor } from '@testing-library/react';
 import type { RunDetail } from '../../components/runs/types';
+import { renderRunView, triangleReads, triangleRun } from '../support/triangle-run';
 
 jest.mock('expo-router', () => ({ useRouter: () => ({ push: jest.fn(), replace: jest.fn() }), useLocalSearchParams: () => ({}) }));
 
@@ -14,41 +12,16 @@ jest.mock('../../components/api/client', () => ({
   openEventStream: () => null, // no progress stream here: the screen falls back to polling (runs-stream.test.tsx has the stream)
 }));
 
-// Triangle, unit lanes: max cut = 2 (odd cycle C3: n − 1, common practice).
-const doc = { name: 'Triangle', depots: [{ id: 'A' }, { id: 'B' }, { id: 'C' }], lanes: [{ from: 'A', to: 'B', weight: 1 }, { from: 'B', to: 'C', weight: 1 }, { from: 'A', to: 'C', weight: 1 }] };
-const result = { value: 2, assignment: [0, 1, 1], bound: 2, gap: 0, energy: null, expectation: null, params: null, seconds: 0.01, evaluations: 4, shots: 0, provenOptimal: true };
-
-function runAt(step: number): RunDetail {
-  const done = step >= 2;
-  return {
-    id: 9, status: done ? 'succeeded' : 'running', problem: { kind: 'maxcut' }, networkId: 1, versionId: 5, networkName: 'Triangle', depotCount: 3, timeLimitSeconds: 10, seed: 1, createdBy: 1,
-    createdAt: new Date(Date.now() - 2000).toISOString(), releasedAt: new Date(Date.now() - 2000).toISOString(), finishedAt: done ? new Date().toISOString() : null,
-    jobs: [{
-      id: 1, position: 0, solver: 'exact', label: 'Exact enumeration', family: 'exact', settings: {}, attempt: 1,
-      status: done ? 'succeeded' : 'running', progress: done ? 1 : step * 0.4, live: done ? null : { fraction: step * 0.4, bestValue: 1 },
-      queuedAt: null, startedAt: new Date(Date.now() - 1500).toISOString(), finishedAt: done ? new Date().toISOString() : null,
-      result: done ? result : null, error: null,
-    }],
-  };
-}
+const runAt = (step: number) => (step >= 2 ? triangleRun('succeeded', 1) : triangleRun('running', step * 0.4));
 
 test('without a progress stream the run screen polls about every second while a job runs, shows progress, cancels, and stops polling when done', async () => {
   let step = 0;
   const runCalls = () => mockGet.mock.calls.filter(([p]) => p === '/runs/9').length;
   mockGet.mockImplementation(async (path: string) => {
     if (path === '/runs/9') return runAt(step++);
-    if (path === '/solvers') return { solvers: [{ name: 'exact', label: 'Exact enumeration', family: 'exact', kinds: ['maxcut'], guarantee: '' }] };
-    if (path === '/networks/1/versions/5') return { id: 5, number: 3, document: doc };
-    throw new Error(`unexpected ${path}`);
+    return triangleReads(path);
   });
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  render(
-    <SafeAreaProvider initialMetrics={{ frame: { x: 0, y: 0, width: 390, height: 844 }, insets: { top: 0, left: 0, right: 0, bottom: 0 } }}>
-      <QueryClientProvider client={client}>
-        <RunView id={9} role="dispatcher" />
-      </QueryClientProvider>
-    </SafeAreaProvider>,
-  );
+  const client = renderRunView(9);
   await screen.findByTestId('cancel-run');
   expect(screen.getByTestId('percent-exact').textContent).toBe('0 %');
   act(() => screen.getByTestId('cancel-run').click());
@@ -76,19 +49,9 @@ test('a paid run\'s time counts from its payment (release to the queue), not fro
   };
   mockGet.mockImplementation(async (path: string) => {
     if (path === '/runs/10') return paid;
-    if (path === '/solvers') return { solvers: [] };
-    if (path === '/networks/1/versions/5') return { id: 5, number: 3, document: doc };
-    if (path.startsWith('/billing/runs/')) return null;
-    throw new Error(`unexpected ${path}`);
+    return triangleReads(path);
   });
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  render(
-    <SafeAreaProvider initialMetrics={{ frame: { x: 0, y: 0, width: 390, height: 844 }, insets: { top: 0, left: 0, right: 0, bottom: 0 } }}>
-      <QueryClientProvider client={client}>
-        <RunView id={10} role="dispatcher" />
-      </QueryClientProvider>
-    </SafeAreaProvider>,
-  );
+  const client = renderRunView(10);
   await waitFor(() => expect(screen.getByTestId('run-elapsed').textContent).toBe('Took 5.00 s'));
   client.clear();
 });

@@ -1,9 +1,7 @@
-import { act, render, screen, waitFor } from '@testing-library/react';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { SafeAreaProvider } from 'react-native-safe-area-context';
-import { RunView } from '../../components/runs/RunView';
+import { act, screen, waitFor } from '@testing-library/react';
 import type { RunDetail } from '../../components/runs/types';
 import { MockStream } from '../support/mock-event-stream';
+import { renderRunView, triangleReads, triangleRun } from '../support/triangle-run';
 
 jest.mock('expo-router', () => ({ useRouter: () => ({ push: jest.fn(), replace: jest.fn() }), useLocalSearchParams: () => ({}) }));
 
@@ -15,44 +13,15 @@ jest.mock('../../components/api/client', () => ({
   openEventStream: (path: string) => new (jest.requireActual('../support/mock-event-stream') as typeof import('../support/mock-event-stream')).MockStream(path),
 }));
 
-// Triangle, unit lanes: max cut = 2 (odd cycle C3: n − 1, common practice).
-const doc = { name: 'Triangle', depots: [{ id: 'A' }, { id: 'B' }, { id: 'C' }], lanes: [{ from: 'A', to: 'B', weight: 1 }, { from: 'B', to: 'C', weight: 1 }, { from: 'A', to: 'C', weight: 1 }] };
-const result = { value: 2, assignment: [0, 1, 1], bound: 2, gap: 0, energy: null, expectation: null, params: null, seconds: 0.01, evaluations: 4, shots: 0, provenOptimal: true };
-
-function runWith(status: 'running' | 'succeeded', progress: number): RunDetail {
-  const done = status === 'succeeded';
-  return {
-    id: 9, status, problem: { kind: 'maxcut' }, networkId: 1, versionId: 5, networkName: 'Triangle', depotCount: 3, timeLimitSeconds: 10, seed: 1, createdBy: 1,
-    createdAt: new Date(Date.now() - 2000).toISOString(), finishedAt: done ? new Date().toISOString() : null,
-    jobs: [{
-      id: 1, position: 0, solver: 'exact', label: 'Exact enumeration', family: 'exact', settings: {}, attempt: 1,
-      status, progress, live: done ? null : { fraction: progress, bestValue: 1 },
-      queuedAt: null, startedAt: new Date(Date.now() - 1500).toISOString(), finishedAt: done ? new Date().toISOString() : null,
-      result: done ? result : null, error: null,
-    }],
-  } as RunDetail;
-}
+const runWith = triangleRun;
 
 let serverRun: RunDetail;
 const runCalls = () => mockGet.mock.calls.filter(([p]) => p === '/runs/9').length;
 const wait = (ms: number) => act(() => new Promise((r) => setTimeout(r, ms)));
 
 function show() {
-  mockGet.mockImplementation(async (path: string) => {
-    if (path === '/runs/9') return serverRun;
-    if (path === '/solvers') return { solvers: [{ name: 'exact', label: 'Exact enumeration', family: 'exact', kinds: ['maxcut'], guarantee: '' }] };
-    if (path === '/networks/1/versions/5') return { id: 5, number: 3, document: doc };
-    throw new Error(`unexpected ${path}`);
-  });
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  render(
-    <SafeAreaProvider initialMetrics={{ frame: { x: 0, y: 0, width: 390, height: 844 }, insets: { top: 0, left: 0, right: 0, bottom: 0 } }}>
-      <QueryClientProvider client={client}>
-        <RunView id={9} role="dispatcher" />
-      </QueryClientProvider>
-    </SafeAreaProvider>,
-  );
-  return client;
+  mockGet.mockImplementation(async (path: string) => (path === '/runs/9' ? serverRun : triangleReads(path)));
+  return renderRunView(9);
 }
 
 beforeEach(() => {
