@@ -8,6 +8,7 @@ import { NetworkDrawing } from './NetworkDrawing';
 import { PromptModal } from './PromptModal';
 import { addDepot, addLane, emptySelection, laneEnds, moveDepot, nextDepotId, removeSelected, setLaneWeight, type Draft, type Selection } from './draft';
 import type { Projection } from './layout';
+import { canvasKeyAction, canvasKeysSentence } from './canvasKeys';
 import { depotAt, laneAt } from './hit';
 import type { Box } from './labels';
 import { parseVolume } from './volume';
@@ -19,7 +20,6 @@ const LANE_HIT_PX = 12;
 /** Movement below this is a tap, not a drag (px). */
 const SLOP_PX = 6;
 /** Screen px an arrow key pans the focused canvas. */
-const KEY_PAN_PX = 40;
 
 export type EditorMode = 'lanes' | 'move';
 
@@ -270,8 +270,7 @@ export function NetworkEditor(props: {
           onMouseLeave: () => setHovered(-1),
         }
       : {};
-  // Keyboard (web): the canvas is a Tab stop; arrow keys pan, + and − zoom, Enter (or Space)
-  // adds a depot at the centre of the view (the keyboard's tap on empty space).
+  // Keyboard (web): the canvas is a Tab stop; its keys are in canvasKeys.ts.
   const keyProps =
     Platform.OS === 'web'
       ? {
@@ -282,16 +281,15 @@ export function NetworkEditor(props: {
           },
           onBlur: () => setKeyFocus(false),
           onKeyDown: (e: { nativeEvent: { key: string }; preventDefault?: () => void }) => {
-            const k = e.nativeEvent.key;
-            const pan: Record<string, [number, number]> = { ArrowLeft: [KEY_PAN_PX, 0], ArrowRight: [-KEY_PAN_PX, 0], ArrowUp: [0, KEY_PAN_PX], ArrowDown: [0, -KEY_PAN_PX] };
-            if (pan[k]) setTransform((t) => panBy(t, pan[k][0], pan[k][1]));
-            else if (k === '+' || k === '=') zoomCentre(1.25);
-            else if (k === '-' || k === '−') zoomCentre(0.8);
-            else if ((k === 'Enter' || k === ' ') && !props.readOnly) {
+            const action = canvasKeyAction(e.nativeEvent.key, !!props.readOnly);
+            if (!action) return;
+            if (action.kind === 'pan') setTransform((t) => panBy(t, action.dx, action.dy));
+            else if (action.kind === 'zoom') zoomCentre(action.factor);
+            else {
               const [wx, wy] = toWorld(live.current.transform, size.width / 2, size.height / 2);
               props.onSelectionChange(emptySelection);
               setPrompt({ kind: 'depot', x: wx, y: wy });
-            } else return;
+            }
             e.preventDefault?.();
           },
         }
@@ -340,8 +338,8 @@ export function NetworkEditor(props: {
           role={props.readOnly ? 'img' : 'application'}
           accessibilityLabel={
             props.readOnly
-              ? 'Network drawing (arrow keys pan, + and − zoom)'
-              : 'Drawing canvas: tap empty space or press Enter to add a depot, drag between depots to add a lane; arrow keys pan, + and − zoom'
+              ? `Network drawing (${canvasKeysSentence(true)})`
+              : `Drawing canvas: tap empty space to add a depot, drag between depots to add a lane; ${canvasKeysSentence(false)}`
           }
           testID="drawing-canvas"
         />
@@ -375,10 +373,14 @@ export function NetworkEditor(props: {
         ) : null}
         {draft.depots.length === 0 && !props.readOnly ? (
           <View style={styles.hint} pointerEvents="none">
-            <Small style={styles.hintText}>Tap anywhere to place the first depot.</Small>
+            <Small style={styles.hintText}>{Platform.OS === 'web' ? 'Tap anywhere to place the first depot, or press Enter with the drawing focused.' : 'Tap anywhere to place the first depot.'}</Small>
           </View>
         ) : null}
       </View>
+      {keyFocus ? (
+        // Shown while the canvas has keyboard focus, under it (nothing to tap there moves).
+        <Small testID="canvas-keys">{canvasKeysSentence(!!props.readOnly)}.</Small>
+      ) : null}
       {message ? (
         <Notice tone="caution" testID="drawing-message">
           {message}

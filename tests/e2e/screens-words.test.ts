@@ -213,6 +213,9 @@ describe.each([
     }
     expect(reached).toBe(true);
     await screenshot(page, `screens-words-canvas-focus-${label}`);
+    // The keys are said on screen while the canvas has keyboard focus, Enter among them.
+    await expect(page.getByTestId('canvas-keys').textContent({ timeout: 3000 })).resolves.toMatch(/Enter or Space adds a depot.*arrow keys pan/);
+    await expect(page.getByText(/place the first depot, or press Enter/).count()).resolves.toBe(1);
     await page.keyboard.press('Enter');
     const field = page.getByLabel('Depot name');
     await field.waitFor();
