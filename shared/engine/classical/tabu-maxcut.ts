@@ -1,7 +1,8 @@
 import type { Problem } from '../problem/types';
 import type { Rng } from '../random';
 import { createElitePool } from './elite-pool';
-import { createFlipState, flipDepot } from './flip-state';
+import { createMaxcutMoves } from './maxcut-moves';
+import { RecencyList } from './recency-list';
 import type { RunControl } from './run-control';
 
 /**
@@ -20,7 +21,8 @@ import type { RunControl } from './run-control';
  * no new best for restartStagnation·n moves may restart from a random assignment.
  * Each moved depot stays tabu for a tenure drawn uniformly from [tenureMin, tenureMax]
  * (a random tenure matters a lot on the G-set, see references.md).
- * Moves scan the free depots' delta array (works for real weights, no buckets needed).
+ * Move choices come from maxcut-moves.ts (gain buckets with tabu depots kept apart for integer
+ * lanes, a scan for real ones); the recency-based jump from recency-list.ts, both O(1) per move.
  */
 export interface TabuMaxcutOptions {
   /** Jump length after a new local optimum, as a share of the free depots (L0). */
@@ -93,148 +95,41 @@ export async function tabuMaxcut(
   for (let i = 0; i < n; i++) if (problem.pins[i] < 0) freeList.push(i);
   const free = Int32Array.from(freeList);
   const f = free.length;
-  const st = createFlipState(net, start);
-  const delta = st.delta;
-  let best = st.cut;
-  let bestSide = st.side.slice();
-  let bestAt = control.elapsed();
-  if (f === 0) return { side: bestSide, cut: best, moves: 0, bestAt };
-
-  const tabuUntil = new Float64Array(n);
-  const lastMoved = new Float64Array(n);
-  let iter = 0;
   const L0 = Math.max(1, Math.round(opts.jumpShare * f));
   const Lmax = Math.max(L0 + 1, Math.round(opts.strongJumpShare * f));
   const tMin = Math.max(1, Math.min(opts.tenureMin, f - 1));
   const tMax = Math.max(tMin, Math.round(opts.tenureShare * f));
+  const wMin = Math.max(1, Math.min(opts.walkTenureMin, f - 1));
+  const bTenure = [tMin, tMax];
+  const wTenure = [wMin, Math.max(wMin, tMax)];
+  const moves = createMaxcutMoves(net, start, free, Math.max(tMax, wTenure[1]), rng);
+  let best = moves.cut();
+  let bestSide = start.slice();
+  let bestAt = control.elapsed();
+  if (f === 0) return { side: bestSide, cut: best, moves: 0, bestAt };
+  const side = moves.side;
   const eps = 1e-9;
-
-  // Integer lanes: gains live in buckets (doubly linked lists per gain value, as in FM), so
-  // the best move is found without scanning every depot. Real lanes: scan the delta array.
-  let integral = true;
-  let maxDegree = 0;
-  for (let i = 0; i < n; i++) {
-    let d = 0;
-    for (let p = net.adjStart[i]; p < net.adjStart[i + 1]; p++) {
-      d += Math.abs(net.adjWeight[p]);
-      if (!Number.isInteger(net.adjWeight[p])) integral = false;
-    }
-    maxDegree = Math.max(maxDegree, d);
-  }
-  if (maxDegree > 4e6) integral = false;
-  const D = integral ? maxDegree : 0;
-  const head = new Int32Array(integral ? 2 * D + 1 : 0).fill(-1);
-  const nxt = new Int32Array(integral ? n : 0);
-  const prv = new Int32Array(integral ? n : 0);
-  const isFree = new Uint8Array(n);
-  for (let t = 0; t < f; t++) isFree[free[t]] = 1;
-  let maxB = -1;
-  const insert = (v: number): void => {
-    const b = delta[v] + D;
-    const h = head[b];
-    nxt[v] = h;
-    prv[v] = -1;
-    if (h >= 0) prv[h] = v;
-    head[b] = v;
-    if (b > maxB) maxB = b;
-  };
-  const remove = (v: number): void => {
-    const b = delta[v] + D;
-    if (prv[v] >= 0) nxt[prv[v]] = nxt[v];
-    else head[b] = nxt[v];
-    if (nxt[v] >= 0) prv[nxt[v]] = prv[v];
-  };
-  if (integral) for (let t = 0; t < f; t++) insert(free[t]);
-  const side = st.side;
-  const flipBucketed = (v: number): void => {
-    const sv = side[v];
-    st.cut += delta[v];
-    for (let p = net.adjStart[v]; p < net.adjStart[v + 1]; p++) {
-      const j = net.adjIndex[p], w2 = 2 * net.adjWeight[p];
-      if (isFree[j]) {
-        remove(j);
-        delta[j] += side[j] === sv ? -w2 : w2;
-        insert(j);
-      } else delta[j] += side[j] === sv ? -w2 : w2;
-    }
-    remove(v);
-    delta[v] = -delta[v];
-    insert(v);
-    side[v] = (1 - sv) as 0 | 1;
-  };
-  const flip = integral ? flipBucketed : (v: number) => flipDepot(net, st, v);
+  const recency = new RecencyList(n, free);
+  let iter = 0;
+  const flip = (v: number): void => moves.flip(v);
 
   let tMinNow = tMin, tMaxNow = tMax;
   const move = (v: number): void => {
-    flip(v);
+    moves.flip(v);
     iter++;
-    lastMoved[v] = iter;
-    tabuUntil[v] = iter + tMinNow + rng.int(tMaxNow - tMinNow + 1);
+    moves.release(iter);
+    recency.touch(v);
+    moves.hold(v, iter + tMinNow + rng.int(tMaxNow - tMinNow + 1));
   };
-  const topBucket = (): number => {
-    while (maxB >= 0 && head[maxB] < 0) maxB--;
-    return maxB;
+  const ascend = (): void => {
+    // Descent moves count as recent too (tabu for the next jump).
+    for (let v = moves.ascent(); v >= 0; v = moves.ascent()) move(v);
   };
-  const ascendScan = (): void => {
-    for (;;) {
-      let bv = -1, bd = eps, ties = 0;
-      for (let t = 0; t < f; t++) {
-        const v = free[t];
-        const d = delta[v];
-        if (d > bd + eps) { bd = d; bv = v; ties = 1; }
-        else if (bv >= 0 && d > bd - eps && rng.int(++ties) === 0) bv = v;
-      }
-      if (bv < 0) return;
-      move(bv); // descent moves count as recent too (tabu for the next jump)
-    }
+  const directedMove = (): void => {
+    const v = moves.directed(best);
+    move(v >= 0 ? v : free[rng.int(f)]);
   };
-  const ascendBucketed = (): void => {
-    for (;;) {
-      const b = topBucket();
-      if (b - D <= 0) return;
-      // Random tie-break among the first few of the bucket: with ±1 lanes many depots share a
-      // gain, and always taking the list head sends every descent down the same path.
-      let pick = head[b], count = 1;
-      for (let v = nxt[pick]; v >= 0 && count < 4; v = nxt[v]) if (rng.int(++count) === 0) pick = v;
-      move(pick);
-    }
-  };
-  const ascend = integral ? ascendBucketed : ascendScan;
-  const directedScan = (): void => {
-    let bv = -1, bd = -Infinity, ties = 0;
-    for (let t = 0; t < f; t++) {
-      const v = free[t];
-      const d = delta[v];
-      if (tabuUntil[v] > iter && st.cut + d <= best + eps) continue;
-      if (d > bd + eps) { bd = d; bv = v; ties = 1; }
-      else if (d > bd - eps && rng.int(++ties) === 0) bv = v;
-    }
-    move(bv >= 0 ? bv : free[rng.int(f)]);
-  };
-  const directedBucketed = (): void => {
-    // Buckets hold exact gains, so the first admissible depot from the top is a best move;
-    // among the admissible ones of that bucket one is drawn at random.
-    for (let b = topBucket(); b >= 0; b--) {
-      let pick = -1, count = 0;
-      const aspires = st.cut + (b - D) > best + eps;
-      for (let v = head[b]; v >= 0; v = nxt[v]) {
-        if (!aspires && tabuUntil[v] > iter) continue;
-        if (rng.int(++count) === 0) pick = v;
-        if (count >= 8) break;
-      }
-      if (pick >= 0) {
-        move(pick);
-        return;
-      }
-    }
-    move(free[rng.int(f)]);
-  };
-  const directedMove = integral ? directedBucketed : directedScan;
-  const recencyMove = (): void => {
-    let bv = free[0];
-    for (let t = 1; t < f; t++) if (lastMoved[free[t]] < lastMoved[bv]) bv = free[t];
-    move(bv);
-  };
+  const recencyMove = (): void => move(recency.oldest());
 
   let L = L0;
   let omega = 0;
@@ -266,29 +161,26 @@ export async function tabuMaxcut(
     }
   };
   const record = (): void => {
-    if (pool && st.cut > periodBest) {
-      periodBest = st.cut;
+    if (pool && moves.cut() > periodBest) {
+      periodBest = moves.cut();
       periodSide.set(side);
     }
-    if (st.cut > best + eps) {
-      best = st.cut;
-      bestSide.set(st.side);
+    if (moves.cut() > best + eps) {
+      best = moves.cut();
+      bestSide.set(side);
       bestAt = control.elapsed();
       omega = 0;
       lastImprove = iter;
       lastBest = iter;
     }
   };
-  const bTenure = [tMin, tMax];
-  const wMin = Math.max(1, Math.min(opts.walkTenureMin, f - 1));
-  const wTenure = [wMin, Math.max(wMin, tMax)];
   let nextTick = 0;
   let lastBest = 0;
   const restartAfter = opts.restartStagnation > 0 ? opts.restartStagnation * f : Infinity;
   while (best < target - eps) {
     if (iter - lastBest > restartAfter) {
       for (let t = 0; t < f; t++) if (rng.int(2) === 1) flip(free[t]);
-      tabuUntil.fill(0);
+      moves.releaseAll();
       walking = false;
       [tMinNow, tMaxNow] = bTenure;
       epochEnd = iter + epoch;
@@ -311,8 +203,8 @@ export async function tabuMaxcut(
       const before = best;
       record();
       if (best === before) omega++;
-      L = Math.abs(st.cut - previousOptimum) <= eps ? L + 1 : L0;
-      previousOptimum = st.cut;
+      L = Math.abs(moves.cut() - previousOptimum) <= eps ? L + 1 : L0;
+      previousOptimum = moves.cut();
       if (omega > opts.stagnation) {
         kick();
         omega = 0;
