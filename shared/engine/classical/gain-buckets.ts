@@ -4,11 +4,13 @@
  * apart, so the best admissible move is the head of the top bucket of its class, O(1) amortised).
  *
  * Shapes: `head` is classes × (2·maxGain + 1), bucket of class c and gain g at
- * c·(2·maxGain + 1) + g + maxGain, −1 when empty; `next`, `prev`, `key`, `cls` are per depot.
+ * c·(2·maxGain + 1) + g + maxGain, −1 when empty, `tail` the same for the last depot of each
+ * bucket; `next`, `prev`, `key`, `cls` are per depot.
  * Depots not stored (cls −1) still carry a key, so callers can keep every gain in one array.
  */
 export class GainBuckets {
   readonly head: Int32Array;
+  readonly tail: Int32Array;
   readonly next: Int32Array;
   readonly prev: Int32Array;
   /** Current gain of each depot (stored or not). */
@@ -23,6 +25,7 @@ export class GainBuckets {
   constructor(n: number, readonly maxGain: number, classes: number) {
     this.span = 2 * maxGain + 1;
     this.head = new Int32Array(classes * this.span).fill(-1);
+    this.tail = new Int32Array(classes * this.span).fill(-1);
     this.next = new Int32Array(n);
     this.prev = new Int32Array(n);
     this.key = new Int32Array(n);
@@ -30,14 +33,25 @@ export class GainBuckets {
     this.bound = new Int32Array(classes).fill(-1);
   }
 
-  insert(v: number, c: number): void {
+  /** Stores v (with its current key) in class c, first in its bucket or, with `last`, last. */
+  insert(v: number, c: number, last = false): void {
     const b = this.key[v] + this.maxGain;
     const at = c * this.span + b;
-    const h = this.head[at];
-    this.next[v] = h;
-    this.prev[v] = -1;
-    if (h >= 0) this.prev[h] = v;
-    this.head[at] = v;
+    if (last) {
+      const t = this.tail[at];
+      this.prev[v] = t;
+      this.next[v] = -1;
+      if (t >= 0) this.next[t] = v;
+      else this.head[at] = v;
+      this.tail[at] = v;
+    } else {
+      const h = this.head[at];
+      this.next[v] = h;
+      this.prev[v] = -1;
+      if (h >= 0) this.prev[h] = v;
+      else this.tail[at] = v;
+      this.head[at] = v;
+    }
     this.cls[v] = c;
     if (b > this.bound[c]) this.bound[c] = b;
   }
@@ -45,10 +59,11 @@ export class GainBuckets {
   remove(v: number): void {
     const c = this.cls[v];
     if (c < 0) return;
-    const p = this.prev[v], q = this.next[v];
+    const p = this.prev[v], q = this.next[v], at = c * this.span + this.key[v] + this.maxGain;
     if (p >= 0) this.next[p] = q;
-    else this.head[c * this.span + this.key[v] + this.maxGain] = q;
+    else this.head[at] = q;
     if (q >= 0) this.prev[q] = p;
+    else this.tail[at] = p;
     this.cls[v] = -1;
   }
 
@@ -64,11 +79,11 @@ export class GainBuckets {
     this.insert(v, c);
   }
 
-  /** Moves v to class c (v must be stored). */
-  setClass(v: number, c: number): void {
+  /** Moves v to class c (v must be stored), first in its bucket or, with `last`, last. */
+  setClass(v: number, c: number, last = false): void {
     if (this.cls[v] === c) return;
     this.remove(v);
-    this.insert(v, c);
+    this.insert(v, c, last);
   }
 
   /** Highest gain stored in class c, or −Infinity when the class is empty. */

@@ -89,7 +89,7 @@ export class BucketMoves implements MaxcutMoves {
     const { adjStart, adjIndex } = this.net;
     const side = this.side, w2 = this.weight2, b = this.buckets;
     // The hot loop: GainBuckets.setKey written out over local arrays (same steps).
-    const key = b.key, cls = b.cls, next = b.next, prev = b.prev, head = b.head, bound = b.bound;
+    const key = b.key, cls = b.cls, next = b.next, prev = b.prev, head = b.head, tail = b.tail, bound = b.bound;
     const g = b.maxGain, span = b.span;
     const sv = side[v];
     this.cutValue += key[v];
@@ -102,10 +102,12 @@ export class BucketMoves implements MaxcutMoves {
         if (pj >= 0) next[pj] = qj;
         else head[base + key[j] + g] = qj;
         if (qj >= 0) prev[qj] = pj;
+        else tail[base + key[j] + g] = pj;
         const at = k + g, h = head[base + at];
         next[j] = h;
         prev[j] = -1;
         if (h >= 0) prev[h] = j;
+        else tail[base + at] = j;
         head[base + at] = j;
         if (at > bound[c]) bound[c] = at;
       }
@@ -142,7 +144,9 @@ export class BucketMoves implements MaxcutMoves {
     for (let v = this.ring[s]; v >= 0; ) {
       const q = this.ringNext[v];
       this.ringSlot[v] = -1;
-      this.buckets.setClass(v, OPEN);
+      // Last in its bucket: a depot just set free must not be the first pick (it would flip
+      // straight back, a cycle the tenure is there to break).
+      this.buckets.setClass(v, OPEN, true);
       v = q;
     }
     this.ring[s] = -1;

@@ -36,10 +36,27 @@ describe('gain buckets', () => {
     }
     for (let step = 0; step < 5000; step++) {
       const v = rng.int(n), r = rng.next();
-      if (b.cls[v] < 0) b.insert(v, rng.int(2));
-      else if (r < 0.6) b.setKey(v, rng.int(2 * maxGain + 1) - maxGain);
-      else if (r < 0.9) b.setClass(v, 1 - b.cls[v]);
-      else b.remove(v);
+      const last = rng.next() < 0.5;
+      const placed = (u: number) => (last ? b.tail : b.head)[b.cls[u] * (2 * maxGain + 1) + b.key[u] + maxGain];
+      if (b.cls[v] < 0) {
+        b.insert(v, rng.int(2), last);
+        expect(placed(v)).toBe(v);
+      } else if (r < 0.6) b.setKey(v, rng.int(2 * maxGain + 1) - maxGain);
+      else if (r < 0.9) {
+        b.setClass(v, 1 - b.cls[v], last);
+        expect(placed(v)).toBe(v);
+      } else b.remove(v);
+      // Every bucket's list runs from its head to its tail through exactly its depots.
+      const wrong: number[] = [];
+      for (let at = 0; at < b.head.length; at++) {
+        let lastListed = -1;
+        for (let u = b.head[at]; u >= 0; u = b.next[u]) {
+          if (b.cls[u] * (2 * maxGain + 1) + b.key[u] + maxGain !== at) wrong.push(u);
+          lastListed = u;
+        }
+        if (b.tail[at] !== lastListed) wrong.push(at);
+      }
+      expect(wrong).toEqual([]);
       for (const c of [0, 1]) {
         let top = -Infinity;
         for (let u = 0; u < n; u++) if (b.cls[u] === c) top = Math.max(top, b.key[u]);
