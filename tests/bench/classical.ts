@@ -263,7 +263,7 @@ async function main(): Promise<void> {
     '',
     machine(),
     '',
-    'What is measured: the `tabu` engine (breakout-style tabu search, gain buckets for integer lanes, epochs alternating',
+    'What is measured: the `tabu` engine (breakout-style tabu search, gain buckets for integer lanes with tabu depots kept apart, epochs alternating',
     'breakout jumps and a plain tabu walk) against the best-known G-set cuts of Benlic & Hao (2013), one seed, one core;',
     'the limit and "CPU s to best" are CPU seconds of this process (one thread), because the 2 cores are shared with other',
     'work while measuring; the run stops early at the best known value; "wall s" is the elapsed time it took.',
