@@ -2,15 +2,13 @@ import { StyleSheet, View } from 'react-native';
 import Svg, { G, Line, Path, Text as SvgText } from 'react-native-svg';
 import { colors, fonts } from '../theme';
 import { Small } from '../ui/Text';
-import { convergenceGeometry, type ConvergencePoint } from './convergence';
+import { convergenceGeometry, shortNumber as tick, type ConvergencePoint } from './convergence';
 
 /** Median standard error over the trace (what the band's half-height typically is). */
 function typicalError(trace: readonly ConvergencePoint[]): number {
   const se = trace.map((p) => p.stdError).filter((v): v is number => v !== undefined && Number.isFinite(v)).sort((a, b) => a - b);
   return se.length ? se[Math.floor(se.length / 2)] : 0;
 }
-
-const tick = (v: number) => (Math.abs(v) >= 1000 ? `${Math.round(v / 100) / 10}k` : `${Math.round(v * 100) / 100}`);
 
 /**
  * Energy of the cost operator against iterations, with the ± standard-error band when the
@@ -28,11 +26,11 @@ export function ConvergenceChart(props: { trace: readonly ConvergencePoint[]; wi
     <View style={styles.wrap} testID={props.testID ?? 'convergence-chart'}>
       <Svg width={props.width} height={height} accessibilityRole="image" accessibilityLabel={summary}>
         <G>
-          {g.yTicks.map((t) => (
+          {g.yTicks.map((t, i) => (
             <G key={`y${t}`}>
               <Line x1={g.margin.left} x2={props.width - g.margin.right} y1={g.y(t)} y2={g.y(t)} stroke={colors.line} strokeWidth={1} />
               <SvgText x={g.margin.left - 6} y={g.y(t) + 4} fontSize={11} fontFamily={fonts.regular} fill={colors.textMuted} textAnchor="end">
-                {tick(t)}
+                {g.yTickLabels[i]}
               </SvgText>
             </G>
           ))}

@@ -40,9 +40,28 @@ export interface ConvergenceGeometry {
   band: string | null;
   /** The first point of every later start (a new start may jump upward); none when unknown. */
   restarts: RestartMark[];
+  /** Whole iterations only (a tick at iteration 1.5 names nothing). */
   xTicks: number[];
   yTicks: number[];
+  /** Text of each y tick, apart from its neighbours (`tickLabels`). */
+  yTickLabels: string[];
   margin: { left: number; right: number; top: number; bottom: number };
+}
+
+/** A number for a chart: "1.8k" from a thousand up, else at most two decimals. */
+export const shortNumber = (v: number) => (Math.abs(v) >= 1000 ? `${Math.round(v / 100) / 10}k` : `${Math.round(v * 100) / 100}`);
+
+/**
+ * Axis labels that tell the ticks apart: the short form when every tick reads differently,
+ * else the full number with as many decimals as the tick step needs (a near-flat trace
+ * of about −1,760 once labelled all four ticks "-1.8k").
+ */
+export function tickLabels(ticks: readonly number[]): string[] {
+  const short = ticks.map(shortNumber);
+  if (new Set(short).size === short.length) return short;
+  const step = ticks.length > 1 ? Math.abs(ticks[1] - ticks[0]) : 1;
+  const decimals = Math.max(0, Math.min(6, -Math.floor(Math.log10(step) + 1e-9)));
+  return ticks.map((t) => t.toLocaleString('en-GB', { minimumFractionDigits: decimals, maximumFractionDigits: decimals }));
 }
 
 export const DEFAULT_MARGIN = { left: 52, right: 12, top: 10, bottom: 28 } as const;
@@ -80,5 +99,6 @@ export function convergenceGeometry(trace: readonly ConvergencePoint[], frame: C
     // A later start than the point before (k-way splits begin again at start 0: not a restart).
     if (s !== undefined && before !== undefined && s > before) restarts.push({ iteration: points[i].iteration, start: s + 1, x: x(points[i].iteration) });
   }
-  return { x, y, line: linePath, band: bandPath, restarts, xTicks: x.ticks(4), yTicks: y.ticks(4), margin };
+  const yTicks = y.ticks(4);
+  return { x, y, line: linePath, band: bandPath, restarts, xTicks: x.ticks(4).filter(Number.isInteger), yTicks, yTickLabels: tickLabels(yTicks), margin };
 }

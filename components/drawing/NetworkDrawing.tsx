@@ -6,6 +6,7 @@ import type { Positions } from './layout';
 import type { ViewTransform } from './viewport';
 import { laneEnds, type Selection } from './draft';
 import { placeLabels, type Box, type PlacedLabel } from './labels';
+import { labelMeasurer } from './measureLabel';
 
 /**
  * The network drawn with react-native-svg: lanes as lines (thicker for more volume), depots as
@@ -144,6 +145,7 @@ export function NetworkDrawing(props: NetworkDrawingProps) {
     return Array.from(volume.keys()).sort((a, b) => volume[b] - volume[a] || a - b);
   }, [props.depots.length, props.lanes, ends]);
   const selected = props.selection?.depots;
+  const measure = useMemo(() => labelMeasurer(LABEL_PX, fonts.medium), []);
   const labels = useMemo(() => {
     const chosen = new Set<number>(selected ?? []);
     if (props.hovered !== undefined && props.hovered >= 0) chosen.add(props.hovered);
@@ -154,8 +156,8 @@ export function NetworkDrawing(props: NetworkDrawingProps) {
       screen[i + 1] = t.y + t.k * props.xy[i + 1];
     }
     const names = props.depots.map((d) => d.name ?? d.id);
-    return placeLabels(screen, names, { width: props.width, height: props.height, fontSize: LABEL_PX, radius: r * s * t.k, order: showLabels ? order : [], always: chosen, reserved: props.reserved });
-  }, [showLabels, selected, props.hovered, props.xy, props.depots, props.width, props.height, props.reserved, t.x, t.y, t.k, r, s, order]);
+    return placeLabels(screen, names, { width: props.width, height: props.height, fontSize: LABEL_PX, radius: r * s * t.k, order: showLabels ? order : [], always: chosen, reserved: props.reserved, measure });
+  }, [measure, showLabels, selected, props.hovered, props.xy, props.depots, props.width, props.height, props.reserved, t.x, t.y, t.k, r, s, order]);
   return (
     <Svg width={props.width} height={props.height} accessibilityLabel={props.accessibilityLabel ?? `Drawing of ${props.depots.length} depots and ${props.lanes.length} lanes`} testID={props.testID}>
       <Rect x={0} y={0} width={props.width} height={props.height} fill={colors.surface} />

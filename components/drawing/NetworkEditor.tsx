@@ -14,13 +14,13 @@ import type { Box } from './labels';
 import { parseVolume } from './volume';
 import { fitTransform, panBy, pinchTransform, toWorld, zoomAt, type ViewTransform } from './viewport';
 
+const CANVAS_BORDER = 1;
+
 /** Finger-sized hit areas in screen pixels (TOUCH / 2 around a depot). */
 const DEPOT_HIT_PX = 22;
 const LANE_HIT_PX = 12;
 /** Movement below this is a tap, not a drag (px). */
 const SLOP_PX = 6;
-/** Screen px an arrow key pans the focused canvas. */
-
 export type EditorMode = 'lanes' | 'move';
 
 type Gesture =
@@ -237,7 +237,9 @@ export function NetworkEditor(props: {
   }, []);
 
   const onLayout = (e: LayoutChangeEvent) => {
-    const { width, height } = e.nativeEvent.layout;
+    // The layout box includes the canvas's border; the drawing (and every name in it) lies inside it.
+    const width = e.nativeEvent.layout.width - 2 * CANVAS_BORDER;
+    const height = e.nativeEvent.layout.height - 2 * CANVAS_BORDER;
     setSize((s) => (s.width === width && s.height === height ? s : { width, height }));
   };
 
@@ -439,7 +441,7 @@ const styles = StyleSheet.create({
   wrap: { gap: space.sm },
   toolbar: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'center' },
   segment: { flexDirection: 'row', gap: 2, padding: 2, borderRadius: radius.md, backgroundColor: colors.surfaceSunk },
-  canvas: { borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, overflow: 'hidden', backgroundColor: colors.surface },
+  canvas: { borderRadius: radius.lg, borderWidth: CANVAS_BORDER, borderColor: colors.line, overflow: 'hidden', backgroundColor: colors.surface },
   compact: { paddingHorizontal: space.md },
   history: { position: 'absolute', left: space.sm, top: space.sm, flexDirection: 'row', gap: space.xs },
   selectionTools: { position: 'absolute', right: space.sm, top: space.sm },

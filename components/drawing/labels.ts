@@ -40,6 +40,8 @@ export interface LabelOptions {
   reserved?: readonly Box[];
   /** Characters kept when a name is shortened (plus "…"). */
   shortLength?: number;
+  /** Width of a text in px as drawn (default: the character-count estimate `textWidth`). */
+  measure?: (text: string) => number;
 }
 
 const overlaps = (a: Box, b: Box) => a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h;
@@ -67,7 +69,7 @@ export function placeLabels(xy: ArrayLike<number>, names: readonly string[], o: 
   const free = (b: Box, own: number) => inside(b) && !taken.some((t) => overlaps(t, b)) && !marks.some((m, k) => k !== own && overlaps(m, b));
   const candidates = (i: number, text: string) => {
     const x = xy[2 * i], y = xy[2 * i + 1];
-    const w = textWidth(text, o.fontSize);
+    const w = o.measure ? o.measure(text) : textWidth(text, o.fontSize);
     // Text baseline sits ~0.8 of the box height below its top.
     return [
       { box: { x: x - w / 2, y: y - r - gap - h, w, h }, anchor: 'middle' as const, tx: x, ty: y - r - gap - h * 0.2 },

@@ -64,6 +64,19 @@ describe('convergenceGeometry', () => {
 });
 
 describe('<ConvergenceChart>', () => {
+  test('a near-flat trace around −1,760 gets y tick labels that differ, and whole-iteration x ticks', () => {
+    // Seen on a live QAOA run: four y ticks all read "-1.8k" and the x axis read 1, 1.5, 2, 2.5, 3.
+    const flat = [1, 2, 3].map((iteration, i) => ({ iteration, energy: -1760.03 - i * 0.004 }));
+    render(<ConvergenceChart trace={flat} width={frame.width} height={frame.height} />);
+    const texts = Array.from(screen.getByTestId('convergence-chart').querySelectorAll('text')).map((t) => t.textContent ?? '');
+    const g = convergenceGeometry(flat, frame);
+    const yLabels = texts.slice(0, g.yTicks.length);
+    expect(yLabels.length).toBeGreaterThanOrEqual(3);
+    expect(new Set(yLabels).size).toBe(yLabels.length);
+    expect(g.xTicks.every(Number.isInteger)).toBe(true);
+    expect(texts.slice(g.yTicks.length)).toEqual(['1', '2', '3']);
+  });
+
   test('draws the line and band paths it computed', () => {
     render(<ConvergenceChart trace={trace} width={frame.width} height={frame.height} />);
     const g = convergenceGeometry(trace, frame);

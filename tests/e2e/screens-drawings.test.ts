@@ -12,11 +12,12 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, screenshot, watchPageErrors } from '../support/browser';
 import { startTestServer } from '../support/server';
 import { startWorkerProcess } from '../support/worker-process';
-import { drawingParts, nameProblems, overlaps, signInAs, softChecks, type DrawingParts } from '../support/screens';
+import { drawingParts, inside, nameProblems, overlaps, signInAs, softChecks, type DrawingParts } from '../support/screens';
 import { holdTestDatabase } from '../api/setup/db-lock';
 import { createOrgWithRoles, type OrgWithRoles } from '../api/setup/test-app';
 import { createNetwork } from '../../server/services/networks';
 import { createRun } from '../../server/services/runs';
+import { demoByKey } from '../../server/services/demo-networks';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let worker: ReturnType<typeof startWorkerProcess>;
@@ -154,6 +155,22 @@ describe.each([
       const under = full.marks.flatMap((m, i) => full.controls.filter((b) => overlaps({ x: m.x - m.r, y: m.y - m.r, w: 2 * m.r, h: 2 * m.r }, b.box)).map((b) => `${grid[i].id} under ${b.name}`));
       expect(under).toEqual([]);
       expect(nameProblems(full)).toEqual([]);
+    });
+
+    // The demo's core network: a name at the drawing's right edge ("Marrowdene") was clipped by a
+    // few pixels (names were measured by character count, and the canvas border was counted in).
+    const core = demoByKey('quillmere-core')!.document;
+    const coreMade = await createNetwork(server.deps, actor(), { name: `Quillmere core ${label}`, depots: core.depots, lanes: core.lanes }, { source: 'api' });
+    await page.goto(`${server.url}/networks/${coreMade.id}`);
+    await page.getByTestId('network-screen').waitFor();
+    const coreParts = await settledParts(page);
+    const canvasBox = (await page.getByTestId('drawing-canvas').boundingBox())!; // inside the canvas border
+    const visible = { x: canvasBox.x, y: canvasBox.y, w: canvasBox.width, h: canvasBox.height };
+    await screenshot(page, `screens-drawing-core-${label}`);
+    await c.check('names: the demo core network\'s names all inside the drawing', () => {
+      expect(coreParts.names.length).toBeGreaterThanOrEqual(8);
+      expect(nameProblems(coreParts)).toEqual([]);
+      expect(coreParts.names.filter((n) => !inside(n.box, visible)).map((n) => n.text)).toEqual([]);
     });
 
     // Every workspace tab, the fourth ("Versions") too, lies fully on screen, also with long counts ("Lanes (7xx)").
