@@ -6,7 +6,7 @@ import type { NetworkDocument } from '../../shared/engine/network/types';
 import { colors, radius, regionColors, space } from '../theme';
 import { Body, Label, Small } from '../ui/Text';
 import { formatValue } from './format';
-import { summarisePartition } from './partition';
+import { emptyRegionNote, summarisePartition } from './partition';
 import { partName } from '../../shared/runs/regions';
 import type { RunProblem } from './types';
 
@@ -58,6 +58,9 @@ export function PartitionView(props: { document: Pick<NetworkDocument, 'depots' 
         <Small testID="partition-balance" style={summary.balanced ? undefined : styles.bad}>
           {summary.balanced ? 'Balanced' : 'Not balanced'}: heaviest region {formatValue(summary.heaviest)}, allowed up to {formatValue(Math.floor(summary.limit * 1000) / 1000)}.
         </Small>
+      ) : null}
+      {summary.emptyRegions.length > 0 ? (
+        <Small testID="partition-empty">{emptyRegionNote(props.problem.kind, summary.emptyRegions)}</Small>
       ) : null}
     </View>
   );

@@ -7,6 +7,7 @@ import type { NetworkDocument } from '../../shared/engine/network/types';
 import { bindProblem } from '../../shared/engine/problem/bind';
 import { crossingWeight, isBalanced, maxPartWeight, partWeights } from '../../shared/engine/problem/evaluate';
 import type { Problem } from '../../shared/engine/problem/types';
+import { partName, partWord } from '../../shared/runs/regions';
 import type { RunProblem } from './types';
 
 export interface RegionTotal {
@@ -28,6 +29,8 @@ export interface PartitionSummary {
   /** The heaviest region may weigh at most this (null for max-cut, which has no balance rule). */
   limit: number | null;
   heaviest: number;
+  /** Regions without a depot (never for max-cut, whose two sides are not regions to fill). */
+  emptyRegions: number[];
 }
 
 /** The question bound to the version's document (for evaluation only; no solving happens here). */
@@ -58,5 +61,19 @@ export function summarisePartition(doc: Pick<NetworkDocument, 'depots' | 'lanes'
     balanced: isBalanced(bound, assignment),
     limit: problem.kind === 'maxcut' ? null : maxPartWeight(bound),
     heaviest: Math.max(...Array.from(weights)),
+    emptyRegions: problem.kind === 'maxcut' ? [] : regions.filter((r) => r.depots === 0).map((r) => r.region),
   };
+}
+
+/**
+ * Why a region can be empty, in words: the balance rule caps a region's demand and sets no
+ * minimum (shared/engine/problem/evaluate.ts, as the METIS-style cap), so when the others may
+ * take its depots a solver leaves it empty if that crosses less volume. Null when none is empty.
+ */
+export function emptyRegionNote(kind: RunProblem['kind'], emptyRegions: readonly number[]): string | null {
+  if (emptyRegions.length === 0) return null;
+  const names = emptyRegions.map((r) => partName(kind, r));
+  const list = names.length === 1 ? `${names[0]} has` : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]} have`;
+  const word = partWord(kind);
+  return `${list} no depots: the balance rule caps each ${word}'s demand but sets no minimum, so leaving a ${word} empty was allowed and crossed less volume. Lower the balance tolerance to use every ${word}.`;
 }

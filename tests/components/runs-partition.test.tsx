@@ -1,4 +1,4 @@
-import { summarisePartition } from '../../components/runs/partition';
+import { emptyRegionNote, summarisePartition } from '../../components/runs/partition';
 import { operatorTerms } from '../../components/runs/OperatorInspector';
 import { boundProblem } from '../../components/runs/partition';
 import { describeEncoding } from '../../shared/engine/solvers/orchestrate';
@@ -38,6 +38,20 @@ describe('summarisePartition (the engine rules, as the partition view shows them
     expect(s.crossing).toBe(3);
     expect(s.regions.map((r) => r.depots)).toEqual([2, 2, 2]);
     expect(s.balanced).toBe(true);
+    expect(s.emptyRegions).toEqual([]);
+    expect(emptyRegionNote('kway', s.emptyRegions)).toBeNull();
+  });
+
+  test('an empty region is named with why it may be empty: four regions of C6 at a loose tolerance', () => {
+    // Limit (1 + 0.5)·6/4 + 1·3/4 = 3, so three regions of two take all six depots and region 3 stays empty.
+    const s = summarisePartition(c6, { kind: 'kway', k: 4, tolerance: 0.5 }, [0, 0, 1, 1, 2, 2]);
+    expect(s.balanced).toBe(true);
+    expect(s.emptyRegions).toEqual([3]);
+    const note = emptyRegionNote('kway', s.emptyRegions)!;
+    expect(note).toMatch(/^Region \d+ has no depots: the balance rule caps each region's demand but sets no minimum/);
+    expect(emptyRegionNote('kway', [1, 3])).toMatch(/^Region \d+ and Region \d+ have no depots/i);
+    // Max-cut's sides are not regions to fill: all on one side is just a cut of 0.
+    expect(summarisePartition(c6, { kind: 'maxcut' }, [0, 0, 0, 0, 0, 0]).emptyRegions).toEqual([]);
   });
 });
 
