@@ -17,6 +17,7 @@ const MERGE_WORDS: Record<DecompositionReport['merge'], string> = {
   single: 'one block: nothing to orient',
   exact: 'exact enumeration over the block orientations',
   rqaoa: 'recursive QAOA on the block graph (level 1, closed form)',
+  blocks: 'blocks of blocks: QAOA on groups of blocks, then the groups oriented',
   local: 'greedy whole-block flips under the balance rule',
 };
 

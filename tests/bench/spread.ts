@@ -5,7 +5,10 @@
  * (start them first, as for bench/service.ts). Wall time from creation to the run's `succeeded`,
  * the 1-worker / 2-worker ratio measured in the same run, the machine's load average beside each
  * (the machine is shared: other work on the cores lowers the ratio), and whether both runs gave
- * the same answer (they must: same seed, same stages).
+ * the same answer (they must: same seed, same stages). Before the workers start, the same solve
+ * runs stage by stage in this process (stage-profile.ts): the engine's CPU seconds per stage, the
+ * serial share (plan, merges, refinement, bound, stages too small to spread) and the Amdahl bound
+ * on the ratio that follows from it — so a missed ratio can be told apart from a serial share.
  *
  * Network: the graph of G33 of the G-set (Helmberg & Rendl, "A spectral bundle method for
  * semidefinite programming", SIAM J. Optim. 10(3), 2000; tests/data/gset), a 2,000-depot toroidal
@@ -41,6 +44,15 @@ Object.assign(process.env, {
 });
 
 const load = () => os.loadavg().map((x) => x.toFixed(2)).join(', ');
+/** CPU seconds a process has used so far, all its threads (/proc/<pid>/stat utime + stime; Linux). */
+const cpuOf = (pid: number): number => {
+  try {
+    const fields = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    return (Number(fields[11]) + Number(fields[12])) / 100; // clock ticks: USER_HZ = 100 on Linux
+  } catch {
+    return NaN;
+  }
+};
 
 async function main() {
   const { loadConfig } = await import('../../server/config');
@@ -68,6 +80,16 @@ async function main() {
   const small = (await createNetwork(deps, { organisationId: org.id, userId: user.id }, networkBody('Bench warm-up', 200, edges.filter(([a, b]) => a < 200 && b < 200)), { source: 'api' })).versionId;
   const settings = { maxIterations: MAX_ITERATIONS };
 
+  // The engine's own CPU per stage (one thread, no queue), on the same problem, seed and settings.
+  const { bindProblem } = await import('../../shared/engine/problem/bind');
+  const { compactFromEdges } = await import('../../shared/engine/network/build');
+  const { simKernelsBackend } = await import('../../server/lib/sim-wasm');
+  const { profileStages } = await import('./stage-profile');
+  const { loadRunsConfig } = await import('../../server/services/queue-config');
+  const loadBeforeProfile = load();
+  const profile = await profileStages(bindProblem(compactFromEdges(n, edges), { kind: 'maxcut' }), 'qaoa-blocks', settings, 1, loadRunsConfig().RUN_SPREAD_MIN_TASKS, simKernelsBackend());
+  console.log(`stage profile: serial ${profile.serialSeconds.toFixed(2)} s, spread ${profile.parallelSeconds.toFixed(2)} s CPU, Amdahl bound at 2 workers ${profile.bound(2).toFixed(2)}`);
+
   const finished = async (id: number, timeoutMs: number) => {
     for (const deadline = Date.now() + timeoutMs; ;) {
       const status = (await deps.models.Run.findByPk(id))!.get('status');
@@ -79,7 +101,7 @@ async function main() {
   };
   const resultOf = async (id: number) => JSON.parse(String((await deps.models.RunJob.findOne({ where: { runId: id } }))!.get('result'))) as { value: number; assignment: number[]; spread?: { stages: number; batches: number; workers: Record<string, number> } };
 
-  const rows: { workers: number; seconds: number; value: number; stages: number; batches: number; answeredBy: number[]; loadBefore: string; loadAfter: string; assignment: number[] }[] = [];
+  const rows: { workers: number; seconds: number; cpu: number; value: number; stages: number; batches: number; answeredBy: number[]; loadBefore: string; loadAfter: string; assignment: number[] }[] = [];
   for (const count of [1, 2]) {
     const workers = [];
     for (let w = 0; w < count; w++) workers.push(await startWorkerChild({ WORKER_CONCURRENCY: '1' }));
@@ -87,13 +109,15 @@ async function main() {
     const warm = await createRun(deps, actor, { versionId: small, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa-blocks', settings: { maxIterations: 20 } }], timeLimitSeconds: 600, seed: 2 });
     await finished(warm.id, 600_000);
     const loadBefore = load();
+    const cpu0 = workers.map((w) => cpuOf(w.pid));
     const t0 = performance.now();
     const run = await createRun(deps, actor, { versionId, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa-blocks', settings }], timeLimitSeconds: 3600, seed: 1 });
     await finished(run.id, 3_600_000);
     const seconds = (performance.now() - t0) / 1000;
+    const cpu = workers.reduce((sum, w, i) => sum + cpuOf(w.pid) - cpu0[i], 0);
     const r = await resultOf(run.id);
-    rows.push({ workers: count, seconds, value: r.value, stages: r.spread?.stages ?? 0, batches: r.spread?.batches ?? 0, answeredBy: Object.values(r.spread?.workers ?? {}), loadBefore, loadAfter: load(), assignment: r.assignment });
-    console.log(`${count} worker(s): ${seconds.toFixed(1)} s, cut ${r.value}, load ${load()}`);
+    rows.push({ workers: count, seconds, cpu, value: r.value, stages: r.spread?.stages ?? 0, batches: r.spread?.batches ?? 0, answeredBy: Object.values(r.spread?.workers ?? {}), loadBefore, loadAfter: load(), assignment: r.assignment });
+    console.log(`${count} worker(s): ${seconds.toFixed(1)} s, workers' CPU ${cpu.toFixed(1)} s, cut ${r.value}, load ${load()}`);
     await Promise.all(workers.map((w) => w.kill('SIGTERM')));
   }
   await closeSolveQueue(deps);
@@ -110,11 +134,20 @@ async function main() {
     '',
     `One \`qaoa-blocks\` run on the graph of ${INSTANCE} (${n} depots, ${edges.length} lanes, all at volume 1; Helmberg & Rendl 2000), seed 1, default settings except maxIterations ${MAX_ITERATIONS}, time limit 3600 s (never reached), with 1 and then 2 worker processes of one solve thread each (stages of ≥ 16 blocks spread as up to 24 child entries each; server/workers/spread-job.ts). Wall time from creation to \`succeeded\`.`,
     '',
-    '| workers | seconds | cut | stages | child batches | batches answered per worker | load before | load after |',
-    '|---|---|---|---|---|---|---|---|',
-    ...rows.map((r) => `| ${r.workers} | ${r.seconds.toFixed(1)} | ${r.value} | ${r.stages} | ${r.batches} | ${r.answeredBy.join(' + ')} | ${r.loadBefore} | ${r.loadAfter} |`),
+    '| workers | seconds | workers\' CPU s | cores used (CPU / wall) | cut | stages | child batches | batches answered per worker | load before | load after |',
+    '|---|---|---|---|---|---|---|---|---|---|',
+    ...rows.map((r) => `| ${r.workers} | ${r.seconds.toFixed(1)} | ${r.cpu.toFixed(1)} | ${(r.cpu / r.seconds).toFixed(2)} | ${r.value} | ${r.stages} | ${r.batches} | ${r.answeredBy.join(' + ')} | ${r.loadBefore} | ${r.loadAfter} |`),
     '',
-    `1-worker / 2-worker wall-time ratio: **${ratio.toFixed(2)}** (target ≥ 1.6 on 2 cores; same run). Same answer with 1 and 2 workers: **${same ? 'yes' : 'NO'}**.`,
+    `1-worker / 2-worker wall-time ratio: **${ratio.toFixed(2)}** (target ≥ 1.6 on 2 cores; same run). Same answer with 1 and 2 workers: **${same ? 'yes' : 'NO'}**. "Cores used" is the worker processes' CPU time over the wall time: on idle cores one worker uses up to 1 and two up to 2; under other work each gets a share of the cores, so the wall-time ratio then says as much about the load as about the spread.`,
+    '',
+    `Where the engine's CPU time goes (the same solve stage by stage in the benchmark's own process before the workers start, one thread, no queue; load before it ${loadBeforeProfile}; cut ${profile.value}${profile.value === rows[0].value ? ', the same as the workers\' runs' : `, NOT the workers' ${rows[0].value}`}). "Spread" stages go to the queue as children; everything else runs in the job's own thread, one worker at a time:`,
+    '',
+    '| stage | tasks | where the tasks run | tasks CPU s | then in the job\'s thread (merge, next plan, refinement, bound) CPU s |',
+    '|---|---|---|---|---|',
+    `| plan | – | – | – | ${profile.planSeconds.toFixed(2)} |`,
+    ...profile.stages.map((st) => `| ${st.label} | ${st.tasks} | ${st.spread ? 'spread over the workers' : "the job's thread"} | ${st.taskSeconds.toFixed(2)} | ${st.resumeSeconds.toFixed(2)} |`),
+    '',
+    `Serial ${profile.serialSeconds.toFixed(2)} s of ${(profile.serialSeconds + profile.parallelSeconds).toFixed(2)} s CPU (${((100 * profile.serialSeconds) / (profile.serialSeconds + profile.parallelSeconds)).toFixed(1)} %): Amdahl's bound on the 2-worker ratio **${profile.bound(2).toFixed(2)}** (before queue traffic, stage tails and other work on the cores).`,
     '',
   ].join('\n');
   console.log('\n' + section);

@@ -56,7 +56,7 @@ function resultOf(problem: Problem, s: Settings, outcome: DecomposeOutcome, seco
   const trace: TracePoint[] = outcome.trace.map((p) => ({ iteration: p.iteration, energy: p.energy, stdError: p.stdError, seconds: p.seconds }));
   const assignment = Array.from(outcome.assignment);
   const largest = outcome.blocks.reduce((q, b) => Math.max(q, b.qubits), 0);
-  const how = { exact: 'exact enumeration', rqaoa: 'recursive QAOA (level 1, closed form)', local: 'greedy flips', single: 'none needed' }[outcome.merge.method];
+  const how = { exact: 'exact enumeration', rqaoa: 'recursive QAOA (level 1, closed form)', blocks: 'blocks of blocks (QAOA on groups of blocks of the block graph, then the groups oriented)', local: 'greedy flips', single: 'none needed' }[outcome.merge.method];
   const notes = [
     `${outcome.merge.blocks} block(s) of at most ${s.blockSize} depots (largest circuit ${largest} qubits); block orientations by ${how}${problem.kind === 'bisection' ? ' under the balance rule' : ''} (gain ${outcome.merge.gain})`,
     problem.kind === 'maxcut'

@@ -184,7 +184,7 @@ export interface DecompositionReport {
   /** Widest block circuit (qubits). */
   largestQubits: number;
   /** How block orientations were chosen (decompose.ts). */
-  merge: 'single' | 'exact' | 'rqaoa' | 'local';
+  merge: 'single' | 'exact' | 'rqaoa' | 'blocks' | 'local';
 }
 
 /**

@@ -11,8 +11,6 @@
  * applied block by block in order, each kept only when the whole cut rises with the blocks
  * already changed in this round.
  */
-import { compactFromEdges } from '../network/build';
-import { encodeMaxCut } from '../encodings/maxcut';
 import { createFlipState } from '../classical/flip-state';
 import { polishBisection, polishMaxcut, repairBalance } from '../classical/local-search';
 import { balanceWindow } from '../classical/balance';
@@ -23,11 +21,11 @@ import { createRng, deriveSeed } from '../random';
 import type { LayerBackend } from '../statevector/backend';
 import { runBlockTask, flatLanes, type BlockAnswer, type BlockTask } from './block-task';
 import {
-  blockCouplings, blockInContext, blockMembers, blockProblem, exactSmallMaxcut, orientForBisection, wholeBlockMoves,
+  blockCouplings, blockInContext, blockMembers, blockProblem, orientForBisection, wholeBlockMoves,
   type BlockReport, type DecomposeControl, type DecomposeOptions, type DecomposeOutcome,
 } from './decompose';
 import type { VariationalTracePoint } from './qaoa-run';
-import { bitsOfSpins, defaultBatchFraction, RQAOA_MAX_REMAINDER, runRqaoa } from './rqaoa';
+import { mergeRoute, orientationProblem, orientHere } from './block-merge';
 
 /** Most trace points kept from the block solves (evenly thinned above; the chart needs no more). */
 export const MAX_BLOCK_TRACE = 2000;
@@ -35,11 +33,16 @@ export const MAX_BLOCK_TRACE = 2000;
 /** Between stages: everything the next stage needs, as plain JSON (depot-indexed arrays of n). */
 export interface BlocksState {
   kind: 'maxcut' | 'bisection';
-  phase: 'blocks' | 'round';
+  /** blocks: the first block solves are out; merge: the block graph's sub-blocks (blocks of blocks); round: an improvement round. */
+  phase: 'blocks' | 'merge' | 'round';
   round: number;
   blockOf: number[];
-  /** Sides per depot the round's tasks were built on (phase 'round'). */
+  /** Sides per depot the round's tasks (phase 'round') or the block graph (phase 'merge') were built on. */
   sides: number[];
+  /** Phase 'merge': the sub-block of each block (the block graph's split). */
+  mergeBlockOf?: number[];
+  /** Cut right after the first block solves, before the merge. */
+  blocksValue: number;
   roundStart: number;
   blocks: BlockReport[];
   merge: DecomposeOutcome['merge'];
@@ -57,8 +60,10 @@ export type BlocksStep =
   | { kind: 'spread'; state: BlocksState; tasks: BlockTask[]; progress: { from: number; to: number } }
   | { kind: 'done'; outcome: DecomposeOutcome };
 
-/** Progress share of the first block solves; the rounds share the rest. */
+/** Progress share of the first block solves and the merge; the rounds share the rest. */
 const BLOCKS_SHARE = 0.6;
+/** Seed part of the merge's sub-block split and tasks (the stages use 0 and the round numbers 1…20). */
+const MERGE_SEED_PART = 1000;
 
 const roundProgress = (opts: DecomposeOptions, round: number) => ({
   from: BLOCKS_SHARE + ((1 - BLOCKS_SHARE) * round) / Math.max(1, opts.rounds),
@@ -89,7 +94,7 @@ export function planBlocks(problem: Problem, opts: DecomposeOptions, seed: numbe
   const tasks = members.map((list, b) => taskOf(blockProblem(problem, list, problem.kind === 'bisection' ? 'bisection' : 'maxcut'), b, deriveSeed(seed, 0, b), opts, true));
   const state: BlocksState = {
     kind: problem.kind, phase: 'blocks', round: 0, blockOf: Array.from(blockOf), sides: [], roundStart: 0, blocks: [],
-    merge: { method: 'single', blocks: members.length, gain: 0 }, mergedValue: 0, roundsGain: 0, refineFlips: 0, evaluations: 0, shots: 0, stopped: false, trace: [],
+    merge: { method: 'single', blocks: members.length, gain: 0 }, blocksValue: 0, mergedValue: 0, roundsGain: 0, refineFlips: 0, evaluations: 0, shots: 0, stopped: false, trace: [],
   };
   return { kind: 'spread', state, tasks, progress: { from: 0, to: BLOCKS_SHARE } };
 }
@@ -133,27 +138,52 @@ function collectBlocks(problem: Problem, state: BlocksState, members: number[][]
   return assignment;
 }
 
-/** Max-cut block orientations: exact over few free blocks, else recursive QAOA on the block graph. */
-function orientMaxcut(problem: Problem, state: BlocksState, blockOf: ArrayLike<number>, blockCount: number, assignment: Int32Array, opts: DecomposeOptions, control: DecomposeControl): void {
-  const edges = blockCouplings(problem.network, Int32Array.from(blockOf), blockCount, assignment);
-  // A block holding a pinned depot keeps its orientation (flipping it would move the pin).
-  const blockPins = new Int32Array(blockCount).fill(-1);
-  for (let i = 0; i < problem.network.n; i++) if (problem.pins[i] >= 0) blockPins[blockOf[i]] = 0;
-  if (blockPins.every((p) => p < 0)) blockPins[0] = 0; // the global flip changes nothing
-  const mergeProblem: Problem = { kind: 'maxcut', k: 2, network: compactFromEdges(blockCount, edges), pins: blockPins, tolerance: 0 };
-  let flip: ArrayLike<number>;
-  if (freeDepots(blockPins).length <= opts.mergeExactLimit) {
-    state.merge.method = 'exact';
-    flip = exactSmallMaxcut(mergeProblem);
-  } else {
-    // Any number of blocks: recursive QAOA (closed-form level 1), never a wide circuit.
-    state.merge.method = 'rqaoa';
-    const encoding = encodeMaxCut(mergeProblem);
-    const out = runRqaoa(encoding.operator, { stopAt: Math.min(opts.mergeExactLimit, RQAOA_MAX_REMAINDER), batchFraction: defaultBatchFraction(encoding.numQubits), hurry: () => control.shouldStop(), overdue: () => control.shouldStop() });
-    state.evaluations += out.evaluations;
-    flip = encoding.decode(bitsOfSpins(out.spins));
+/**
+ * Max-cut block orientations (block-merge.ts): exact or recursive QAOA here, or — a dense block
+ * graph — blocks of blocks: the block graph's sub-blocks as a further stage of tasks.
+ */
+function mergeMaxcut(problem: Problem, opts: DecomposeOptions, seed: number, state: BlocksState, blockCount: number, assignment: Int32Array, control: DecomposeControl): BlocksStep | null {
+  const mp = orientationProblem(problem, state.blockOf, blockCount, assignment);
+  if (mergeRoute(mp, opts.mergeExactLimit, opts.mergeRqaoaWork) === 'blocks' && !control.shouldStop()) {
+    const { blockOf, members } = blockMembers(mp.network, opts.blockSize, createRng(deriveSeed(seed, MERGE_SEED_PART)));
+    const tasks = members.map((list, b) => taskOf(blockProblem(mp, list), b, deriveSeed(seed, MERGE_SEED_PART, b), opts, false));
+    state.phase = 'merge';
+    state.sides = Array.from(assignment);
+    state.mergeBlockOf = Array.from(blockOf);
+    return { kind: 'spread', state, tasks, progress: { from: BLOCKS_SHARE, to: BLOCKS_SHARE } };
   }
-  for (let i = 0; i < assignment.length; i++) if (flip[blockOf[i]] === 1) assignment[i] ^= 1;
+  const { flip, method, evaluations } = orientHere(mp, opts.mergeExactLimit, () => control.shouldStop());
+  state.merge.method = method;
+  state.evaluations += evaluations;
+  for (let i = 0; i < assignment.length; i++) if (flip[state.blockOf[i]] === 1) assignment[i] ^= 1;
+  return null;
+}
+
+/**
+ * Blocks of blocks, from the sub-block answers: the block graph's own assignment (each sub-block
+ * as its QAOA answered), the sub-blocks' orientations on it (exact or recursive QAOA), then each
+ * block flipped by its side. A sub-block without an answer (cancelled) keeps its blocks as they are.
+ */
+function finishMergeBlocks(problem: Problem, opts: DecomposeOptions, state: BlocksState, blockCount: number, answers: BlockAnswer[], control: DecomposeControl): Int32Array {
+  const assignment = Int32Array.from(state.sides);
+  const mp = orientationProblem(problem, state.blockOf, blockCount, assignment);
+  const subOf = state.mergeBlockOf!;
+  const subMembers = membersOf(subOf);
+  const flip = Int32Array.from(mp.pins, (p) => (p >= 0 ? p : 0));
+  for (const a of byBlock(answers, subMembers.length)) {
+    if (!a) continue;
+    state.evaluations += a.evaluations;
+    state.shots += a.shots;
+    if (a.solved) subMembers[a.block].forEach((b, i) => (flip[b] = a.sides[i]));
+  }
+  const top = orientHere(orientationProblem(mp, subOf, subMembers.length, flip), opts.mergeExactLimit, () => control.shouldStop());
+  state.evaluations += top.evaluations;
+  for (let b = 0; b < blockCount; b++) if (top.flip[subOf[b]] === 1) flip[b] ^= 1;
+  for (let i = 0; i < assignment.length; i++) if (flip[state.blockOf[i]] === 1) assignment[i] ^= 1;
+  state.merge.method = 'blocks';
+  state.phase = 'blocks';
+  state.mergeBlockOf = undefined;
+  return assignment;
 }
 
 /** Start improvement round `round` from `current`, or finish when no round is due. */
@@ -216,12 +246,20 @@ export function resumeBlocks(problem: Problem, opts: DecomposeOptions, seed: num
     return nextRound(problem, opts, seed, state, members, current, control);
   }
 
-  const assignment = collectBlocks(problem, state, members, answers);
-  if (problem.kind === 'bisection') return finishBisection(problem, opts, state, members, assignment, control);
-  const beforeMerge = crossingWeight(problem, assignment);
-  if (blockCount > 1) orientMaxcut(problem, state, state.blockOf, blockCount, assignment, opts, control);
+  let assignment: Int32Array;
+  if (state.phase === 'merge') {
+    assignment = finishMergeBlocks(problem, opts, state, blockCount, answers, control);
+  } else {
+    assignment = collectBlocks(problem, state, members, answers);
+    if (problem.kind === 'bisection') return finishBisection(problem, opts, state, members, assignment, control);
+    state.blocksValue = crossingWeight(problem, assignment);
+    if (blockCount > 1) {
+      const spread = mergeMaxcut(problem, opts, seed, state, blockCount, assignment, control);
+      if (spread) return spread;
+    }
+  }
   state.mergedValue = crossingWeight(problem, assignment);
-  state.merge.gain = state.mergedValue - beforeMerge;
+  state.merge.gain = state.mergedValue - state.blocksValue;
   control.onStep?.(BLOCKS_SHARE, state.mergedValue);
   return nextRound(problem, opts, seed, state, members, assignment, control);
 }

@@ -54,6 +54,8 @@ export interface DecomposeOptions {
    * blocks' QAOA, the merge and the QAOA rounds alone (a bisection may then miss the balance).
    */
   refine: boolean;
+  /** Recursive QAOA work above which a max-cut merge goes to blocks of blocks (block-merge.ts; not a setting: tests lower it). */
+  mergeRqaoaWork?: number;
 }
 
 export interface BlockReport {
@@ -69,7 +71,7 @@ export interface DecomposeOutcome {
   blocks: BlockReport[];
   /** Block id per depot (the split). */
   blockOf: Int32Array;
-  merge: { method: 'single' | 'exact' | 'rqaoa' | 'local'; blocks: number; gain: number };
+  merge: { method: 'single' | 'exact' | 'rqaoa' | 'blocks' | 'local'; blocks: number; gain: number };
   /** Cut after merging, before the 1-flip refinement; and flips the refinement made. */
   mergedValue: number;
   /** Cut gained by the improvement rounds (block re-solves with fixed surroundings). */
