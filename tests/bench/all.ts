@@ -156,6 +156,8 @@ export function ratiosOf(bench: string, out: string): RatioRow[] {
   if (bench === 'spread') {
     const m = /wall-time ratio: \*\*([\d.]+)\*\*/.exec(out);
     if (m) rows.push({ bench, metric: 'one 2,000-depot qaoa-blocks run, 1-worker / 2-worker wall time (shared machine: load beside it)', measured: Number(m[1]), target: 1.6, better: 'higher', unit: '×' });
+    const a = /Amdahl's bound on the 2-worker ratio \*\*([\d.]+)\*\*/.exec(out);
+    if (a) rows.push({ bench, metric: "the same run's Amdahl bound at 2 workers, from the engine's measured serial CPU share (not a speed-up; what the stages allow)", measured: Number(a[1]), target: 1.6, better: 'higher', unit: '×' });
   }
   if (bench === 'load') {
     const m = /^LOAD-METRICS (.*)$/m.exec(out);
