@@ -41,12 +41,18 @@ export interface WorkerChild {
   kill(signal?: NodeJS.Signals): Promise<string>;
 }
 
-/** A real solve worker process with the current environment (plus `extra`). */
-export async function startWorkerChild(extra: Record<string, string> = {}): Promise<WorkerChild> {
+/**
+ * A real solve worker process with the current environment (plus `extra`). `ownSession`: start it
+ * in a session of its own (setsid), as a worker started as its own service runs — Linux shares
+ * a busy machine's CPU between sessions first (autogroup scheduling), so workers started in the
+ * caller's session together get one session's share however many there are.
+ */
+export async function startWorkerChild(extra: Record<string, string> = {}, opts: { ownSession?: boolean } = {}): Promise<WorkerChild> {
   const child = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), ['server/worker.ts'], {
     cwd: ROOT,
     env: { ...process.env, ...extra },
     stdio: ['ignore', 'pipe', 'pipe'],
+    detached: opts.ownSession === true,
   });
   let out = '';
   child.stdout!.on('data', (d) => (out += d));

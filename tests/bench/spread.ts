@@ -102,9 +102,23 @@ async function main() {
   const resultOf = async (id: number) => JSON.parse(String((await deps.models.RunJob.findOne({ where: { runId: id } }))!.get('result'))) as { value: number; assignment: number[]; spread?: { stages: number; batches: number; workers: Record<string, number> } };
 
   const rows: { workers: number; seconds: number; cpu: number; value: number; stages: number; batches: number; answeredBy: number[]; loadBefore: string; loadAfter: string; assignment: number[] }[] = [];
+  // Workers in sessions of their own outlive this process unless stopped: stop them on any exit.
+  const started: { pid: number; child: { pid?: number } }[] = []; // running now (emptied once stopped)
+  process.on('exit', () => {
+    for (const w of started) for (const pid of [w.pid, w.child.pid]) {
+      try { if (pid) process.kill(pid, 'SIGKILL'); } catch { /* already gone */ }
+    }
+  });
   for (const count of [1, 2]) {
     const workers = [];
-    for (let w = 0; w < count; w++) workers.push(await startWorkerChild({ WORKER_CONCURRENCY: '1' }));
+    // Each worker in a session of its own, as separately started worker services are: on a busy
+    // machine Linux divides the cores between sessions first (autogroup), so workers sharing this
+    // process's session would together get one session's share, 1 or 2 of them alike.
+    for (let i = 0; i < count; i++) {
+      const worker = await startWorkerChild({ WORKER_CONCURRENCY: '1' }, { ownSession: true });
+      workers.push(worker);
+      started.push(worker);
+    }
     // Warm-up: every worker's solve thread loads the engine once (a 200-depot spread run).
     const warm = await createRun(deps, actor, { versionId: small, problem: { kind: 'maxcut' }, solvers: [{ solver: 'qaoa-blocks', settings: { maxIterations: 20 } }], timeLimitSeconds: 600, seed: 2 });
     await finished(warm.id, 600_000);
@@ -119,6 +133,7 @@ async function main() {
     rows.push({ workers: count, seconds, cpu, value: r.value, stages: r.spread?.stages ?? 0, batches: r.spread?.batches ?? 0, answeredBy: Object.values(r.spread?.workers ?? {}), loadBefore, loadAfter: load(), assignment: r.assignment });
     console.log(`${count} worker(s): ${seconds.toFixed(1)} s, workers' CPU ${cpu.toFixed(1)} s, cut ${r.value}, load ${load()}`);
     await Promise.all(workers.map((w) => w.kill('SIGTERM')));
+    started.length = 0; // stopped and waited for: their pids are no longer ours
   }
   await closeSolveQueue(deps);
   await closeDeps(deps);
@@ -132,7 +147,7 @@ async function main() {
     '',
     `Written by \`npm run bench:spread\` on ${stamp} UTC — ${cpu}, ${os.cpus().length} cores, Node ${process.version}; MariaDB, Redis and this process on the same machine. **The machine is shared with other engineers' work while measuring**: the load averages (1, 5, 15 min) beside each row show how busy it was; on a loaded 2-core machine the ratio is lower than on an idle one.`,
     '',
-    `One \`qaoa-blocks\` run on the graph of ${INSTANCE} (${n} depots, ${edges.length} lanes, all at volume 1; Helmberg & Rendl 2000), seed 1, default settings except maxIterations ${MAX_ITERATIONS}, time limit 3600 s (never reached), with 1 and then 2 worker processes of one solve thread each (stages of ≥ 16 blocks spread as up to 24 child entries each; server/workers/spread-job.ts). Wall time from creation to \`succeeded\`.`,
+    `One \`qaoa-blocks\` run on the graph of ${INSTANCE} (${n} depots, ${edges.length} lanes, all at volume 1; Helmberg & Rendl 2000), seed 1, default settings except maxIterations ${MAX_ITERATIONS}, time limit 3600 s (never reached), with 1 and then 2 worker processes of one solve thread each, each worker in a session of its own like a separately started worker service (Linux's autogroup scheduling shares a busy machine's cores between sessions first; workers in the benchmark's own session would get one session's share together) (stages of ≥ 16 blocks spread as up to 24 child entries each; server/workers/spread-job.ts). Wall time from creation to \`succeeded\`.`,
     '',
     '| workers | seconds | workers\' CPU s | cores used (CPU / wall) | cut | stages | child batches | batches answered per worker | load before | load after |',
     '|---|---|---|---|---|---|---|---|---|---|',
