@@ -75,5 +75,5 @@ export function emptyRegionNote(kind: RunProblem['kind'], emptyRegions: readonly
   const names = emptyRegions.map((r) => partName(kind, r));
   const list = names.length === 1 ? `${names[0]} has` : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]} have`;
   const word = partWord(kind);
-  return `${list} no depots: the balance rule caps each ${word}'s demand but sets no minimum, so leaving a ${word} empty was allowed and crossed less volume. Lower the balance tolerance to use every ${word}.`;
+  return `${list} no depots: the balance rule caps each ${word}'s demand but sets no minimum, so a solver may leave a ${word} empty (fewer ${word}s usually cross less volume). Lower the balance tolerance to use every ${word}.`;
 }
