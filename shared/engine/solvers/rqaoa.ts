@@ -8,6 +8,8 @@ import { z } from 'zod';
 import type { Problem } from '../problem/types';
 import { defaultBatchFraction, RQAOA_MAX_REMAINDER } from '../variational/rqaoa';
 import { rqaoaOnProblem, rqaoaRefusal } from '../variational/rqaoa-problem';
+import { BLOCK_QAOA_DEFAULTS, descendByBlocks } from '../variational/block-stages';
+import { crossingWeight } from '../problem/evaluate';
 import { defineSolver } from './define';
 import { booleanField, intField, settingsObject } from './settings';
 
@@ -17,6 +19,12 @@ const settings = settingsObject({
   stopAt: intField(16, 1, RQAOA_MAX_REMAINDER),
   batch: z.union([z.literal('auto'), z.number({ error: batchMessage }).min(0, { error: batchMessage }).max(0.5, { error: batchMessage })], { error: batchMessage }).default('auto'),
   refine: booleanField(true),
+  /**
+   * Max-cut: after the recursion, QAOA descent rounds until the time limit (blocks of 14 re-solved
+   * with their surroundings fixed, on a redrawn split each round; variational/block-stages.ts). At a
+   * 30 s cap on G11, G14, G22 … (docs/benchmarks.md, "Large variational").
+   */
+  descent: booleanField(true),
 });
 
 export type RqaoaSettings = z.output<typeof settings>;
@@ -40,31 +48,45 @@ export const rqaoaSolver = defineSolver({
   settings,
   refuses: (problem) => rqaoaRefusal(problem),
   /**
-   * The widest state handled at once is the exact remainder (stopAt spins); the level-1 rounds
-   * read an n-qubit circuit's expectations from the closed form without building its state.
+   * The widest state handled at once is the exact remainder (stopAt spins) or, with the max-cut
+   * descent, one block; the level-1 rounds read an n-qubit circuit's expectations from the closed
+   * form without building its state.
    */
-  qubits: (problem, s) => Math.min(s.stopAt, freeSpins(problem)),
+  qubits: (problem, s) => Math.min(Math.max(s.stopAt, s.descent && problem.kind === 'maxcut' ? BLOCK_QAOA_DEFAULTS.blockSize : 0), freeSpins(problem)),
   async solve(problem, s, ctx) {
     const started = performance.now();
     const elapsed = () => (performance.now() - started) / 1000;
     const spins = freeSpins(problem);
+    const descend = s.descent && problem.kind === 'maxcut';
     const out = rqaoaOnProblem(problem, {
       stopAt: s.stopAt,
       batchFraction: s.batch === 'auto' ? defaultBatchFraction(spins) : s.batch,
-      refine: s.refine,
+      // With the descent, the classical refinement runs once, after it (descendByBlocks).
+      refine: s.refine && !descend,
       hurry: () => ctx.cancel?.cancelled === true || elapsed() >= HURRY_AT * ctx.timeLimitSeconds,
       overdue: () => ctx.cancel?.cancelled === true || elapsed() >= ctx.timeLimitSeconds,
       onRound: (r) => ctx.onProgress?.({ fraction: Math.min(1, Math.max(1 - r.spins / Math.max(1, spins), elapsed() / ctx.timeLimitSeconds)), iteration: r.round, energy: r.energy }),
     });
+    const descent = descend
+      ? descendByBlocks(problem, out.assignment, { ...BLOCK_QAOA_DEFAULTS, refine: s.refine }, ctx.seed, {
+        shouldStop: () => ctx.cancel?.cancelled === true || elapsed() >= ctx.timeLimitSeconds,
+        onStep: (_f, bestValue) => ctx.onProgress?.({ fraction: Math.min(1, elapsed() / ctx.timeLimitSeconds), bestValue }),
+      }, ctx.stateKernels)
+      : null;
+    const assignment = descent ? descent.assignment : out.assignment;
+    const value = descent ? crossingWeight(problem, assignment) : out.value;
+    const unrefinedValue = descent ? descent.unrefinedValue : out.unrefinedValue;
+    const refineMoves = descent ? descent.refineFlips : out.refineMoves;
     const notes = [
-      `${out.rounds} round(s) of level-1 QAOA on the closed form, ${out.steps.length} depot(s) eliminated, ${out.remainder} solved exactly at the end`,
-      s.refine ? `classical local search refined the answer: ${out.unrefinedValue} before, ${out.value} after (${out.refineMoves} move(s))` : 'no classical refinement (the answer is the recursion\'s own)',
+      `${out.rounds} round(s) of level-1 QAOA on the closed form, ${out.steps.length} depot(s) eliminated, ${out.remainder} solved exactly at the end${descent ? ` (cut ${out.unrefinedValue})` : ''}`,
+      ...(descent ? [`${descent.rounds} QAOA descent round(s) on blocks of ${BLOCK_QAOA_DEFAULTS.blockSize} with fixed surroundings gained ${descent.roundsGain}`] : []),
+      s.refine ? `classical local search refined the answer: ${unrefinedValue} before, ${value} after (${refineMoves} move(s))` : 'no classical refinement (the answer is the variational method\'s own)',
       'heuristic: no optimality guarantee',
     ];
     if (!out.feasible) notes.push('the answer breaks the balance rule (reported, not hidden)');
     return {
-      value: out.value,
-      assignment: Array.from(out.assignment),
+      value,
+      assignment: Array.from(assignment),
       bound: null,
       gap: null,
       provenOptimal: false,
@@ -72,11 +94,11 @@ export const rqaoaSolver = defineSolver({
       expectation: out.expectation,
       params: [...out.params],
       seconds: elapsed(),
-      evaluations: out.evaluations,
-      shots: 0,
+      evaluations: out.evaluations + (descent?.evaluations ?? 0),
+      shots: descent?.shots ?? 0,
       notes,
       ...(out.feasible ? {} : { infeasible: true }),
-      refinement: { applied: s.refine, unrefinedValue: out.unrefinedValue, unrefinedInfeasible: !out.unrefinedFeasible, moves: out.refineMoves },
+      refinement: { applied: s.refine, unrefinedValue, unrefinedInfeasible: !out.unrefinedFeasible, moves: refineMoves },
       recursion: { rounds: out.rounds, remainder: out.remainder, eliminations: out.steps.slice(0, 2000), eliminationsTotal: out.steps.length, roundLog: out.roundLog },
     };
   },

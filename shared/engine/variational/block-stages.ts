@@ -21,11 +21,20 @@ import { createRng, deriveSeed } from '../random';
 import type { LayerBackend } from '../statevector/backend';
 import { runBlockTask, flatLanes, type BlockAnswer, type BlockTask } from './block-task';
 import {
-  blockCouplings, blockInContext, blockMembers, blockProblem, orientForBisection, wholeBlockMoves,
+  blockCouplings, blockInContext, exactSmallMaxcut, blockMembers, blockProblem, orientForBisection, wholeBlockMoves,
   type BlockReport, type DecomposeControl, type DecomposeOptions, type DecomposeOutcome,
 } from './decompose';
 import type { VariationalTracePoint } from './qaoa-run';
 import { mergeRoute, orientationProblem, orientHere } from './block-merge';
+import { encodeMaxCut } from '../encodings/maxcut';
+import { bitsOfSpins, defaultBatchFraction, RQAOA_MAX_REMAINDER, runRqaoa } from './rqaoa';
+
+/**
+ * Default block QAOA settings (the qaoa-blocks settings' defaults, and rqaoa's descent rounds):
+ * blocks of 14 depots, 2 layers, exact expectations, best of 1,024 read-out shots, 8 simplex
+ * iterations per block (solvers/qaoa-blocks.ts says why), up to 100 descent rounds.
+ */
+export const BLOCK_QAOA_DEFAULTS = { blockSize: 14, layers: 2, shots: 0, readoutShots: 1024, restarts: 1, maxIterations: 8, mergeExactLimit: 16, rounds: 100 } as const;
 
 /** Most trace points kept from the block solves (evenly thinned above; the chart needs no more). */
 export const MAX_BLOCK_TRACE = 2000;
@@ -39,6 +48,10 @@ export interface BlocksState {
   blockOf: number[];
   /** Sides per depot the round's tasks (phase 'round') or the block graph (phase 'merge') were built on. */
   sides: number[];
+  /** Block id per depot of the round's own blocking (phase 'round'; redrawn each round after the first). */
+  roundBlockOf: number[];
+  /** Rounds in a row that raised nothing (the descent stops after IDLE_ROUNDS_TO_STOP of them). */
+  idleRounds: number;
   /** Phase 'merge': the sub-block of each block (the block graph's split). */
   mergeBlockOf?: number[];
   /** Cut right after the first block solves, before the merge. */
@@ -93,7 +106,7 @@ export function planBlocks(problem: Problem, opts: DecomposeOptions, seed: numbe
   const { blockOf, members } = blockMembers(problem.network, opts.blockSize, createRng(seed));
   const tasks = members.map((list, b) => taskOf(blockProblem(problem, list, problem.kind === 'bisection' ? 'bisection' : 'maxcut'), b, deriveSeed(seed, 0, b), opts, true));
   const state: BlocksState = {
-    kind: problem.kind, phase: 'blocks', round: 0, blockOf: Array.from(blockOf), sides: [], roundStart: 0, blocks: [],
+    kind: problem.kind, phase: 'blocks', round: 0, blockOf: Array.from(blockOf), sides: [], roundBlockOf: [], idleRounds: 0, roundStart: 0, blocks: [],
     merge: { method: 'single', blocks: members.length, gain: 0 }, blocksValue: 0, mergedValue: 0, roundsGain: 0, refineFlips: 0, evaluations: 0, shots: 0, stopped: false, trace: [],
   };
   return { kind: 'spread', state, tasks, progress: { from: 0, to: BLOCKS_SHARE } };
@@ -186,34 +199,74 @@ function finishMergeBlocks(problem: Problem, opts: DecomposeOptions, state: Bloc
   return assignment;
 }
 
+/**
+ * The blocking of improvement round `round`: the plan's own blocks first, then a fresh split
+ * per round (its own seed), so the next descent step moves depots across the last round's
+ * block borders (a block-coordinate descent over changing blocks; Zhou et al. 2022 solve the
+ * blocks of one split once, we repeat with redrawn splits).
+ */
+export function roundBlocking(problem: Problem, opts: DecomposeOptions, seed: number, planned: ArrayLike<number>, round: number): Int32Array {
+  if (round === 0) return Int32Array.from(planned);
+  return blockMembers(problem.network, opts.blockSize, createRng(deriveSeed(seed, ROUND_SPLIT_STREAM, round))).blockOf;
+}
+
+/** Seed stream of the redrawn splits (apart from the block tasks' streams 0…rounds). */
+const ROUND_SPLIT_STREAM = 0x5b10c;
+
+/** A redrawn split can raise the cut after one that did not: stop after this many idle rounds in a row. */
+export const IDLE_ROUNDS_TO_STOP = 3;
+
+/**
+ * Re-orienting a round's blocks: the merge's recursive QAOA takes at least this share of the
+ * blocks per round and hurries after ROUND_ORIENT_HURRY_SECONDS (one pass after twice that), so a
+ * dense block graph cannot eat the rounds' time (one-per-round on G22's block graph: 12–23 s).
+ */
+export const ROUND_ORIENT_BATCH = 0.05;
+export const ROUND_ORIENT_HURRY_SECONDS = 1.5;
+
+/** The round's blocks as whole spins, oriented on the current sides (exact or time-boxed recursive QAOA). */
+function orientRoundBlocks(problem: Problem, blockOf: ArrayLike<number>, blockCount: number, sides: Int32Array, opts: DecomposeOptions, control: DecomposeControl): { flip: ArrayLike<number>; evaluations: number } {
+  const mp = orientationProblem(problem, blockOf, blockCount, sides);
+  if (freeDepots(mp.pins).length <= opts.mergeExactLimit) return { flip: exactSmallMaxcut(mp), evaluations: 0 };
+  const started = performance.now();
+  const seconds = () => (performance.now() - started) / 1000;
+  const encoding = encodeMaxCut(mp);
+  const out = runRqaoa(encoding.operator, {
+    stopAt: Math.min(opts.mergeExactLimit, RQAOA_MAX_REMAINDER), batchFraction: Math.max(ROUND_ORIENT_BATCH, defaultBatchFraction(encoding.numQubits)),
+    hurry: () => control.shouldStop() || seconds() >= ROUND_ORIENT_HURRY_SECONDS, overdue: () => control.shouldStop() || seconds() >= 2 * ROUND_ORIENT_HURRY_SECONDS,
+  });
+  return { flip: encoding.decode(bitsOfSpins(out.spins)), evaluations: out.evaluations };
+}
+
 /** Start improvement round `round` from `current`, or finish when no round is due. */
-function nextRound(problem: Problem, opts: DecomposeOptions, seed: number, state: BlocksState, members: number[][], current: Int32Array, control: DecomposeControl): BlocksStep {
+function nextRound(problem: Problem, opts: DecomposeOptions, seed: number, state: BlocksState, current: Int32Array, control: DecomposeControl): BlocksStep {
   const free = freeDepots(problem.pins);
-  if (state.round < opts.rounds && members.length > 1 && !control.shouldStop()) {
-    if (opts.refine) {
-      const st = createFlipState(problem.network, current);
-      state.refineFlips += polishMaxcut(problem, st, free);
-      current = Int32Array.from(st.side);
-    }
-    const tasks = members.flatMap((list, b) => (list.some((v) => problem.pins[v] < 0) ? [taskOf(blockInContext(problem, list, current).sub, b, deriveSeed(seed, state.round + 1, b), opts, false)] : []));
+  if (state.round < opts.rounds && state.idleRounds < IDLE_ROUNDS_TO_STOP && free.length > 0 && !control.shouldStop()) {
+    const blockOf = roundBlocking(problem, opts, seed, state.blockOf, state.round);
+    const members = membersOf(blockOf);
+    const tasks = members.length > 1
+      ? members.flatMap((list, b) => (list.some((v) => problem.pins[v] < 0) ? [taskOf(blockInContext(problem, list, current).sub, b, deriveSeed(seed, state.round + 1, b), opts, false)] : []))
+      : [];
     if (tasks.length > 0) {
       state.phase = 'round';
       state.sides = Array.from(current);
+      state.roundBlockOf = Array.from(blockOf);
       state.roundStart = crossingWeight(problem, current);
       return { kind: 'spread', state, tasks, progress: roundProgress(opts, state.round) };
     }
   }
-  // Final 1-flip refinement on the whole network (free depots only).
+  // The variational answer is complete here (the merge and the QAOA rounds); the 1-flip
+  // refinement runs once, after it, on the whole network (free depots only).
+  const unrefinedValue = crossingWeight(problem, current);
   const st = createFlipState(problem.network, current);
   if (opts.refine) state.refineFlips += polishMaxcut(problem, st, free);
-  const final = Int32Array.from(st.side);
-  return { kind: 'done', outcome: outcomeOf(state, final, opts.refine ? state.mergedValue : crossingWeight(problem, final), true) };
+  return { kind: 'done', outcome: outcomeOf(state, Int32Array.from(st.side), unrefinedValue, true) };
 }
 
 function outcomeOf(state: BlocksState, assignment: Int32Array, unrefinedValue: number, unrefinedFeasible: boolean): DecomposeOutcome {
   return {
     assignment, blocks: state.blocks, blockOf: Int32Array.from(state.blockOf), merge: state.merge, mergedValue: state.mergedValue,
-    roundsGain: state.roundsGain, refineFlips: state.refineFlips, unrefinedValue, unrefinedFeasible,
+    roundsGain: state.roundsGain, rounds: state.round, refineFlips: state.refineFlips, unrefinedValue, unrefinedFeasible,
     evaluations: state.evaluations, shots: state.shots, trace: state.trace, stopped: state.stopped,
   };
 }
@@ -224,15 +277,28 @@ export function resumeBlocks(problem: Problem, opts: DecomposeOptions, seed: num
   const blockCount = members.length;
   if (state.phase === 'round') {
     // Proposals from one snapshot, applied in block order; each kept only if the cut rises.
+    const roundMembers = membersOf(state.roundBlockOf);
     let current = Int32Array.from(state.sides);
     let value = state.roundStart;
-    for (const a of byBlock(answers, blockCount)) {
+    for (const a of byBlock(answers, roundMembers.length)) {
       if (!a) continue;
       state.evaluations += a.evaluations;
       state.shots += a.shots;
       if (!a.solved) continue;
       const trial = current.slice();
-      members[a.block].forEach((v, i) => (trial[v] = a.sides[i]));
+      roundMembers[a.block].forEach((v, i) => (trial[v] = a.sides[i]));
+      const trialValue = crossingWeight(problem, trial);
+      if (trialValue > value + 1e-12) {
+        current = trial;
+        value = trialValue;
+      }
+    }
+    // Then the round's blocks as whole spins, re-oriented on the current sides (moves a whole
+    // block where single blocks are stuck); kept when the cut rises.
+    if (roundMembers.length > 1 && !control.shouldStop()) {
+      const { flip, evaluations } = orientRoundBlocks(problem, state.roundBlockOf, roundMembers.length, current, opts, control);
+      state.evaluations += evaluations;
+      const trial = current.map((side, i) => (flip[state.roundBlockOf[i]] === 1 ? side ^ 1 : side));
       const trialValue = crossingWeight(problem, trial);
       if (trialValue > value + 1e-12) {
         current = trial;
@@ -241,9 +307,9 @@ export function resumeBlocks(problem: Problem, opts: DecomposeOptions, seed: num
     }
     state.roundsGain += value - state.roundStart;
     control.onStep?.(roundProgress(opts, state.round).to, value);
-    // A round that changed nothing: later ones would not either.
-    state.round = value > state.roundStart + 1e-12 ? state.round + 1 : opts.rounds;
-    return nextRound(problem, opts, seed, state, members, current, control);
+    state.idleRounds = value > state.roundStart + 1e-12 ? 0 : state.idleRounds + 1;
+    state.round++;
+    return nextRound(problem, opts, seed, state, current, control);
   }
 
   let assignment: Int32Array;
@@ -261,7 +327,7 @@ export function resumeBlocks(problem: Problem, opts: DecomposeOptions, seed: num
   state.mergedValue = crossingWeight(problem, assignment);
   state.merge.gain = state.mergedValue - state.blocksValue;
   control.onStep?.(BLOCKS_SHARE, state.mergedValue);
-  return nextRound(problem, opts, seed, state, members, assignment, control);
+  return nextRound(problem, opts, seed, state, assignment, control);
 }
 
 /** Bisection: block orientations under the global window, whole-block moves, balance repair and polish. */
@@ -303,12 +369,9 @@ function finishBisection(problem: Problem, opts: DecomposeOptions, state: Blocks
   return { kind: 'done', outcome: outcomeOf(state, Int32Array.from(st.side), unrefinedValue, unrefinedFeasible) };
 }
 
-/**
- * The whole method in this process: every stage's tasks run here, in order. The solve worker
- * runs the same stages with the tasks spread over the queue instead.
- */
-export function decomposeByBlocks(problem: Problem, opts: DecomposeOptions, seed: number, control: DecomposeControl, stateKernels?: LayerBackend): DecomposeOutcome {
-  let step = planBlocks(problem, opts, seed);
+/** Every stage's tasks run here, in order (the solve worker spreads them over the queue instead). */
+function runStages(problem: Problem, opts: DecomposeOptions, seed: number, first: BlocksStep, control: DecomposeControl, stateKernels?: LayerBackend): DecomposeOutcome {
+  let step = first;
   let iterationBase = 0;
   while (step.kind === 'spread') {
     const { tasks, progress } = step;
@@ -324,4 +387,27 @@ export function decomposeByBlocks(problem: Problem, opts: DecomposeOptions, seed
     step = resumeBlocks(problem, opts, seed, step.state, answers, control);
   }
   return step.outcome;
+}
+
+/** The whole method in this process. */
+export function decomposeByBlocks(problem: Problem, opts: DecomposeOptions, seed: number, control: DecomposeControl, stateKernels?: LayerBackend): DecomposeOutcome {
+  return runStages(problem, opts, seed, planBlocks(problem, opts, seed), control, stateKernels);
+}
+
+/**
+ * The descent rounds alone, from a given max-cut answer (rqaoa's, solvers/rqaoa.ts): blocks of
+ * a fresh split re-solved by QAOA with their surroundings fixed, kept when the cut rises, on a
+ * redrawn split each round, then the 1-flip refinement when `opts.refine`. `unrefinedValue` of
+ * the outcome is the cut after the rounds, before that refinement.
+ */
+export function descendByBlocks(problem: Problem, start: ArrayLike<number>, opts: DecomposeOptions, seed: number, control: DecomposeControl, stateKernels?: LayerBackend): DecomposeOutcome {
+  if (problem.kind !== 'maxcut') throw new Error(`the block descent answers max-cut, not ${problem.kind}`);
+  const current = Int32Array.from(start);
+  const { blockOf, members } = blockMembers(problem.network, opts.blockSize, createRng(seed));
+  const value = crossingWeight(problem, current);
+  const state: BlocksState = {
+    kind: 'maxcut', phase: 'round', round: 0, blockOf: Array.from(blockOf), sides: [], roundBlockOf: [], idleRounds: 0, roundStart: value, blocks: [],
+    merge: { method: 'single', blocks: members.length, gain: 0 }, blocksValue: value, mergedValue: value, roundsGain: 0, refineFlips: 0, evaluations: 0, shots: 0, stopped: false, trace: [],
+  };
+  return runStages(problem, opts, seed, nextRound(problem, opts, seed, state, current, control), control, stateKernels);
 }

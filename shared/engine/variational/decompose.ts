@@ -44,8 +44,9 @@ export interface DecomposeOptions {
   /** Merge by exact enumeration when at most this many blocks are free, else by recursive QAOA (rqaoa.ts). */
   mergeExactLimit: number;
   /**
-   * Improvement rounds after the merge: each block is solved again by QAOA with the depots
-   * around it fixed at their current sides (lanes to them become fields); kept when the cut rises.
+   * Improvement rounds after the merge (a block-coordinate descent): each block is solved again
+   * by QAOA with the depots around it fixed at their current sides (lanes to them become
+   * fields), kept when the cut rises; every round after the first on a freshly drawn split.
    */
   rounds: number;
   /**
@@ -74,8 +75,9 @@ export interface DecomposeOutcome {
   merge: { method: 'single' | 'exact' | 'rqaoa' | 'blocks' | 'local'; blocks: number; gain: number };
   /** Cut after merging, before the 1-flip refinement; and flips the refinement made. */
   mergedValue: number;
-  /** Cut gained by the improvement rounds (block re-solves with fixed surroundings). */
+  /** Cut gained by the improvement rounds (block re-solves with fixed surroundings), and how many ran. */
   roundsGain: number;
+  rounds: number;
   refineFlips: number;
   /** Value before any classical local search: after the merge (refine on) or the final one (off). */
   unrefinedValue: number;
