@@ -139,6 +139,11 @@ export interface RunSizeRefusal {
   message: string;
 }
 
+/** Surcharge in cents for one variational solver simulating `extra` qubits above the plan's included ones (memory and time double per qubit). */
+export function extraQubitCharge(plan: string | null | undefined, extra: number): number {
+  return extra > 0 ? planPrices(plan).perQubitDoubling * (2 ** extra - 1) : 0;
+}
+
 /**
  * The one size rule: a run may go up to the paid ceiling's limits (paidRunPlan) — depots, seconds
  * per solver, and the qubits each variational solver says it will simulate. Beyond them it is
@@ -199,7 +204,7 @@ export function priceOfRun(plan: string | null | undefined, size: RunSize): RunP
   lines.push({ label: 'Large solve', amount: p.largeRunBase });
   if (overDepots > 0) lines.push({ label: `${overDepots} depots above ${included.maxDepots}`, amount: Math.ceil(overDepots / 100) * p.per100DepotsOver });
   extraQubits.forEach((extra, i) => {
-    if (extra > 0) lines.push({ label: `Solver ${i + 1}: ${extra} qubits above ${included.maxQubits}`, amount: p.perQubitDoubling * (2 ** extra - 1) });
+    if (extra > 0) lines.push({ label: `Solver ${i + 1}: ${extra} qubits above ${included.maxQubits}`, amount: extraQubitCharge(plan, extra) });
   });
   if (overSeconds > 0) lines.push({ label: `${size.solvers.length} solver(s) × ${overSeconds} s above ${included.maxSecondsPerSolver} s`, amount: Math.ceil(overSeconds / 60) * p.perExtraMinute * size.solvers.length });
   return { amount: lines.reduce((s, l) => s + l.amount, 0), currency: CURRENCY, lines };

@@ -1,5 +1,5 @@
 import { StyleSheet, View } from 'react-native';
-import { planPrices } from '../../shared/plans';
+import { extraQubitCharge, planPrices } from '../../shared/plans';
 import type { BillingSummary } from '../../shared/schemas/billing';
 import { space } from '../theme';
 import { Card } from '../ui/Card';
@@ -20,7 +20,7 @@ export function PlanCard(props: { summary: BillingSummary }) {
       <View style={styles.list}>
         <Small>{`Large solve: ${euros(p.largeRunBase)} per run`}</Small>
         <Small>{`+ ${euros(p.per100DepotsOver)} per started 100 depots above ${n(plan.includedDepots)}`}</Small>
-        <Small>{`+ ${euros(p.perQubitDoubling)} × (2^extra − 1) per quantum (variational) solver, where extra = qubits above ${n(plan.includedQubits)} (each extra qubit doubles the simulation)`}</Small>
+        <Small testID="plan-qubit-price">{`+ per quantum (variational) solver above ${n(plan.includedQubits)} qubits: ${[1, 2, 3].map((extra) => `${euros(extraQubitCharge(plan.id, extra))} for ${extra} more`).join(', ')}, and so on — each further qubit doubles the simulation`}</Small>
         <Small>{`+ ${euros(p.perExtraMinute)} per solver per started minute above ${plan.includedSeconds} s`}</Small>
         <Small>{`Runs beyond the monthly allowance: ${euros(p.smallRun)} each`}</Small>
       </View>

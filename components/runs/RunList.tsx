@@ -95,7 +95,8 @@ export function RunList(props: { role: Role | null; compareWith?: number }) {
       ) : (
         <View style={styles.list}>{runs.data.map(row)}</View>
       )}
-      {compare}
+      {/* Below a long list only the compare button repeats (it appears once runs are ticked); the operator link stays in the header. */}
+      {compareButton}
       {!mayCompare ? <Small>Comparing runs is for analysts.</Small> : null}
     </Screen>
   );

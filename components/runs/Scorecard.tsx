@@ -3,6 +3,7 @@ import { colors, fonts, radius, space, TOUCH, WIDE_BREAKPOINT } from '../theme';
 import { Body, Label, Small } from '../ui/Text';
 import { formatCount, formatGap, formatRatio, formatSeconds, formatShots, formatValue } from './format';
 import type { Scorecard as ScorecardData, ScoreRow } from './scorecard';
+import { trivialBound } from './scorecard';
 
 const STATUS_WORDS: Record<string, string> = { queued: 'Waiting', running: 'Running', succeeded: 'Done', failed: 'Failed', cancelled: 'Cancelled' };
 
@@ -44,7 +45,11 @@ export function Scorecard(props: { card: ScorecardData; valueName: string; wide?
   const { width } = useWindowDimensions();
   const wide = props.wide ?? width >= WIDE_BREAKPOINT;
   const { card } = props;
-  const boundText = card.bound === null ? 'No proven bound for this run.' : `Best proven bound: ${formatValue(card.bound)} (${card.sense === 'max' ? 'no cut can exceed it' : 'no balanced split can cross less'}).`;
+  const boundText = card.bound === null
+    ? 'No proven bound for this run.'
+    : trivialBound(card.sense, card.bound)
+      ? `Best proven bound: ${formatValue(card.bound)} — no solver proved more than that a split crosses no negative volume, so no ratio or gap is shown.`
+      : `Best proven bound: ${formatValue(card.bound)} (${card.sense === 'max' ? 'no cut can exceed it' : 'no balanced split can cross less'}).`;
   const select = (row: ScoreRow) => (props.onSelect && row.value !== null ? () => props.onSelect?.(row.jobId) : undefined);
 
   if (!wide) {

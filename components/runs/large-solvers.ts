@@ -8,6 +8,7 @@ import { bestOf, better, gapOfKind, senseOf } from '../../shared/engine/problem/
 import type { RqaoaRoundEntry } from '../../shared/engine/variational/rqaoa-log';
 import { VARIATIONAL_MAX_QUBITS } from '../../shared/runs/default-solvers';
 import type { BestKnownView, JobView, ProblemInput } from '../../shared/schemas/runs';
+import { gapToBound } from './scorecard';
 
 /** The solvers proposed above the statevector limit (shared/runs/default-solvers.ts picks them). */
 export const LARGE_SOLVERS = ['rqaoa', 'qaoa-blocks'] as const;
@@ -84,7 +85,7 @@ export function largeComparison(run: { id: number; problem: Pick<ProblemInput, '
         unrefinedBalanced: ref ? !ref.unrefinedInfeasible : balanced,
         refinement,
         gapToBestKnown: r && balanced && bestKnown ? gapOfKind(kind, r.value, bestKnown.value) : null,
-        gapToBound: r && balanced ? gapOfKind(kind, r.value, bound) : null,
+        gapToBound: r && balanced ? gapToBound(kind, r.value, bound) : null,
         seconds: r ? r.seconds : null,
       };
     });

@@ -56,9 +56,23 @@ export function bestBound(run: ScorableRun): number | null {
   return bounds.reduce((a, b) => (tighter(sense, b, a) ? b : a));
 }
 
+/**
+ * A bound that says nothing: for a split, "the crossing weight is at least 0" holds for every
+ * answer, so a ratio of 0 and a gap of 100 % against it would read as a bad answer rather than as
+ * a missing proof. Such rows show no ratio or gap; the bound line says why.
+ */
+export const trivialBound = (sense: Sense, bound: number | null): boolean => sense === 'min' && bound !== null && bound <= 0;
+
+/** Certified gap of a value to the bound as the screens show it: none against a trivial bound. */
+export function gapToBound(kind: ScorableRun['problem']['kind'], value: number, bound: number | null): number | null {
+  if (bound !== null && trivialBound(senseOf(kind), bound) && value > bound) return null;
+  return gapOfKind(kind, value, bound);
+}
+
 /** Ratio of a value to the bound, oriented so that 1 is optimal for both senses. */
 export function ratioToBound(sense: Sense, value: number, bound: number | null): number | null {
   if (bound === null || !Number.isFinite(bound)) return null;
+  if (trivialBound(sense, bound) && value > bound) return null;
   if (sense === 'max') {
     if (bound <= 0) return value >= bound ? 1 : null;
     return value / bound;
@@ -82,7 +96,7 @@ export function buildScorecard(run: ScorableRun, labels: Record<string, string> 
       value: r ? r.value : null,
       bound,
       ratio: r ? ratioToBound(sense, r.value, bound) : null,
-      gap: r && !r.infeasible ? gapOfKind(kind, r.value, bound) : null,
+      gap: r && !r.infeasible ? gapToBound(kind, r.value, bound) : null,
       provenOptimal: !!r?.provenOptimal,
       balanced,
       seconds: r ? r.seconds : null,

@@ -3,7 +3,7 @@ import { refusedChosen } from '../../components/runs/setup';
 import { afterSignIn } from '../../components/auth/next';
 import { shortDate } from '../../components/billing/format';
 import { PlanCard } from '../../components/billing/PlanCard';
-import { formatMoney } from '../../shared/plans';
+import { formatMoney, priceOfRun } from '../../shared/plans';
 import type { BillingSummary } from '../../shared/schemas/billing';
 
 // Fixes from the end-to-end product walk (phone and wide): each check here failed before its fix.
@@ -29,6 +29,21 @@ describe('money and dates as customers read them', () => {
     const text = screen.getByTestId('billing-plan').textContent ?? '';
     expect(text).not.toMatch(/Free:/);
     expect(text).toContain('Included at no charge: runs up to 2,000 depots, 22 qubits and 600 s per solver — 1 of 1,000 included runs used this month.');
+  });
+
+  test('the qubit surcharge reads as prices, not a formula, and equals what a run above the qubits is charged', () => {
+    const summary = {
+      plan: { id: 'team', label: 'Team', includedDepots: 2000, includedQubits: 22, includedSeconds: 600, monthlyFreeRuns: 1000 },
+      runsThisMonth: 1,
+    } as unknown as BillingSummary;
+    render(<PlanCard summary={summary} />);
+    const line = screen.getByTestId('plan-qubit-price').textContent ?? '';
+    expect(line).not.toMatch(/\^|extra −|× \(/);
+    // The same rule prices a run: one QAOA solver 2 qubits above the Team plan's included 22.
+    const run = priceOfRun('team', { depots: 10, secondsPerSolver: 10, solvers: [{ family: 'variational', qubits: 24 }] })!;
+    const qubitLine = run.lines.find((l) => l.label.includes('qubits above'))!;
+    expect(line).toContain(`${formatMoney({ amount: qubitLine.amount, currency: 'eur' })} for 2 more`);
+    expect(line).toMatch(/€0\.15 for 1 more, €0\.45 for 2 more, €1\.05 for 3 more/);
   });
 });
 

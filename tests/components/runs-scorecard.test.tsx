@@ -22,6 +22,20 @@ function run(kind: ScorableRun['problem']['kind'], jobs: Job[], bound?: number |
 }
 
 describe('buildScorecard (best answer, ratio, gap)', () => {
+  test('a split against the trivial bound 0 shows no ratio or gap (not 0.000 and 100 %), and the bound line says why', () => {
+    // Crossing weight is a sum of non-negative lane weights, so 0 bounds every split: it proves nothing.
+    const card = buildScorecard(run('kway', [job(1, 'fm', { value: 41, bound: 0 })]));
+    expect(card.bound).toBe(0);
+    expect(card.rows[0].ratio).toBeNull();
+    expect(card.rows[0].gap).toBeNull();
+    render(<Scorecard card={card} valueName="Crossing weight" wide={false} />);
+    expect(screen.getByText(/no ratio or gap is shown/)).toBeTruthy();
+    // An answer that reaches the bound 0 is still proven best.
+    const zero = buildScorecard(run('bisection', [job(1, 'fm', { value: 0, bound: 0 })]));
+    expect(zero.rows[0].ratio).toBe(1);
+    expect(zero.rows[0].gap).toBe(0);
+  });
+
   // K4 with unit lanes: max cut = ⌊n²/4⌋ = 4 (textbook max-cut value for K_n, common practice).
   // The exact solver proves 4; a 3-lane answer (one depot alone) is a valid but worse cut.
   const k4 = run('maxcut', [
