@@ -125,6 +125,24 @@ const enabled = async (page: Page, testId: string) => {
   return (await el.getAttribute('aria-disabled')) !== 'true' && (await el.isEnabled());
 };
 
+/** How many lines the text of `testId` takes from its first money amount to its end (1 = the price phrase stays together). */
+function linesFromPrice(page: Page, testId: string) {
+  return page.getByTestId(testId).evaluate((root) => {
+    const walker = document.createTreeWalker(root, NodeFilter.SHOW_TEXT);
+    for (let n = walker.nextNode(); n; n = walker.nextNode()) {
+      const text = n.nodeValue ?? '';
+      const at = text.search(/€\s?\d/);
+      if (at < 0) continue;
+      const range = document.createRange();
+      range.setStart(n, at);
+      range.setEnd(n, text.length);
+      const rects = Array.from(range.getClientRects()).filter((r) => r.width > 0 && r.height > 0);
+      return new Set(rects.map((r) => Math.round(r.top / 4))).size;
+    }
+    return 0;
+  });
+}
+
 /** Untick every chosen solver but `keep` (the size-based defaults differ by network). */
 async function onlySolver(page: Page, keep: string) {
   await page.getByTestId(`solver-${keep}`).waitFor();
@@ -243,13 +261,20 @@ describe.each([
       await page.waitForFunction(() => /^Untick/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
       await expect(enabled(page, 'start-run')).resolves.toBe(false);
     });
+    // The reported case: the refused solver is the last one ticked. Unticking it leaves no body to
+    // ask the server about, so the last summary stays on screen (kept while the next one loads);
+    // its refusal must not.
+    await page.getByTestId('solver-tabu').click();
+    await page.getByTestId('refusal-exact').waitFor({ timeout: 10_000 });
     await page.getByTestId('solver-exact').click();
     await c.check('Run setup: the refusal leaves when its cause (the ticked solver) is removed', async () => {
-      await page.waitForFunction(() => /^Start run with 1 solver/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
+      await page.waitForFunction(() => /^Choose at least one solver/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
       await page.waitForTimeout(1000);
       await expect(page.getByTestId('encoding-summary').innerText()).resolves.not.toMatch(/will not run/);
-      await expect(enabled(page, 'start-run')).resolves.toBe(true);
     });
+    // Tabu alone again: the paid run below.
+    await page.getByTestId('solver-tabu').click();
+    await page.waitForFunction(() => /^Start run with 1 solver/.test(document.querySelector('[data-testid="start-run"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
 
     // The price of a real paid run, on one line wherever it shows (cost line, details, Start).
     await page.getByText(/€2\.50/).first().waitFor();
@@ -260,6 +285,8 @@ describe.each([
     await c.check('Run setup: every price shown stays on one line (paid run)', async () => {
       expect(await moneyShown(page)).toBeGreaterThanOrEqual(3);
       await expect(splitAcrossLines(page)).resolves.toEqual([]);
+      // The reported case: Start's price phrase ("€2.50, pay next") broke onto a second line on phones.
+      await expect(linesFromPrice(page, 'start-run')).resolves.toBe(1);
     });
     await page.getByTestId('start-run').scrollIntoViewIfNeeded();
     await shot(page, `runview-setup-start-${label}`);
