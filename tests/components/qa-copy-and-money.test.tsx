@@ -9,6 +9,11 @@ import type { BillingSummary } from '../../shared/schemas/billing';
 // Fixes from the end-to-end product walk (phone and wide): each check here failed before its fix.
 
 describe('money and dates as customers read them', () => {
+  const teamSummary = {
+    plan: { id: 'team', label: 'Team', includedDepots: 2000, includedQubits: 22, includedSeconds: 600, monthlyFreeRuns: 1000 },
+    runsThisMonth: 1,
+  } as unknown as BillingSummary;
+
   test('large quotes are grouped by thousands, cents kept (common practice for en-GB amounts)', () => {
     expect(formatMoney({ amount: 3932295, currency: 'eur' })).toBe('€39,322.95');
     expect(formatMoney({ amount: 100000000, currency: 'eur' })).toBe('€1,000,000.00');
@@ -21,22 +26,14 @@ describe('money and dates as customers read them', () => {
   });
 
   test('a paid plan card says what is included, not "Free:"', () => {
-    const summary = {
-      plan: { id: 'team', label: 'Team', includedDepots: 2000, includedQubits: 22, includedSeconds: 600, monthlyFreeRuns: 1000 },
-      runsThisMonth: 1,
-    } as unknown as BillingSummary;
-    render(<PlanCard summary={summary} />);
+    render(<PlanCard summary={teamSummary} />);
     const text = screen.getByTestId('billing-plan').textContent ?? '';
     expect(text).not.toMatch(/Free:/);
     expect(text).toContain('Included at no charge: runs up to 2,000 depots, 22 qubits and 600 s per solver — 1 of 1,000 included runs used this month.');
   });
 
   test('the qubit surcharge reads as prices, not a formula, and equals what a run above the qubits is charged', () => {
-    const summary = {
-      plan: { id: 'team', label: 'Team', includedDepots: 2000, includedQubits: 22, includedSeconds: 600, monthlyFreeRuns: 1000 },
-      runsThisMonth: 1,
-    } as unknown as BillingSummary;
-    render(<PlanCard summary={summary} />);
+    render(<PlanCard summary={teamSummary} />);
     const line = screen.getByTestId('plan-qubit-price').textContent ?? '';
     expect(line).not.toMatch(/\^|extra −|× \(/);
     // The same rule prices a run: one QAOA solver 2 qubits above the Team plan's included 22.
