@@ -7,7 +7,8 @@ export type WorkspaceTab = { key: string; name: string; count?: number };
  * The workspace's tabs as one row of equal parts that always fits the width: the count sits under
  * the name in smaller type, so long counts ("Lanes 780") never push a tab onto a second row.
  * (A wrapped row could re-wrap between a tap's press and release, and the tap was lost.) The
- * accessible name keeps the form "Lanes (780)".
+ * name and count are one text, so the tab's accessible name is exactly what it shows, "Lanes (780)"
+ * (a separate label differing from the visible words fails WCAG 2.5.3, "Label in Name").
  */
 export function WorkspaceTabs(props: { tabs: WorkspaceTab[]; current: string; onChange: (key: string) => void }) {
   return (
@@ -18,7 +19,6 @@ export function WorkspaceTabs(props: { tabs: WorkspaceTab[]; current: string; on
           <Pressable
             key={t.key}
             accessibilityRole="tab"
-            accessibilityLabel={t.count === undefined ? t.name : `${t.name} (${t.count})`}
             // react-native-web writes aria-selected from this prop, not from accessibilityState.
             aria-selected={selected}
             onPress={() => props.onChange(t.key)}
@@ -29,14 +29,12 @@ export function WorkspaceTabs(props: { tabs: WorkspaceTab[]; current: string; on
               focused && styles.focused,
             ]}
           >
-            <Text style={[styles.name, selected && styles.onInk]} numberOfLines={1}>
+            <Text style={[styles.name, selected && styles.onInk]} numberOfLines={t.count === undefined ? 1 : 2}>
               {t.name}
+              {t.count !== undefined ? (
+                <Text style={[styles.count, selected && styles.onInk]}>{`\n(${t.count.toLocaleString('en-GB')})`}</Text>
+              ) : null}
             </Text>
-            {t.count !== undefined ? (
-              <Text style={[styles.count, selected && styles.onInk]} numberOfLines={1}>
-                {t.count.toLocaleString('en-GB')}
-              </Text>
-            ) : null}
           </Pressable>
         );
       })}
@@ -50,7 +48,7 @@ const styles = StyleSheet.create({
   selected: { backgroundColor: colors.ink },
   active: { backgroundColor: colors.surface },
   focused: focusRing,
-  name: { fontFamily: fonts.semibold, fontSize: 15, lineHeight: 20, color: colors.ink },
+  name: { fontFamily: fonts.semibold, fontSize: 15, lineHeight: 20, color: colors.ink, textAlign: 'center' },
   count: { fontFamily: fonts.medium, fontSize: 12, lineHeight: 16, color: colors.inkSoft },
   onInk: { color: colors.onInk },
 });
