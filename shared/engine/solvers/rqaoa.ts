@@ -21,8 +21,8 @@ const settings = settingsObject({
   refine: booleanField(true),
   /**
    * Max-cut: after the recursion, QAOA descent rounds until the time limit (blocks of 14 re-solved
-   * with their surroundings fixed, on a redrawn split each round; variational/block-stages.ts). At a
-   * 30 s cap on G11, G14, G22 … (docs/benchmarks.md, "Large variational").
+   * with their surroundings fixed, on a redrawn split each round; variational/block-stages.ts). What
+   * it gains on the G-set is measured in docs/benchmarks.md, "Large variational".
    */
   descent: booleanField(true),
 });
