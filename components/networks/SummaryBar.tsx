@@ -4,6 +4,8 @@ import { colors, radius, space } from '../theme';
 import { Label, Small } from '../ui/Text';
 import { formatVolume } from './format';
 
+const NBSP = '\u00a0';
+
 /** Depots, lanes, total volume, components and degree range of the version on screen. */
 export function SummaryBar(props: { summary: NetworkSummary; testID?: string; /** One line of text (phones: keeps the drawing near the top). */ compact?: boolean }) {
   const s = props.summary;
@@ -19,9 +21,11 @@ export function SummaryBar(props: { summary: NetworkSummary; testID?: string; /*
     return (
       <Small testID={props.testID ?? 'network-summary'} style={styles.line} role="group" accessibilityLabel={items.map(([k, v]) => `${k} ${v}`).join(', ') + (split ? `; ${s.components} separate parts` : '')}>
         {items.map(([k, v], i) => (
+          // Each item is one unbreakable unit and the dot stays at the end of a line: a phone
+          // wraps between items, never inside one or before its separator.
           <Small key={k} style={styles.line}>
-            {i > 0 ? ' · ' : ''}
-            {k} <Label style={[styles.inline, k === 'Components' && split && styles.warn]} testID={`summary-${k.toLowerCase().replace(/\s/g, '-')}`}>{v}</Label>
+            {i > 0 ? `${NBSP}· ` : ''}
+            {k.replace(/ /g, NBSP)}{NBSP}<Label style={[styles.inline, k === 'Components' && split && styles.warn]} testID={`summary-${k.toLowerCase().replace(/\s/g, '-')}`}>{v.replace(/ /g, NBSP)}</Label>
           </Small>
         ))}
       </Small>

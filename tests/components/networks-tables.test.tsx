@@ -105,6 +105,14 @@ describe('SummaryBar', () => {
     expect(screen.getByTestId('summary-degree').textContent).toBe('2–3');
   });
 
+  test('one line on phones wraps only between items, with the separator ending the line', () => {
+    render(<SummaryBar summary={summariseNetwork({ depots, lanes })} compact />);
+    const text = screen.getByTestId('network-summary').textContent ?? '';
+    // Browsers break lines at ordinary spaces only (UAX #14: no break at U+00A0).
+    const pieces = text.split(' ');
+    expect(pieces).toEqual(['Depots\u00a04\u00a0·', 'Lanes\u00a05\u00a0·', 'Total\u00a0volume\u00a033.5\u00a0·', 'Components\u00a01\u00a0·', 'Degree\u00a02–3']);
+  });
+
   test('a network in separate parts says so (two components: textbook union of disjoint graphs)', () => {
     render(<SummaryBar summary={summariseNetwork({ depots: [{ id: 'a' }, { id: 'b' }, { id: 'c' }, { id: 'd' }], lanes: [{ from: 'a', to: 'b', weight: 1 }, { from: 'c', to: 'd', weight: 1 }] })} />);
     expect(screen.getByTestId('summary-components').textContent).toBe('2');
