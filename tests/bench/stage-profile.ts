@@ -59,3 +59,43 @@ export async function profileStages(problem: Problem, solver: string, settings: 
     bound: (w) => (serialSeconds + parallelSeconds) / (serialSeconds + parallelSeconds / w),
   };
 }
+
+/**
+ * On its own: the stage profile of one `qaoa-blocks` solve of a G-set graph (lanes at volume |w|,
+ * as bench/spread.ts builds it), seed 1 — no services, one thread plus the simulator's own.
+ *
+ *   npx tsx tests/bench/stage-profile.ts [--instance G22] [--max-iterations 150] [--min-spread 16] [--settings JSON]
+ */
+async function main(): Promise<void> {
+  const args = process.argv.slice(2);
+  if (args.includes('--help')) {
+    console.log('npx tsx tests/bench/stage-profile.ts [--instance G22] [--max-iterations 150] [--min-spread 16] [--settings JSON]');
+    return;
+  }
+  const opt = (name: string): string | undefined => { const i = args.indexOf(name); return i >= 0 ? args[i + 1] : undefined; };
+  const instance = opt('--instance') ?? 'G22';
+  const settings = { maxIterations: Number(opt('--max-iterations') ?? 150), ...(JSON.parse(opt('--settings') ?? '{}') as Record<string, unknown>) };
+  const minSpread = Number(opt('--min-spread') ?? 16);
+  const { readInstance } = await import('../data/load');
+  const { compactFromEdges } = await import('../../shared/engine/network/build');
+  const { bindProblem } = await import('../../shared/engine/problem/bind');
+  const { simKernelsBackend } = await import('../../server/lib/sim-wasm');
+  const { n, edges } = readInstance('gset', instance);
+  const problem = bindProblem(compactFromEdges(n, edges.map(([a, b, w]) => [a, b, Math.abs(w)] as [number, number, number])), { kind: 'maxcut' });
+  const started = performance.now();
+  const p = await profileStages(problem, 'qaoa-blocks', settings, 1, minSpread, simKernelsBackend());
+  console.log(`${instance} (${n} depots, ${edges.length} lanes), settings ${JSON.stringify(settings)}, seed 1, stages of ≥ ${minSpread} tasks spread`);
+  console.log('| stage | tasks | where the tasks run | tasks CPU s | then in the job\'s thread CPU s |\n|---|---|---|---|---|');
+  console.log(`| plan | – | – | – | ${p.planSeconds.toFixed(2)} |`);
+  for (const st of p.stages) console.log(`| ${st.label} | ${st.tasks} | ${st.spread ? 'spread' : "job's thread"} | ${st.taskSeconds.toFixed(2)} | ${st.resumeSeconds.toFixed(2)} |`);
+  const total = p.serialSeconds + p.parallelSeconds;
+  console.log(`cut ${p.value}; serial ${p.serialSeconds.toFixed(2)} s of ${total.toFixed(2)} s CPU (${((100 * p.serialSeconds) / total).toFixed(1)} %); Amdahl bound at 2 workers ${p.bound(2).toFixed(2)}; wall ${((performance.now() - started) / 1000).toFixed(1)} s`);
+  process.exit(0);
+}
+
+if (require.main === module) {
+  main().catch((e) => {
+    console.error(e);
+    process.exit(1);
+  });
+}

@@ -9,7 +9,9 @@
  * Improvement rounds (max-cut): every block is solved again with its surroundings fixed at the
  * round's starting sides (so the blocks of one round are independent), then the proposals are
  * applied block by block in order, each kept only when the whole cut rises with the blocks
- * already changed in this round.
+ * already changed in this round; then the round's blocks are re-oriented as whole spins over
+ * their block graph (block-merge.ts: here, or on a dense block graph as blocks of blocks — a
+ * further stage of sub-block tasks, like the first merge's).
  */
 import { createFlipState } from '../classical/flip-state';
 import { polishBisection, polishMaxcut, repairBalance } from '../classical/local-search';
@@ -42,17 +44,21 @@ export const MAX_BLOCK_TRACE = 2000;
 /** Between stages: everything the next stage needs, as plain JSON (depot-indexed arrays of n). */
 export interface BlocksState {
   kind: 'maxcut' | 'bisection';
-  /** blocks: the first block solves are out; merge: the block graph's sub-blocks (blocks of blocks); round: an improvement round. */
-  phase: 'blocks' | 'merge' | 'round';
+  /**
+   * blocks: the first block solves are out; merge: the block graph's sub-blocks (blocks of blocks);
+   * round: an improvement round's blocks; orient: the round's block graph's sub-blocks (the round
+   * re-oriented as blocks of blocks, from the sides after its proposals).
+   */
+  phase: 'blocks' | 'merge' | 'round' | 'orient';
   round: number;
   blockOf: number[];
-  /** Sides per depot the round's tasks (phase 'round') or the block graph (phase 'merge') were built on. */
+  /** Sides per depot the round's tasks (phase 'round') or the block graph (phases 'merge', 'orient') were built on. */
   sides: number[];
   /** Block id per depot of the round's own blocking (phase 'round'; redrawn each round after the first). */
   roundBlockOf: number[];
   /** Rounds in a row that raised nothing (the descent stops after IDLE_ROUNDS_TO_STOP of them). */
   idleRounds: number;
-  /** Phase 'merge': the sub-block of each block (the block graph's split). */
+  /** Phases 'merge' and 'orient': the sub-block of each block (the block graph's split). */
   mergeBlockOf?: number[];
   /** Cut right after the first block solves, before the merge. */
   blocksValue: number;
@@ -75,8 +81,10 @@ export type BlocksStep =
 
 /** Progress share of the first block solves and the merge; the rounds share the rest. */
 const BLOCKS_SHARE = 0.6;
-/** Seed part of the merge's sub-block split and tasks (the stages use 0 and the round numbers 1…20). */
+/** Seed part of the merge's sub-block split and tasks (the stages use 0 and the round numbers 1…rounds). */
 const MERGE_SEED_PART = 1000;
+/** Seed stream of the rounds' re-orientation sub-blocks (then the round number; apart from the streams above). */
+const ROUND_ORIENT_STREAM = 0x0e1a7;
 
 const roundProgress = (opts: DecomposeOptions, round: number) => ({
   from: BLOCKS_SHARE + ((1 - BLOCKS_SHARE) * round) / Math.max(1, opts.rounds),
@@ -152,17 +160,50 @@ function collectBlocks(problem: Problem, state: BlocksState, members: number[][]
 }
 
 /**
+ * Blocks of blocks, first half: the block graph `mp` split into sub-blocks of ≤ blockSize blocks
+ * (seeded by `parts`), one ordinary QAOA task per sub-block (seed parts…, sub-block). Used by the
+ * first merge and by every round's re-orientation when the block graph is dense (block-merge.ts).
+ */
+function subBlockTasks(mp: Problem, opts: DecomposeOptions, seed: number, parts: number[]): { subOf: number[]; tasks: BlockTask[] } {
+  const { blockOf, members } = blockMembers(mp.network, opts.blockSize, createRng(deriveSeed(seed, ...parts)));
+  return { subOf: Array.from(blockOf), tasks: members.map((list, b) => taskOf(blockProblem(mp, list), b, deriveSeed(seed, ...parts, b), opts, false)) };
+}
+
+/**
+ * Blocks of blocks, second half, from the sub-block answers: the block graph's own assignment
+ * (each sub-block as its QAOA answered), the sub-blocks' orientations on it (`orientTop`: exact
+ * or recursive QAOA), then 0/1 per block (1 = flip). A sub-block without an answer (cancelled)
+ * keeps its blocks as they are. Counters go into the state.
+ */
+function flipsFromSubBlocks(
+  mp: Problem, subOf: number[], answers: BlockAnswer[], state: BlocksState,
+  orientTop: (top: Problem) => { flip: ArrayLike<number>; evaluations: number },
+): Int32Array {
+  const subMembers = membersOf(subOf);
+  const flip = Int32Array.from(mp.pins, (p) => (p >= 0 ? p : 0));
+  for (const a of byBlock(answers, subMembers.length)) {
+    if (!a) continue;
+    state.evaluations += a.evaluations;
+    state.shots += a.shots;
+    if (a.solved) subMembers[a.block].forEach((b, i) => (flip[b] = a.sides[i]));
+  }
+  const top = orientTop(orientationProblem(mp, subOf, subMembers.length, flip));
+  state.evaluations += top.evaluations;
+  for (let b = 0; b < flip.length; b++) if (top.flip[subOf[b]] === 1) flip[b] ^= 1;
+  return flip;
+}
+
+/**
  * Max-cut block orientations (block-merge.ts): exact or recursive QAOA here, or — a dense block
  * graph — blocks of blocks: the block graph's sub-blocks as a further stage of tasks.
  */
 function mergeMaxcut(problem: Problem, opts: DecomposeOptions, seed: number, state: BlocksState, blockCount: number, assignment: Int32Array, control: DecomposeControl): BlocksStep | null {
   const mp = orientationProblem(problem, state.blockOf, blockCount, assignment);
   if (mergeRoute(mp, opts.mergeExactLimit, opts.mergeRqaoaWork) === 'blocks' && !control.shouldStop()) {
-    const { blockOf, members } = blockMembers(mp.network, opts.blockSize, createRng(deriveSeed(seed, MERGE_SEED_PART)));
-    const tasks = members.map((list, b) => taskOf(blockProblem(mp, list), b, deriveSeed(seed, MERGE_SEED_PART, b), opts, false));
+    const { subOf, tasks } = subBlockTasks(mp, opts, seed, [MERGE_SEED_PART]);
     state.phase = 'merge';
     state.sides = Array.from(assignment);
-    state.mergeBlockOf = Array.from(blockOf);
+    state.mergeBlockOf = subOf;
     return { kind: 'spread', state, tasks, progress: { from: BLOCKS_SHARE, to: BLOCKS_SHARE } };
   }
   const { flip, method, evaluations } = orientHere(mp, opts.mergeExactLimit, () => control.shouldStop());
@@ -172,26 +213,11 @@ function mergeMaxcut(problem: Problem, opts: DecomposeOptions, seed: number, sta
   return null;
 }
 
-/**
- * Blocks of blocks, from the sub-block answers: the block graph's own assignment (each sub-block
- * as its QAOA answered), the sub-blocks' orientations on it (exact or recursive QAOA), then each
- * block flipped by its side. A sub-block without an answer (cancelled) keeps its blocks as they are.
- */
+/** The first merge as blocks of blocks, from the sub-block answers: each block flipped by its side. */
 function finishMergeBlocks(problem: Problem, opts: DecomposeOptions, state: BlocksState, blockCount: number, answers: BlockAnswer[], control: DecomposeControl): Int32Array {
   const assignment = Int32Array.from(state.sides);
   const mp = orientationProblem(problem, state.blockOf, blockCount, assignment);
-  const subOf = state.mergeBlockOf!;
-  const subMembers = membersOf(subOf);
-  const flip = Int32Array.from(mp.pins, (p) => (p >= 0 ? p : 0));
-  for (const a of byBlock(answers, subMembers.length)) {
-    if (!a) continue;
-    state.evaluations += a.evaluations;
-    state.shots += a.shots;
-    if (a.solved) subMembers[a.block].forEach((b, i) => (flip[b] = a.sides[i]));
-  }
-  const top = orientHere(orientationProblem(mp, subOf, subMembers.length, flip), opts.mergeExactLimit, () => control.shouldStop());
-  state.evaluations += top.evaluations;
-  for (let b = 0; b < blockCount; b++) if (top.flip[subOf[b]] === 1) flip[b] ^= 1;
+  const flip = flipsFromSubBlocks(mp, state.mergeBlockOf!, answers, state, (top) => orientHere(top, opts.mergeExactLimit, () => control.shouldStop()));
   for (let i = 0; i < assignment.length; i++) if (flip[state.blockOf[i]] === 1) assignment[i] ^= 1;
   state.merge.method = 'blocks';
   state.phase = 'blocks';
@@ -217,16 +243,17 @@ const ROUND_SPLIT_STREAM = 0x5b10c;
 export const IDLE_ROUNDS_TO_STOP = 3;
 
 /**
- * Re-orienting a round's blocks: the merge's recursive QAOA takes at least this share of the
- * blocks per round and hurries after ROUND_ORIENT_HURRY_SECONDS (one pass after twice that), so a
- * dense block graph cannot eat the rounds' time (one-per-round on G22's block graph: 12–23 s).
+ * Re-orienting a round's blocks here (a block graph below the merge's work limit, or the
+ * sub-blocks' graph of a dense one): recursive QAOA takes at least this share of the blocks per
+ * round and hurries after ROUND_ORIENT_HURRY_SECONDS (one pass after twice that), so no round's
+ * bookkeeping can eat the rounds' time in the job's own thread. A dense block graph (G22's:
+ * one-per-round 12–23 s) goes to sub-block tasks instead, which the time box never touches.
  */
 export const ROUND_ORIENT_BATCH = 0.05;
 export const ROUND_ORIENT_HURRY_SECONDS = 1.5;
 
-/** The round's blocks as whole spins, oriented on the current sides (exact or time-boxed recursive QAOA). */
-function orientRoundBlocks(problem: Problem, blockOf: ArrayLike<number>, blockCount: number, sides: Int32Array, opts: DecomposeOptions, control: DecomposeControl): { flip: ArrayLike<number>; evaluations: number } {
-  const mp = orientationProblem(problem, blockOf, blockCount, sides);
+/** Orientations of a round's block graph here: exact, or recursive QAOA time-boxed as above. */
+function orientRoundHere(mp: Problem, opts: DecomposeOptions, control: DecomposeControl): { flip: ArrayLike<number>; evaluations: number } {
   if (freeDepots(mp.pins).length <= opts.mergeExactLimit) return { flip: exactSmallMaxcut(mp), evaluations: 0 };
   const started = performance.now();
   const seconds = () => (performance.now() - started) / 1000;
@@ -236,6 +263,24 @@ function orientRoundBlocks(problem: Problem, blockOf: ArrayLike<number>, blockCo
     hurry: () => control.shouldStop() || seconds() >= ROUND_ORIENT_HURRY_SECONDS, overdue: () => control.shouldStop() || seconds() >= 2 * ROUND_ORIENT_HURRY_SECONDS,
   });
   return { flip: encoding.decode(bitsOfSpins(out.spins)), evaluations: out.evaluations };
+}
+
+/** `current` with the round's blocks flipped by `flip`, kept when the cut rises above `value`. */
+function keepIfHigher(problem: Problem, roundBlockOf: number[], flip: ArrayLike<number>, current: Int32Array, value: number): { current: Int32Array; value: number } {
+  const trial = current.map((side, i) => (flip[roundBlockOf[i]] === 1 ? side ^ 1 : side));
+  const trialValue = crossingWeight(problem, trial);
+  return trialValue > value + 1e-12 ? { current: trial, value: trialValue } : { current, value };
+}
+
+/** Close improvement round `state.round` at `current` (cut `value`) and start the next. */
+function finishRound(problem: Problem, opts: DecomposeOptions, seed: number, state: BlocksState, current: Int32Array, value: number, control: DecomposeControl): BlocksStep {
+  state.roundsGain += value - state.roundStart;
+  control.onStep?.(roundProgress(opts, state.round).to, value);
+  state.idleRounds = value > state.roundStart + 1e-12 ? 0 : state.idleRounds + 1;
+  state.round++;
+  state.phase = 'round';
+  state.mergeBlockOf = undefined;
+  return nextRound(problem, opts, seed, state, current, control);
 }
 
 /** Start improvement round `round` from `current`, or finish when no round is due. */
@@ -278,7 +323,7 @@ export function resumeBlocks(problem: Problem, opts: DecomposeOptions, seed: num
   if (state.phase === 'round') {
     // Proposals from one snapshot, applied in block order; each kept only if the cut rises.
     const roundMembers = membersOf(state.roundBlockOf);
-    let current = Int32Array.from(state.sides);
+    let current: Int32Array = Int32Array.from(state.sides);
     let value = state.roundStart;
     for (const a of byBlock(answers, roundMembers.length)) {
       if (!a) continue;
@@ -294,22 +339,30 @@ export function resumeBlocks(problem: Problem, opts: DecomposeOptions, seed: num
       }
     }
     // Then the round's blocks as whole spins, re-oriented on the current sides (moves a whole
-    // block where single blocks are stuck); kept when the cut rises.
+    // block where single blocks are stuck); kept when the cut rises. A dense block graph goes
+    // to sub-block tasks (phase 'orient', finished below), as the first merge does.
     if (roundMembers.length > 1 && !control.shouldStop()) {
-      const { flip, evaluations } = orientRoundBlocks(problem, state.roundBlockOf, roundMembers.length, current, opts, control);
-      state.evaluations += evaluations;
-      const trial = current.map((side, i) => (flip[state.roundBlockOf[i]] === 1 ? side ^ 1 : side));
-      const trialValue = crossingWeight(problem, trial);
-      if (trialValue > value + 1e-12) {
-        current = trial;
-        value = trialValue;
+      const mp = orientationProblem(problem, state.roundBlockOf, roundMembers.length, current);
+      if (mergeRoute(mp, opts.mergeExactLimit, opts.mergeRqaoaWork) === 'blocks') {
+        const { subOf, tasks } = subBlockTasks(mp, opts, seed, [ROUND_ORIENT_STREAM, state.round]);
+        state.phase = 'orient';
+        state.sides = Array.from(current);
+        state.mergeBlockOf = subOf;
+        const at = roundProgress(opts, state.round).to;
+        return { kind: 'spread', state, tasks, progress: { from: at, to: at } };
       }
+      const { flip, evaluations } = orientRoundHere(mp, opts, control);
+      state.evaluations += evaluations;
+      ({ current, value } = keepIfHigher(problem, state.roundBlockOf, flip, current, value));
     }
-    state.roundsGain += value - state.roundStart;
-    control.onStep?.(roundProgress(opts, state.round).to, value);
-    state.idleRounds = value > state.roundStart + 1e-12 ? 0 : state.idleRounds + 1;
-    state.round++;
-    return nextRound(problem, opts, seed, state, current, control);
+    return finishRound(problem, opts, seed, state, current, value, control);
+  }
+  if (state.phase === 'orient') {
+    const start = Int32Array.from(state.sides);
+    const mp = orientationProblem(problem, state.roundBlockOf, membersOf(state.roundBlockOf).length, start);
+    const flip = flipsFromSubBlocks(mp, state.mergeBlockOf!, answers, state, (top) => orientRoundHere(top, opts, control));
+    const { current, value } = keepIfHigher(problem, state.roundBlockOf, flip, start, crossingWeight(problem, start));
+    return finishRound(problem, opts, seed, state, current, value, control);
   }
 
   let assignment: Int32Array;

@@ -84,7 +84,7 @@ describe('blocks of blocks as a stage', () => {
 
   test('a dense block graph is merged by a stage of sub-block tasks (not in the job thread), the same answer as in one process', () => {
     const { steps, final } = staged(opts, 5);
-    expect(steps.map((s) => (s.kind === 'spread' ? s.state.phase : 'done'))).toEqual(['blocks', 'merge', 'round']);
+    expect(steps.map((s) => (s.kind === 'spread' ? s.state.phase : 'done'))).toEqual(['blocks', 'merge', 'round', 'orient']); // the round re-oriented as blocks of blocks too
     const merge = steps[1];
     if (merge.kind !== 'spread') throw new Error('no merge stage');
     const blocks = final.outcome.merge.blocks;

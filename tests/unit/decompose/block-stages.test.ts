@@ -9,8 +9,10 @@ import { bindProblem } from '../../../shared/engine/problem/bind';
 import type { Problem } from '../../../shared/engine/problem/types';
 import { createRng, deriveSeed } from '../../../shared/engine/random';
 import { runStagedTask, resumeStaged, solveProblem, startStaged, type StagedRunStep } from '../../../shared/engine/solvers/orchestrate';
-import { planBlocks, resumeBlocks, type BlocksState } from '../../../shared/engine/variational/block-stages';
-import type { BlockAnswer, BlockTask } from '../../../shared/engine/variational/block-task';
+import { crossingWeight } from '../../../shared/engine/problem/evaluate';
+import { planBlocks, resumeBlocks, decomposeByBlocks, type BlocksState, type BlocksStep } from '../../../shared/engine/variational/block-stages';
+import { runBlockTask, type BlockAnswer, type BlockTask } from '../../../shared/engine/variational/block-task';
+import type { DecomposeOptions } from '../../../shared/engine/variational/decompose';
 import type { Edge } from '../classical/helpers';
 
 const graph = (n: number, p: number, seed: number): Edge[] => {
@@ -88,4 +90,67 @@ describe('qaoa-blocks stages: spread over tasks = the in-process solve', () => {
     expect(partial.outcome.stopped).toBe(true);
     expect(partial.outcome.assignment).toHaveLength(30);
   });
+});
+
+describe('improvement rounds on a dense block graph: the re-orientation is a stage of sub-block tasks (blocks of blocks)', () => {
+  // 60 depots at lane density 0.5 in blocks of ≤ 5: every pair of blocks shares lanes. A low work
+  // limit sends the block graph to sub-blocks (G22's 167-block graph is over the default limit).
+  const problem = bindProblem(compactFromEdges(60, graph(60, 0.5, 21)), { kind: 'maxcut', pins: { '7': 1 } });
+  const opts: DecomposeOptions = { blockSize: 5, layers: 1, shots: 0, readoutShots: 128, restarts: 1, maxIterations: 15, mergeExactLimit: 4, rounds: 3, refine: true, mergeRqaoaWork: 1000 };
+  const control = { shouldStop: () => false };
+
+  /** The worker's way: tasks and answers through JSON, run in reverse order, the state through JSON. */
+  function staged(o: DecomposeOptions, seed: number): { steps: Extract<BlocksStep, { kind: 'spread' }>[]; final: Extract<BlocksStep, { kind: 'done' }> } {
+    const steps: Extract<BlocksStep, { kind: 'spread' }>[] = [];
+    let step = planBlocks(problem, o, seed);
+    while (step.kind === 'spread') {
+      steps.push(json(step));
+      const answers = json(step.tasks).reverse().map((t: BlockTask) => json(runBlockTask(t, { shouldStop: () => false })));
+      step = resumeBlocks(problem, o, seed, json(step.state), answers, control);
+    }
+    return { steps, final: step };
+  }
+
+  test('every round is followed by an orient stage whose sub-blocks cover the round\'s blocks; the answer equals the in-process solve', () => {
+    const { steps, final } = staged(opts, 9);
+    const phases = steps.map((s) => s.state.phase);
+    expect(phases).toEqual(['blocks', 'merge', 'round', 'orient', 'round', 'orient', 'round', 'orient']);
+    expect(phases.filter((p) => p === 'orient').length).toBe(final.outcome.rounds);
+    expect(final.outcome.rounds).toBeGreaterThanOrEqual(1);
+    steps.forEach((s, i) => {
+      if (s.state.phase !== 'orient') return;
+      const roundBlocks = new Set(steps[i - 1].state.roundBlockOf).size;
+      expect(s.tasks.reduce((sum, t) => sum + t.n, 0)).toBe(roundBlocks); // each of the round's blocks in one sub-block
+      expect(s.tasks.every((t) => t.n <= opts.blockSize)).toBe(true);
+      expect(s.state.mergeBlockOf).toHaveLength(roundBlocks);
+    });
+    const local = decomposeByBlocks(problem, opts, 9, control);
+    expect(Array.from(final.outcome.assignment)).toEqual(Array.from(local.assignment));
+    expect(final.outcome.roundsGain).toBe(local.roundsGain);
+    expect(final.outcome.evaluations).toBe(local.evaluations);
+    expect(final.outcome.assignment[6]).toBe(1); // pin kept (depot '7' is index 6)
+    expect(crossingWeight(problem, final.outcome.assignment)).toBeGreaterThanOrEqual(final.outcome.mergedValue);
+  }, 60_000);
+
+  test('each round\'s sub-block tasks have seeds of their own (apart from the merge\'s and the other rounds\')', () => {
+    const { steps } = staged({ ...opts, rounds: 2 }, 9);
+    const seeds = steps.filter((s) => s.state.phase !== 'blocks').flatMap((s) => s.tasks.map((t) => t.seed));
+    expect(new Set(seeds).size).toBe(seeds.length);
+  }, 60_000);
+
+  test('an orient stage without answers (cancelled children) still closes its round, never below the cut after the proposals', () => {
+    const { steps } = staged(opts, 9);
+    const orient = steps.find((s) => s.state.phase === 'orient')!;
+    const after = resumeBlocks(problem, { ...opts, refine: false, rounds: orient.state.round + 1 }, 9, json(orient.state), [], control);
+    if (after.kind !== 'done') throw new Error('the last round should end the solve');
+    expect(after.outcome.rounds).toBe(orient.state.round + 1);
+    expect(after.outcome.unrefinedValue).toBeGreaterThanOrEqual(crossingWeight(problem, orient.state.sides));
+    expect(after.outcome.assignment[6]).toBe(1);
+  }, 60_000);
+
+  test('under the default work limit this small block graph is re-oriented in the job\'s thread (no orient stage)', () => {
+    const { steps } = staged({ ...opts, mergeRqaoaWork: undefined }, 9);
+    expect(steps.map((s) => s.state.phase)).not.toContain('orient');
+    expect(steps.map((s) => s.state.phase)).toContain('round');
+  }, 60_000);
 });
