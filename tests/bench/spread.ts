@@ -16,8 +16,10 @@
  * is not bipartite, so the blocks are real work) — sparse like a regional distribution network,
  * so the serial merge over ~170 blocks is short and the block solves (spread) are most of it.
  *
- *   npx tsx tests/bench/spread.ts [--instance G33] [--max-iterations 150] [--no-write]
- * Rewrites the `## Spread` section of docs/benchmarks.md.
+ *   npx tsx tests/bench/spread.ts [--instance G33] [--max-iterations 150] [--no-profile] [--no-write]
+ * Rewrites the `## Spread` section of docs/benchmarks.md. `--no-profile` leaves out the in-process
+ * stage profile (CPU seconds, so it need not share a quiet window with the wall-time runs; run it
+ * on its own with stage-profile.ts).
  */
 import * as fs from 'node:fs';
 import * as os from 'node:os';
@@ -31,6 +33,7 @@ const opt = (name: string): string | undefined => { const i = args.indexOf(name)
 const INSTANCE = opt('--instance') ?? 'G33';
 const MAX_ITERATIONS = Number(opt('--max-iterations') ?? 150);
 const write = !args.includes('--no-write');
+const PROFILE = !args.includes('--no-profile');
 const DOC = path.join(__dirname, '../../docs/benchmarks.md');
 
 applyTestEnv();
@@ -87,8 +90,8 @@ async function main() {
   const { profileStages } = await import('./stage-profile');
   const { loadRunsConfig } = await import('../../server/services/queue-config');
   const loadBeforeProfile = load();
-  const profile = await profileStages(bindProblem(compactFromEdges(n, edges), { kind: 'maxcut' }), 'qaoa-blocks', settings, 1, loadRunsConfig().RUN_SPREAD_MIN_TASKS, simKernelsBackend());
-  console.log(`stage profile: serial ${profile.serialSeconds.toFixed(2)} s, spread ${profile.parallelSeconds.toFixed(2)} s CPU, Amdahl bound at 2 workers ${profile.bound(2).toFixed(2)}`);
+  const profile = PROFILE ? await profileStages(bindProblem(compactFromEdges(n, edges), { kind: 'maxcut' }), 'qaoa-blocks', settings, 1, loadRunsConfig().RUN_SPREAD_MIN_TASKS, simKernelsBackend()) : null;
+  if (profile) console.log(`stage profile: serial ${profile.serialSeconds.toFixed(2)} s, spread ${profile.parallelSeconds.toFixed(2)} s CPU, Amdahl bound at 2 workers ${profile.bound(2).toFixed(2)}`);
 
   const finished = async (id: number, timeoutMs: number) => {
     for (const deadline = Date.now() + timeoutMs; ;) {
@@ -155,15 +158,17 @@ async function main() {
     '',
     `1-worker / 2-worker wall-time ratio: **${ratio.toFixed(2)}** (target ≥ 1.6 on 2 cores; same run). Same answer with 1 and 2 workers: **${same ? 'yes' : 'NO'}**. "Cores used" is the worker processes' CPU time over the wall time: on idle cores one worker uses up to 1 and two up to 2; under other work each gets a share of the cores, so the wall-time ratio then says as much about the load as about the spread.`,
     '',
-    `Where the engine's CPU time goes (the same solve stage by stage in the benchmark's own process before the workers start, one thread, no queue; load before it ${loadBeforeProfile}; cut ${profile.value}${profile.value === rows[0].value ? ', the same as the workers\' runs' : `, NOT the workers' ${rows[0].value}`}). "Spread" stages go to the queue as children; everything else runs in the job's own thread, one worker at a time:`,
-    '',
-    '| stage | tasks | where the tasks run | tasks CPU s | then in the job\'s thread (merge, next plan, refinement, bound) CPU s |',
-    '|---|---|---|---|---|',
-    `| plan | – | – | – | ${profile.planSeconds.toFixed(2)} |`,
-    ...profile.stages.map((st) => `| ${st.label} | ${st.tasks} | ${st.spread ? 'spread over the workers' : "the job's thread"} | ${st.taskSeconds.toFixed(2)} | ${st.resumeSeconds.toFixed(2)} |`),
-    '',
-    `Serial ${profile.serialSeconds.toFixed(2)} s of ${(profile.serialSeconds + profile.parallelSeconds).toFixed(2)} s CPU (${((100 * profile.serialSeconds) / (profile.serialSeconds + profile.parallelSeconds)).toFixed(1)} %): Amdahl's bound on the 2-worker ratio **${profile.bound(2).toFixed(2)}** (before queue traffic, stage tails and other work on the cores).`,
-    '',
+    ...(profile ? [
+      `Where the engine's CPU time goes (the same solve stage by stage in the benchmark's own process before the workers start, one thread, no queue; load before it ${loadBeforeProfile}; cut ${profile.value}${profile.value === rows[0].value ? ', the same as the workers\' runs' : `, NOT the workers' ${rows[0].value}`}). "Spread" stages go to the queue as children; everything else runs in the job's own thread, one worker at a time:`,
+      '',
+      '| stage | tasks | where the tasks run | tasks CPU s | then in the job\'s thread (merge, next plan, refinement, bound) CPU s |',
+      '|---|---|---|---|---|',
+      `| plan | – | – | – | ${profile.planSeconds.toFixed(2)} |`,
+      ...profile.stages.map((st) => `| ${st.label} | ${st.tasks} | ${st.spread ? 'spread over the workers' : "the job's thread"} | ${st.taskSeconds.toFixed(2)} | ${st.resumeSeconds.toFixed(2)} |`),
+      '',
+      `Serial ${profile.serialSeconds.toFixed(2)} s of ${(profile.serialSeconds + profile.parallelSeconds).toFixed(2)} s CPU (${((100 * profile.serialSeconds) / (profile.serialSeconds + profile.parallelSeconds)).toFixed(1)} %): Amdahl's bound on the 2-worker ratio **${profile.bound(2).toFixed(2)}** (before queue traffic, stage tails and other work on the cores).`,
+      '',
+    ] : ['Stage profile not run here (`--no-profile`; tests/bench/stage-profile.ts gives it).', '']),
   ].join('\n');
   console.log('\n' + section);
   if (write) {
