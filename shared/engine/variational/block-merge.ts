@@ -12,6 +12,8 @@
  *    sub-blocks' orientations — a block graph of ~1/blockSize the size — are solved here, by the
  *    same three rules (exact for 2,000 depots).
  *
+ * The descent rounds re-orient their own blocks the same way (block-stages.ts, phase 'orient').
+ *
  * Which one: `rqaoaPassWork` counts the closed form's work per angle pass (couplings plus
  * triangles, level1.ts) times the rounds one-per-round elimination takes; above
  * MERGE_RQAOA_WORK the block graph goes to sub-blocks.
