@@ -89,8 +89,9 @@ async function main() {
   const { simKernelsBackend } = await import('../../server/lib/sim-wasm');
   const { profileStages } = await import('./stage-profile');
   const { loadRunsConfig } = await import('../../server/services/queue-config');
+  const runsConfig = loadRunsConfig();
   const loadBeforeProfile = load();
-  const profile = PROFILE ? await profileStages(bindProblem(compactFromEdges(n, edges), { kind: 'maxcut' }), 'qaoa-blocks', settings, 1, loadRunsConfig().RUN_SPREAD_MIN_TASKS, simKernelsBackend()) : null;
+  const profile = PROFILE ? await profileStages(bindProblem(compactFromEdges(n, edges), { kind: 'maxcut' }), 'qaoa-blocks', settings, 1, runsConfig.RUN_SPREAD_MIN_TASKS, simKernelsBackend()) : null;
   if (profile) console.log(`stage profile: serial ${profile.serialSeconds.toFixed(2)} s, spread ${profile.parallelSeconds.toFixed(2)} s CPU, Amdahl bound at 2 workers ${profile.bound(2).toFixed(2)}`);
 
   const finished = async (id: number, timeoutMs: number) => {
@@ -150,7 +151,7 @@ async function main() {
     '',
     `Written by \`npm run bench:spread\` on ${stamp} UTC — ${cpu}, ${os.cpus().length} cores, Node ${process.version}; MariaDB, Redis and this process on the same machine. **The machine is shared with other engineers' work while measuring**: the load averages (1, 5, 15 min) beside each row show how busy it was; on a loaded 2-core machine the ratio is lower than on an idle one.`,
     '',
-    `One \`qaoa-blocks\` run on the graph of ${INSTANCE} (${n} depots, ${edges.length} lanes, all at volume 1; Helmberg & Rendl 2000), seed 1, default settings except maxIterations ${MAX_ITERATIONS}, time limit 3600 s (never reached), with 1 and then 2 worker processes of one solve thread each, each worker in a session of its own like a separately started worker service (Linux's autogroup scheduling shares a busy machine's cores between sessions first; workers in the benchmark's own session would get one session's share together) (stages of ≥ 16 blocks spread as up to 24 child entries each; server/workers/spread-job.ts). Wall time from creation to \`succeeded\`.`,
+    `One \`qaoa-blocks\` run on the graph of ${INSTANCE} (${n} depots, ${edges.length} lanes, all at volume 1; Helmberg & Rendl 2000), seed 1, default settings except maxIterations ${MAX_ITERATIONS}, time limit 3600 s (never reached), with 1 and then 2 worker processes of one solve thread each, each worker in a session of its own like a separately started worker service (Linux's autogroup scheduling shares a busy machine's cores between sessions first; workers in the benchmark's own session would get one session's share together) (stages of ≥ ${runsConfig.RUN_SPREAD_MIN_TASKS} blocks spread as up to ${runsConfig.RUN_SPREAD_CHILDREN} child entries each, as this process's environment sets them for the workers; server/workers/spread-job.ts). Wall time from creation to \`succeeded\`.`,
     '',
     '| workers | seconds | workers\' CPU s | cores used (CPU / wall) | cut | stages | child batches | batches answered per worker | load before | load after |',
     '|---|---|---|---|---|---|---|---|---|---|',
