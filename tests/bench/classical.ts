@@ -22,10 +22,11 @@ import { exactSolver } from '../../shared/engine/solvers/exact';
 import { fmSolver } from '../../shared/engine/solvers/fm';
 import { milpSolver } from '../../shared/engine/solvers/milp';
 import { tabuSolver } from '../../shared/engine/solvers/tabu';
-import { tabuMaxcut, tabuMaxcutDefaults } from '../../shared/engine/classical/tabu-maxcut';
-import type { RunControl } from '../../shared/engine/classical/run-control';
+import { tabuMaxcutDefaults } from '../../shared/engine/classical/tabu-maxcut';
+import { relinkDefaults, relinkMaxcut } from '../../shared/engine/classical/relink-maxcut';
 import { randomSides } from '../../shared/engine/classical/balance';
 import { gsetTable as gsetRows, readInstance, type Edge } from '../data/load';
+import { cpuControl } from './cpu-control';
 
 const DOC = path.join(__dirname, '../../docs/benchmarks.md');
 
@@ -49,40 +50,6 @@ const problemOf = (n: number, edges: Edge[], spec: Partial<ProblemSpec> = {}) =>
 const bestKnownRows = (): Array<{ instance: string; best: number; status: string }> =>
   gsetRows().map((r) => ({ instance: r.instance, best: r.best_known, status: r.status }));
 
-/**
- * A RunControl on this process's CPU time (user + system): "20 s on one core" even when the
- * shared cores give the benchmark only part of a core.
- */
-function cpuControl(limitSeconds: number): RunControl {
-  const t0 = process.cpuUsage();
-  let lastYield = Date.now();
-  // process.cpuUsage is a system call: read it at most every 2 ms of wall time (a stale value
-  // only lets a run go on a few ms longer), or the reading itself eats a share of the budget.
-  let lastRead = -Infinity, cached = 0;
-  const elapsed = (): number => {
-    const now = performance.now();
-    if (now - lastRead >= 2) {
-      lastRead = now;
-      const u = process.cpuUsage(t0);
-      cached = (u.user + u.system) / 1e6;
-    }
-    return cached;
-  };
-  const control: RunControl = {
-    elapsed,
-    shouldStop: () => elapsed() >= limitSeconds,
-    fraction: () => Math.min(1, elapsed() / limitSeconds),
-    async tick() {
-      if (Date.now() - lastYield >= 50) {
-        lastYield = Date.now();
-        await new Promise((resolve) => setTimeout(resolve, 0));
-      }
-      return control.shouldStop();
-    },
-  };
-  return control;
-}
-
 async function gsetTable(lines: string[]): Promise<void> {
   const rows = bestKnownRows().filter((r) => !only || only.includes(r.instance));
   lines.push(`### G-set max-cut, tabu (breakout local search), ${limit} CPU s per instance, one thread, seed 1`, '');
@@ -95,7 +62,7 @@ async function gsetTable(lines: string[]): Promise<void> {
     const rng = createRng(1);
     const control = cpuControl(limit);
     const wall0 = Date.now();
-    const run = await tabuMaxcut(problem, randomSides(problem, rng), tabuMaxcutDefaults, rng, control, row.best);
+    const run = await relinkMaxcut(problem, randomSides(problem, rng), { ...tabuMaxcutDefaults, ...relinkDefaults }, rng, control, row.best);
     const wallSeconds = (Date.now() - wall0) / 1000;
     const value = crossingWeight(problem, run.side);
     const gap = (row.best - value) / row.best;
@@ -110,7 +77,8 @@ async function gsetTable(lines: string[]): Promise<void> {
 
 /**
  * The ±1-weighted planar instances (G18–G20) on their own: several seeds, a shorter budget, the
- * default schedule next to elite recombination (elite-pool.ts) and to random restarts. On these
+ * single-run schedule next to elite recombination (elite-pool.ts), random restarts and the
+ * path-relinking search (relink-maxcut.ts). On these
  * the outcome depends strongly on the seed, so one seed says little.
  */
 async function planarStudy(lines: string[]): Promise<void> {
@@ -118,7 +86,7 @@ async function planarStudy(lines: string[]): Promise<void> {
   const seeds = [1, 2, 3];
   const names = ['G18', 'G19', 'G20'].filter((g) => !only || only.includes(g));
   if (names.length === 0) return;
-  lines.push(`### G18–G20 (±1 lanes, planar): ${seeds.length} seeds × ${seconds} CPU s, default schedule vs elite recombination vs restarts`, '');
+  lines.push(`### G18–G20 (±1 lanes, planar): ${seeds.length} seeds × ${seconds} CPU s, single run vs elite recombination vs restarts vs path relinking`, '');
   lines.push('| instance | best known | setting | cuts by seed | mean gap | matched |', '|---|---:|---|---|---:|---:|');
   const best = new Map(bestKnownRows().map((r) => [r.instance, r.best]));
   for (const name of names) {
@@ -126,15 +94,16 @@ async function planarStudy(lines: string[]): Promise<void> {
     const problem = problemOf(n, edges);
     const target = best.get(name)!;
     const settings = [
-      ['default (random kicks)', {}],
-      ['elite recombination (eliteSize 8)', { eliteSize: 8 }],
-      ['random restarts (restartStagnation 5000)', { restartStagnation: 5000 }],
+      ['single run, random kicks (poolSize 0)', { poolSize: 0 }],
+      ['single run, elite recombination (poolSize 0, eliteSize 8)', { poolSize: 0, eliteSize: 8 }],
+      ['single run, random restarts (poolSize 0, restartStagnation 5000)', { poolSize: 0, restartStagnation: 5000 }],
+      ['path relinking (poolSize 8)', { poolSize: 8 }],
     ] as const;
     for (const [label, opts] of settings) {
       const cuts: number[] = [];
       for (const seed of seeds) {
         const rng = createRng(seed);
-        const run = await tabuMaxcut(problem, randomSides(problem, rng), { ...tabuMaxcutDefaults, ...opts }, rng, cpuControl(seconds), target);
+        const run = await relinkMaxcut(problem, randomSides(problem, rng), { ...tabuMaxcutDefaults, ...relinkDefaults, ...opts }, rng, cpuControl(seconds), target);
         cuts.push(crossingWeight(problem, run.side));
       }
       const gap = cuts.reduce((a, c) => a + (target - c) / target, 0) / cuts.length;

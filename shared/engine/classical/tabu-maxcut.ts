@@ -50,6 +50,11 @@ export interface TabuMaxcutOptions {
   eliteSize: number;
   /** Share of kicks that restart from a combination of two elite solutions instead of a random jump. */
   combineShare: number;
+  /**
+   * Moves without a new best (× free depots) after which the run returns (0 = run to the time
+   * limit): the improvement step of the path-relinking search (relink-maxcut.ts).
+   */
+  stallMoves: number;
 }
 
 export const tabuMaxcutDefaults: TabuMaxcutOptions = {
@@ -71,6 +76,7 @@ export const tabuMaxcutDefaults: TabuMaxcutOptions = {
   restartStagnation: 0,
   eliteSize: 0,
   combineShare: 0.5,
+  stallMoves: 0,
 };
 
 export interface TabuRun {
@@ -177,7 +183,8 @@ export async function tabuMaxcut(
   let nextTick = 0;
   let lastBest = 0;
   const restartAfter = opts.restartStagnation > 0 ? opts.restartStagnation * f : Infinity;
-  while (best < target - eps) {
+  const stallAfter = opts.stallMoves > 0 ? opts.stallMoves * f : Infinity;
+  while (best < target - eps && iter - lastBest <= stallAfter) {
     if (iter - lastBest > restartAfter) {
       for (let t = 0; t < f; t++) if (rng.int(2) === 1) flip(free[t]);
       moves.releaseAll();

@@ -1,11 +1,13 @@
 /**
- * `tabu`: breakout-style tabu search for max-cut (after Benlic & Hao 2013, simplified: our own
- * perturbation schedule), swap-based tabu search for bisection; extra copies on worker threads.
+ * `tabu`: for max-cut, path relinking between the best cuts of breakout-style tabu runs
+ * (relink-maxcut.ts; the runs after Benlic & Hao 2013, simplified: our own perturbation
+ * schedule); swap-based tabu search for bisection; extra copies on worker threads.
  */
 import { classicalResult } from '../classical/result';
 import { createRunControl } from '../classical/run-control';
 import { tabuBisection, tabuBisectionDefaults } from '../classical/tabu-bisection';
-import { tabuMaxcut, tabuMaxcutDefaults } from '../classical/tabu-maxcut';
+import { relinkDefaults, relinkMaxcut } from '../classical/relink-maxcut';
+import { tabuMaxcutDefaults } from '../classical/tabu-maxcut';
 import { createRng } from '../random';
 import { pickBest, startSides, threadsField, workerCopies } from './classical-common';
 import { defineSolver } from './define';
@@ -27,6 +29,9 @@ const settings = settingsObject({
   restartStagnation: numberField(d.restartStagnation, 0, 1e6),
   eliteSize: intField(d.eliteSize, 0, 64),
   combineShare: numberField(d.combineShare, 0, 1),
+  poolSize: intField(relinkDefaults.poolSize, 0, 64),
+  relinkStall: numberField(relinkDefaults.relinkStall, 1, 1e6),
+  relinkDistance: numberField(relinkDefaults.relinkDistance, 0, 0.5),
   /** Stop early once this value is reached (0 = never; for max-cut benchmarks). */
   target: numberField(0, -1e15, 1e15),
 });
@@ -37,7 +42,7 @@ export const tabuSolver = defineSolver({
   family: 'heuristic',
   kinds: ['maxcut', 'bisection'],
   otherwise: 'fm (recursive bisection) or milp for k-way regions',
-  guarantee: 'No optimality guarantee: tabu search with breakout-style perturbations (after Benlic & Hao 2013, simplified) for max-cut, swap-based tabu search for bisection; best found within the time limit.',
+  guarantee: 'No optimality guarantee: tabu search with breakout-style perturbations (after Benlic & Hao 2013, simplified) and path relinking between its best cuts for max-cut, swap-based tabu search for bisection; best found within the time limit.',
   settings,
   async solve(problem, s, ctx) {
     const rng = createRng(ctx.seed);
@@ -46,7 +51,7 @@ export const tabuSolver = defineSolver({
     const start = startSides(problem, rng);
     let side: Int8Array, moves: number, bestAt: number;
     if (problem.kind === 'maxcut') {
-      ({ side, moves, bestAt } = await tabuMaxcut(problem, start, { ...tabuMaxcutDefaults, ...s }, rng, control, s.target !== 0 ? s.target : Infinity));
+      ({ side, moves, bestAt } = await relinkMaxcut(problem, start, { ...tabuMaxcutDefaults, ...relinkDefaults, ...s }, rng, control, s.target !== 0 ? s.target : Infinity));
     } else {
       ({ side, moves, bestAt } = await tabuBisection(problem, start, { ...tabuBisectionDefaults, tenureMin: s.tenureMin }, rng, control));
     }
