@@ -8,8 +8,8 @@
  *
  * Improvement rounds (max-cut): every block is solved again with its surroundings fixed at the
  * round's starting sides (so the blocks of one round are independent), then the proposals are
- * applied block by block in order, each kept only when the whole cut rises with the blocks
- * already changed in this round; then the round's blocks are re-oriented as whole spins over
+ * applied block by block in order, each kept when the whole cut does not fall with the blocks
+ * already changed in this round (applyProposals: equal-cut proposals move along plateaus); then the round's blocks are re-oriented as whole spins over
  * their block graph (block-merge.ts: here, or on a dense block graph as blocks of blocks — a
  * further stage of sub-block tasks, like the first merge's).
  */
@@ -34,9 +34,10 @@ import { bitsOfSpins, defaultBatchFraction, RQAOA_MAX_REMAINDER, runRqaoa } from
 /**
  * Default block QAOA settings (the qaoa-blocks settings' defaults, and rqaoa's descent rounds):
  * blocks of 14 depots, 2 layers, exact expectations, best of 1,024 read-out shots, 8 simplex
- * iterations per block (solvers/qaoa-blocks.ts says why), up to 100 descent rounds.
+ * iterations per block (solvers/qaoa-blocks.ts says why), up to 1,000 descent rounds (the time
+ * limit and descentStalled end them sooner; 100 cut G18's plateau walk short, which still rose at round 70).
  */
-export const BLOCK_QAOA_DEFAULTS = { blockSize: 14, layers: 2, shots: 0, readoutShots: 1024, restarts: 1, maxIterations: 8, mergeExactLimit: 16, rounds: 100 } as const;
+export const BLOCK_QAOA_DEFAULTS = { blockSize: 14, layers: 2, shots: 0, readoutShots: 1024, restarts: 1, maxIterations: 8, mergeExactLimit: 16, rounds: 1000 } as const;
 
 /** Most trace points kept from the block solves (evenly thinned above; the chart needs no more). */
 export const MAX_BLOCK_TRACE = 2000;
@@ -56,8 +57,10 @@ export interface BlocksState {
   sides: number[];
   /** Block id per depot of the round's own blocking (phase 'round'; redrawn each round after the first). */
   roundBlockOf: number[];
-  /** Rounds in a row that raised nothing (the descent stops after IDLE_ROUNDS_TO_STOP of them). */
+  /** Rounds in a row that raised nothing (the descent stops after PLATEAU_ROUNDS_TO_STOP of them; descentStalled). */
   idleRounds: number;
+  /** Rounds in a row that moved no depot at all (the descent stops after IDLE_ROUNDS_TO_STOP of them). */
+  stillRounds: number;
   /** Phases 'merge' and 'orient': the sub-block of each block (the block graph's split). */
   mergeBlockOf?: number[];
   /** Cut right after the first block solves, before the merge. */
@@ -114,7 +117,7 @@ export function planBlocks(problem: Problem, opts: DecomposeOptions, seed: numbe
   const { blockOf, members } = blockMembers(problem.network, opts.blockSize, createRng(seed));
   const tasks = members.map((list, b) => taskOf(blockProblem(problem, list, problem.kind === 'bisection' ? 'bisection' : 'maxcut'), b, deriveSeed(seed, 0, b), opts, true));
   const state: BlocksState = {
-    kind: problem.kind, phase: 'blocks', round: 0, blockOf: Array.from(blockOf), sides: [], roundBlockOf: [], idleRounds: 0, roundStart: 0, blocks: [],
+    kind: problem.kind, phase: 'blocks', round: 0, blockOf: Array.from(blockOf), sides: [], roundBlockOf: [], idleRounds: 0, stillRounds: 0, roundStart: 0, blocks: [],
     merge: { method: 'single', blocks: members.length, gain: 0 }, blocksValue: 0, mergedValue: 0, roundsGain: 0, refineFlips: 0, evaluations: 0, shots: 0, stopped: false, trace: [],
   };
   return { kind: 'spread', state, tasks, progress: { from: 0, to: BLOCKS_SHARE } };
@@ -239,8 +242,44 @@ export function roundBlocking(problem: Problem, opts: DecomposeOptions, seed: nu
 /** Seed stream of the redrawn splits (apart from the block tasks' streams 0…rounds). */
 const ROUND_SPLIT_STREAM = 0x5b10c;
 
-/** A redrawn split can raise the cut after one that did not: stop after this many idle rounds in a row. */
+/** A redrawn split can raise the cut after one that did not: stop after this many rounds in a row that moved no depot. */
 export const IDLE_ROUNDS_TO_STOP = 3;
+
+/**
+ * Rounds in a row that moved depots along a plateau (equal cut) without raising it, after which
+ * the descent stops all the same. On G18 (±1 weights, 800 depots) the plateau walk raised the cut
+ * from 939 to 955 over rounds 12–70, with up to 10 rounds between rises; 20 leaves room for that.
+ */
+export const PLATEAU_ROUNDS_TO_STOP = 20;
+
+/** The descent has stalled: nothing moved for IDLE_ROUNDS_TO_STOP rounds, or nothing rose for PLATEAU_ROUNDS_TO_STOP. */
+export function descentStalled(state: Pick<BlocksState, 'idleRounds' | 'stillRounds'>): boolean {
+  return state.stillRounds >= IDLE_ROUNDS_TO_STOP || state.idleRounds >= PLATEAU_ROUNDS_TO_STOP;
+}
+
+/**
+ * A round's proposals, all made on the snapshot `sides`, applied in block order: each is kept
+ * when the whole cut, with the blocks already changed in this round, does not fall. Equal cuts
+ * are kept on purpose: with ±1 weights a block with fixed surroundings has many optima of the
+ * same cut and its QAOA read-out names one of them; keeping only rises froze the descent on a
+ * plateau (G18: 3 idle rounds after round 10 at cut 921, every block at its own optimum in the
+ * last round, 7.2 % under the best known; keeping equal cuts: 955 at round 70).
+ */
+export function applyProposals(problem: Problem, sides: ArrayLike<number>, members: number[][], answers: (BlockAnswer | undefined)[], startValue: number): { assignment: Int32Array; value: number } {
+  let current = Int32Array.from(sides);
+  let value = startValue;
+  for (const a of answers) {
+    if (!a || !a.solved) continue;
+    const trial = current.slice();
+    members[a.block].forEach((v, i) => (trial[v] = a.sides[i]));
+    const trialValue = crossingWeight(problem, trial);
+    if (trialValue >= value - 1e-12) {
+      current = trial;
+      value = Math.max(value, trialValue);
+    }
+  }
+  return { assignment: current, value };
+}
 
 /**
  * Re-orienting a round's blocks here (a block graph below the merge's work limit, or the
@@ -277,6 +316,8 @@ function finishRound(problem: Problem, opts: DecomposeOptions, seed: number, sta
   state.roundsGain += value - state.roundStart;
   control.onStep?.(roundProgress(opts, state.round).to, value);
   state.idleRounds = value > state.roundStart + 1e-12 ? 0 : state.idleRounds + 1;
+  // The proposals counted their moves (stillRounds); a rise from the re-orientation is a move too.
+  if (value > state.roundStart + 1e-12) state.stillRounds = 0;
   state.round++;
   state.phase = 'round';
   state.mergeBlockOf = undefined;
@@ -286,7 +327,7 @@ function finishRound(problem: Problem, opts: DecomposeOptions, seed: number, sta
 /** Start improvement round `round` from `current`, or finish when no round is due. */
 function nextRound(problem: Problem, opts: DecomposeOptions, seed: number, state: BlocksState, current: Int32Array, control: DecomposeControl): BlocksStep {
   const free = freeDepots(problem.pins);
-  if (state.round < opts.rounds && state.idleRounds < IDLE_ROUNDS_TO_STOP && free.length > 0 && !control.shouldStop()) {
+  if (state.round < opts.rounds && !descentStalled(state) && free.length > 0 && !control.shouldStop()) {
     const blockOf = roundBlocking(problem, opts, seed, state.blockOf, state.round);
     const members = membersOf(blockOf);
     const tasks = members.length > 1
@@ -321,23 +362,18 @@ export function resumeBlocks(problem: Problem, opts: DecomposeOptions, seed: num
   const members = membersOf(state.blockOf);
   const blockCount = members.length;
   if (state.phase === 'round') {
-    // Proposals from one snapshot, applied in block order; each kept only if the cut rises.
+    // Proposals from one snapshot, applied in block order; each kept unless the cut falls.
     const roundMembers = membersOf(state.roundBlockOf);
-    let current: Int32Array = Int32Array.from(state.sides);
-    let value = state.roundStart;
-    for (const a of byBlock(answers, roundMembers.length)) {
+    const ordered = byBlock(answers, roundMembers.length);
+    for (const a of ordered) {
       if (!a) continue;
       state.evaluations += a.evaluations;
       state.shots += a.shots;
-      if (!a.solved) continue;
-      const trial = current.slice();
-      roundMembers[a.block].forEach((v, i) => (trial[v] = a.sides[i]));
-      const trialValue = crossingWeight(problem, trial);
-      if (trialValue > value + 1e-12) {
-        current = trial;
-        value = trialValue;
-      }
     }
+    const proposed = applyProposals(problem, state.sides, roundMembers, ordered, state.roundStart);
+    let current: Int32Array = proposed.assignment;
+    let value = proposed.value;
+    state.stillRounds = current.some((side, i) => side !== state.sides[i]) ? 0 : state.stillRounds + 1;
     // Then the round's blocks as whole spins, re-oriented on the current sides (moves a whole
     // block where single blocks are stuck); kept when the cut rises. A dense block graph goes
     // to sub-block tasks (phase 'orient', finished below), as the first merge does.
@@ -459,7 +495,7 @@ export function descendByBlocks(problem: Problem, start: ArrayLike<number>, opts
   const { blockOf, members } = blockMembers(problem.network, opts.blockSize, createRng(seed));
   const value = crossingWeight(problem, current);
   const state: BlocksState = {
-    kind: 'maxcut', phase: 'round', round: 0, blockOf: Array.from(blockOf), sides: [], roundBlockOf: [], idleRounds: 0, roundStart: value, blocks: [],
+    kind: 'maxcut', phase: 'round', round: 0, blockOf: Array.from(blockOf), sides: [], roundBlockOf: [], idleRounds: 0, stillRounds: 0, roundStart: value, blocks: [],
     merge: { method: 'single', blocks: members.length, gain: 0 }, blocksValue: value, mergedValue: value, roundsGain: 0, refineFlips: 0, evaluations: 0, shots: 0, stopped: false, trace: [],
   };
   return runStages(problem, opts, seed, nextRound(problem, opts, seed, state, current, control), control, stateKernels);

@@ -14,7 +14,8 @@ import { createRng } from '../../../shared/engine/random';
 import { encodeMaxCut } from '../../../shared/engine/encodings/maxcut';
 import { isingDiagonal } from '../../../shared/engine/statevector/diagonal';
 import { blockInContext, blockMembers } from '../../../shared/engine/variational/decompose';
-import { BLOCK_QAOA_DEFAULTS, descendByBlocks, roundBlocking } from '../../../shared/engine/variational/block-stages';
+import { applyProposals, BLOCK_QAOA_DEFAULTS, descendByBlocks, descentStalled, IDLE_ROUNDS_TO_STOP, PLATEAU_ROUNDS_TO_STOP, resumeBlocks, roundBlocking, type BlocksState } from '../../../shared/engine/variational/block-stages';
+import type { BlockAnswer } from '../../../shared/engine/variational/block-task';
 import { solveProblem } from '../../../shared/engine/solvers/orchestrate';
 import type { Edge } from '../classical/helpers';
 
@@ -98,6 +99,49 @@ describe('descent rounds', () => {
     expect(on.notes.join(' ')).toMatch(/descent round/);
     expect(respectsPins(problem, on.assignment)).toBe(true);
   }, 120_000);
+});
+
+describe('plateaus: equal-cut proposals move the descent (±1 weights give blocks many optima of one cut)', () => {
+  // An odd ring of 5 with unit lanes: every optimum leaves exactly one lane uncut (cut 4), so
+  // moving the uncut lane is a move of equal cut. Sides 0 1 0 1 0 leave lane 4–0 uncut.
+  const ring = maxcut(5, [[0, 1, 1], [1, 2, 1], [2, 3, 1], [3, 4, 1], [4, 0, 1]]);
+  const sides = [0, 1, 0, 1, 0];
+  const roundBlockOf = [0, 0, 1, 1, 2];
+  const members = [[0, 1], [2, 3], [4]];
+  const answer = (block: number, blockSides: number[]): BlockAnswer => ({ block, sides: blockSides, qubits: blockSides.length, value: 0, evaluations: 0, shots: 0, stopped: false, solved: true });
+
+  test('a proposal of equal cut is kept, one that lowers the cut is not', () => {
+    expect(crossingWeight(ring, sides)).toBe(4);
+    const equal = applyProposals(ring, sides, members, [undefined, undefined, answer(2, [1])], 4);
+    expect(Array.from(equal.assignment)).toEqual([0, 1, 0, 1, 1]);
+    expect(equal.value).toBe(4);
+    const lower = applyProposals(ring, sides, members, [answer(0, [0, 0]), undefined, undefined], 4);
+    expect(Array.from(lower.assignment)).toEqual(sides);
+    expect(lower.value).toBe(4);
+  });
+
+  test('a round that moved depots without raising the cut does not count towards the idle stop', () => {
+    const state: BlocksState = {
+      kind: 'maxcut', phase: 'round', round: 5, blockOf: [0, 0, 1, 1, 2], sides, roundBlockOf, idleRounds: IDLE_ROUNDS_TO_STOP - 1, stillRounds: 0, roundStart: 4, blocks: [],
+      merge: { method: 'single', blocks: 3, gain: 0 }, blocksValue: 4, mergedValue: 4, roundsGain: 0, refineFlips: 0, evaluations: 0, shots: 0, stopped: false, trace: [],
+    };
+    const opts = { ...BLOCK_QAOA_DEFAULTS, blockSize: 2, refine: false };
+    const moved = resumeBlocks(ring, opts, 1, structuredClone(state), [answer(2, [1])], { shouldStop: () => false });
+    // Another round is due, from the moved sides.
+    expect(moved.kind).toBe('spread');
+    if (moved.kind !== 'spread') return;
+    expect(moved.state.sides).toEqual([0, 1, 0, 1, 1]);
+    expect(moved.state.stillRounds).toBe(0);
+    // The same round with nothing moved: the third still round in a row ends the descent.
+    const still = resumeBlocks(ring, opts, 1, { ...structuredClone(state), stillRounds: IDLE_ROUNDS_TO_STOP - 1 }, [answer(2, [0])], { shouldStop: () => false });
+    expect(still.kind).toBe('done');
+  });
+
+  test('the stop rule: no move for IDLE_ROUNDS_TO_STOP rounds, or no rise for PLATEAU_ROUNDS_TO_STOP', () => {
+    expect(descentStalled({ idleRounds: IDLE_ROUNDS_TO_STOP + 2, stillRounds: 0 })).toBe(false);
+    expect(descentStalled({ idleRounds: IDLE_ROUNDS_TO_STOP, stillRounds: IDLE_ROUNDS_TO_STOP })).toBe(true);
+    expect(descentStalled({ idleRounds: PLATEAU_ROUNDS_TO_STOP, stillRounds: 0 })).toBe(true);
+  });
 });
 
 describe('the time limit ends the descent (a mid-size network)', () => {
