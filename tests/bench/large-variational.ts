@@ -61,7 +61,7 @@ async function main(): Promise<void> {
   const lines: string[] = [
     'Run: `npx tsx tests/bench/large-variational.ts` (`--limit SECONDS` per solve, `--instances all|G11,G14`, `--solvers rqaoa,qaoa-blocks`, `--settings JSON`, `--batch-study G11|none`, `--rows FILE`, `--load-note TEXT`).',
     '',
-    `Machine: ${cpu}, ${os.cpus().length} cores, Node ${process.version}, ${new Date().toISOString()}; load average at the start ${loadBefore}${loadNote ? ` (${loadNote})` : ''}. Time cap ${limit} s per solve, seed 1, default settings (rqaoa: stopAt 16, batch auto, QAOA block descent after the recursion, refine on; qaoa-blocks: blocks of 14, 2 layers, 8 simplex iterations per block, up to 100 descent rounds on redrawn splits, refine on)${Object.keys(extraSettings).length ? `, changed: ${JSON.stringify(extraSettings)}` : ''}.`,
+    `Machine: ${cpu}, ${os.cpus().length} cores, Node ${process.version}, ${new Date().toISOString()}; load average at the start ${loadBefore}${loadNote ? ` (${loadNote})` : ''}. Time cap ${limit} s per solve, seed 1, default settings (rqaoa: stopAt 16, batch auto, QAOA block descent after the recursion, refine on; qaoa-blocks: blocks of 14, 2 layers, 8 simplex iterations per block, up to 1,000 descent rounds on redrawn splits (equal-cut proposals kept; stop after 3 rounds that move nothing or 20 that raise nothing), refine on)${Object.keys(extraSettings).length ? `, changed: ${JSON.stringify(extraSettings)}` : ''}.`,
     '',
     `Instances: ${instances.join(', ')}${instanceArg === 'all' ? ' (every G-set instance in tests/data/gset)' : ' — a subset'}.`,
     '',

@@ -33,7 +33,7 @@ const settings = settingsObject({
    */
   maxIterations: intField(D.maxIterations, 1, 5000),
   mergeExactLimit: intField(D.mergeExactLimit, 1, 20),
-  /** Descent rounds at most (each on a redrawn split; the time limit and idle rounds end them sooner). */
+  /** Descent rounds at most (each on a redrawn split; the time limit and the stall rule, block-stages.ts descentStalled, end them sooner). */
   rounds: intField(D.rounds, 0, 1000),
   /** Classical local search on the answer (reported with the value before it; decompose.ts). */
   refine: booleanField(true),

@@ -485,7 +485,7 @@ export function decomposeByBlocks(problem: Problem, opts: DecomposeOptions, seed
 
 /**
  * The descent rounds alone, from a given max-cut answer (rqaoa's, solvers/rqaoa.ts): blocks of
- * a fresh split re-solved by QAOA with their surroundings fixed, kept when the cut rises, on a
+ * a fresh split re-solved by QAOA with their surroundings fixed, kept unless the cut falls, on a
  * redrawn split each round, then the 1-flip refinement when `opts.refine`. `unrefinedValue` of
  * the outcome is the cut after the rounds, before that refinement.
  */

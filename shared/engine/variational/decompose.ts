@@ -46,7 +46,7 @@ export interface DecomposeOptions {
   /**
    * Improvement rounds after the merge (a block-coordinate descent): each block is solved again
    * by QAOA with the depots around it fixed at their current sides (lanes to them become
-   * fields), kept when the cut rises; every round after the first on a freshly drawn split.
+   * fields), kept unless the cut falls (block-stages.ts applyProposals); every round after the first on a freshly drawn split.
    */
   rounds: number;
   /**
