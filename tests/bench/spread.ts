@@ -16,7 +16,7 @@
  * is not bipartite, so the blocks are real work) — sparse like a regional distribution network,
  * so the serial merge over ~170 blocks is short and the block solves (spread) are most of it.
  *
- *   npx tsx tests/bench/spread.ts [--instance G33] [--max-iterations 150] [--no-profile] [--no-write]
+ *   npx tsx tests/bench/spread.ts [--instance G33] [--max-iterations 150] [--rounds N] [--no-profile] [--no-write]
  * Rewrites the `## Spread` section of docs/benchmarks.md. `--no-profile` leaves out the in-process
  * stage profile (CPU seconds, so it need not share a quiet window with the wall-time runs; run it
  * on its own with stage-profile.ts).
@@ -32,6 +32,8 @@ const args = process.argv.slice(2);
 const opt = (name: string): string | undefined => { const i = args.indexOf(name); return i >= 0 ? args[i + 1] : undefined; };
 const INSTANCE = opt('--instance') ?? 'G33';
 const MAX_ITERATIONS = Number(opt('--max-iterations') ?? 150);
+/** Descent rounds, set explicitly: fixes the run's work (the same for 1 and 2 workers) and its length; default: the solver's own. */
+const ROUNDS = opt('--rounds') !== undefined ? Number(opt('--rounds')) : undefined;
 const write = !args.includes('--no-write');
 const PROFILE = !args.includes('--no-profile');
 const DOC = path.join(__dirname, '../../docs/benchmarks.md');
@@ -81,7 +83,7 @@ async function main() {
   const edges = signed.map(([a, b, w]) => [a, b, Math.abs(w)] as [number, number, number]);
   const versionId = (await createNetwork(deps, { organisationId: org.id, userId: user.id }, networkBody(`Bench ${INSTANCE}`, n, edges), { source: 'api' })).versionId;
   const small = (await createNetwork(deps, { organisationId: org.id, userId: user.id }, networkBody('Bench warm-up', 200, edges.filter(([a, b]) => a < 200 && b < 200)), { source: 'api' })).versionId;
-  const settings = { maxIterations: MAX_ITERATIONS };
+  const settings = { maxIterations: MAX_ITERATIONS, ...(ROUNDS !== undefined ? { rounds: ROUNDS } : {}) };
 
   // The engine's own CPU per stage (one thread, no queue), on the same problem, seed and settings.
   const { bindProblem } = await import('../../shared/engine/problem/bind');
@@ -151,7 +153,7 @@ async function main() {
     '',
     `Written by \`npm run bench:spread\` on ${stamp} UTC — ${cpu}, ${os.cpus().length} cores, Node ${process.version}; MariaDB, Redis and this process on the same machine. **The machine is shared with other engineers' work while measuring**: the load averages (1, 5, 15 min) beside each row show how busy it was; on a loaded 2-core machine the ratio is lower than on an idle one.`,
     '',
-    `One \`qaoa-blocks\` run on the graph of ${INSTANCE} (${n} depots, ${edges.length} lanes, all at volume 1; Helmberg & Rendl 2000), seed 1, default settings except maxIterations ${MAX_ITERATIONS}, time limit 3600 s (never reached), with 1 and then 2 worker processes of one solve thread each, each worker in a session of its own like a separately started worker service (Linux's autogroup scheduling shares a busy machine's cores between sessions first; workers in the benchmark's own session would get one session's share together) (stages of ≥ ${runsConfig.RUN_SPREAD_MIN_TASKS} blocks spread as up to ${runsConfig.RUN_SPREAD_CHILDREN} child entries each, as this process's environment sets them for the workers; server/workers/spread-job.ts). Wall time from creation to \`succeeded\`.`,
+    `One \`qaoa-blocks\` run on the graph of ${INSTANCE} (${n} depots, ${edges.length} lanes, all at volume 1; Helmberg & Rendl 2000), seed 1, default settings except maxIterations ${MAX_ITERATIONS}${ROUNDS !== undefined ? ` and rounds ${ROUNDS}` : ''}, time limit 3600 s (never reached), with 1 and then 2 worker processes of one solve thread each, each worker in a session of its own like a separately started worker service (Linux's autogroup scheduling shares a busy machine's cores between sessions first; workers in the benchmark's own session would get one session's share together) (stages of ≥ ${runsConfig.RUN_SPREAD_MIN_TASKS} blocks spread as up to ${runsConfig.RUN_SPREAD_CHILDREN} child entries each, as this process's environment sets them for the workers; server/workers/spread-job.ts). Wall time from creation to \`succeeded\`.`,
     '',
     '| workers | seconds | workers\' CPU s | cores used (CPU / wall) | cut | stages | child batches | batches answered per worker | load before | load after |',
     '|---|---|---|---|---|---|---|---|---|---|',
