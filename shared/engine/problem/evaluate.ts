@@ -12,6 +12,35 @@ export function crossingWeight(problem: Problem, assignment: ArrayLike<number>):
   return total;
 }
 
+/**
+ * How much crossingWeight changes when depots[i] takes sides[i] (the other depots keep
+ * `assignment`; a depot listed twice takes its last side), from the lanes at the depots that
+ * change only: O(their degrees), not O(lanes). A lane with both ends changing is counted once,
+ * with both new ends. Exact for every kind: crossingWeight is a plain sum over lanes (the balance
+ * rule is apart, isBalanced). `sides` may be longer than `depots` (the rest is not read).
+ */
+export function crossingChange(problem: Problem, assignment: ArrayLike<number>, depots: ArrayLike<number>, sides: ArrayLike<number>): number {
+  const { adjStart, adjIndex, adjWeight } = problem.network;
+  const moved = new Map<number, number>();
+  for (let i = 0; i < depots.length; i++) {
+    if (sides[i] !== assignment[depots[i]]) moved.set(depots[i], sides[i]);
+    else moved.delete(depots[i]);
+  }
+  let change = 0;
+  for (const [v, to] of moved) {
+    const from = assignment[v];
+    for (let p = adjStart[v]; p < adjStart[v + 1]; p++) {
+      const j = adjIndex[p];
+      const jTo = moved.get(j);
+      // A lane between two changing depots: counted from its lower end only.
+      if (jTo !== undefined && j < v) continue;
+      const before = assignment[j], after = jTo ?? before;
+      if ((from !== before) !== (to !== after)) change += to !== after ? adjWeight[p] : -adjWeight[p];
+    }
+  }
+  return change;
+}
+
 /** Total depot weight per part, length k. */
 export function partWeights(problem: Problem, assignment: ArrayLike<number>): Float64Array {
   const w = new Float64Array(problem.k);
