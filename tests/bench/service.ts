@@ -65,6 +65,9 @@ async function main() {
   const { billingRunHooks } = await import('../../server/services/billing-run-hooks');
   const deps = createDeps(loadConfig(), { runHooks: billingRunHooks });
   await migrate(deps.db);
+  // Before any worker starts: they would re-enqueue what an interrupted earlier run left behind.
+  const { endLeftoverJobs, describeLeftovers } = await import('./leftover-jobs');
+  console.log(describeLeftovers(BENCH_DB, await endLeftoverJobs(deps)));
   const tag = uniqueTag();
   const org = await deps.models.Organisation.create({ name: `Bench ${tag}`, plan: 'fleet' });
   const user = await deps.models.User.create({ email: `bench.${tag}@bench.example`, name: 'Bench', passwordHash: 'x'.repeat(60) });

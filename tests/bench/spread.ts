@@ -9,6 +9,8 @@
  * runs stage by stage in this process (stage-profile.ts): the engine's CPU seconds per stage, the
  * serial share (plan, merges, refinement, bound, stages too small to spread) and the Amdahl bound
  * on the ratio that follows from it — so a missed ratio can be told apart from a serial share.
+ * Jobs an interrupted earlier run left queued or running in the benchmark database are ended
+ * first (leftover-jobs.ts), so the new workers do not solve them beside the measured run.
  *
  * Network: the graph of G33 of the G-set (Helmberg & Rendl, "A spectral bundle method for
  * semidefinite programming", SIAM J. Optim. 10(3), 2000; tests/data/gset), a 2,000-depot toroidal
@@ -74,6 +76,9 @@ async function main() {
   const { billingRunHooks } = await import('../../server/services/billing-run-hooks');
   const deps = createDeps(loadConfig(), { runHooks: billingRunHooks });
   await migrate(deps.db);
+  // Before any worker starts: they would re-enqueue what an interrupted earlier run left behind.
+  const { endLeftoverJobs, describeLeftovers } = await import('./leftover-jobs');
+  console.log(describeLeftovers(BENCH_DB, await endLeftoverJobs(deps)));
   const tag = uniqueTag();
   const org = await deps.models.Organisation.create({ name: `Bench ${tag}`, plan: 'fleet' });
   const user = await deps.models.User.create({ email: `bench.${tag}@bench.example`, name: 'Bench', passwordHash: 'x'.repeat(60) });
