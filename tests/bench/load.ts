@@ -77,6 +77,9 @@ async function main() {
 
   const started = await startServer({ seedDemo: false });
   const { deps } = started;
+  // Before any worker starts: they would re-enqueue what an interrupted earlier run left behind.
+  const { endLeftoverJobs, describeLeftovers } = await import('./leftover-jobs');
+  console.log(describeLeftovers('spinyard_load', await endLeftoverJobs(deps)));
   const base = `http://127.0.0.1:${PORT}`;
 
   // Seed: an organisation on the largest plan, its owner with a token, 12 networks (2 versions
