@@ -33,18 +33,19 @@ const extra = JSON.parse(opt('--opts') ?? '{}');
 async function main(): Promise<void> {
   const rows = gsetTable().filter((r) => !only || only.includes(r.instance));
   console.log(`tabu, ${limit} CPU s, seeds ${seeds.join(',')}, options ${JSON.stringify(extra)}, load ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}, ${new Date().toISOString()}`);
-  console.log('| instance | best known | cuts by seed | CPU s to best | mean gap | matched |');
-  console.log('|---|---:|---|---|---:|---:|');
+  console.log('| instance | best known | cuts by seed | CPU s to best | tabu runs (crossover rounds) | mean gap | matched |');
+  console.log('|---|---:|---|---|---|---:|---:|');
   let gapSum = 0, runs = 0, matched = 0;
   for (const row of rows) {
     const { n, edges } = readInstance('gset', row.instance);
     const problem = bindProblem(compactFromEdges(n, edges), { kind: 'maxcut' } as ProblemSpec);
-    const cuts: number[] = [], times: string[] = [];
+    const cuts: number[] = [], times: string[] = [], rounds: string[] = [];
     for (const seed of seeds) {
       const rng = createRng(seed);
       const run = await relinkMaxcut(problem, randomSides(problem, rng), { ...tabuMaxcutDefaults, ...relinkDefaults, ...extra }, rng, cpuControl(limit), row.best_known);
       cuts.push(crossingWeight(problem, run.side));
       times.push(run.bestAt.toFixed(1));
+      rounds.push(`${run.runs} (${run.crossed})`);
     }
     const gaps = cuts.map((c) => (row.best_known - c) / row.best_known);
     gapSum += gaps.reduce((a, b) => a + b, 0);
@@ -52,7 +53,7 @@ async function main(): Promise<void> {
     const m = cuts.filter((c) => c >= row.best_known).length;
     matched += m;
     const meanGap = gaps.reduce((a, b) => a + b, 0) / gaps.length;
-    console.log(`| ${row.instance} | ${row.best_known} | ${cuts.join(', ')} | ${times.join(', ')} | ${(100 * meanGap).toFixed(3)} % | ${m} of ${cuts.length} |`);
+    console.log(`| ${row.instance} | ${row.best_known} | ${cuts.join(', ')} | ${times.join(', ')} | ${rounds.join(', ')} | ${(100 * meanGap).toFixed(3)} % | ${m} of ${cuts.length} |`);
   }
   console.log(`mean gap ${(100 * gapSum / Math.max(1, runs)).toFixed(3)} % over ${runs} runs; matched ${matched} of ${runs}; load ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}, ${new Date().toISOString()}`);
 }

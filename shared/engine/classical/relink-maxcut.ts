@@ -2,26 +2,40 @@ import type { Problem } from '../problem/types';
 import type { Rng } from '../random';
 import { randomSides } from './balance';
 import { createElitePool } from './elite-pool';
+import { createPartitionCrossover } from './partition-crossover';
 import { relinkPath } from './path-relink';
 import type { RunControl } from './run-control';
 import { tabuMaxcut, type TabuMaxcutOptions, type TabuRun } from './tabu-maxcut';
 
 /**
- * Max-cut search around a pool of good cuts: tabu runs (tabu-maxcut.ts) that return after
- * `relinkStall`·n moves without a new best fill an elite pool (elite-pool.ts), then each round
- * relinks two members (path-relink.ts) and improves the child the same way, in the manner of
- * the memetic / path-relinking searches of Wu & Hao 2012 and Ma & Hao 2017. A single tabu run
- * drifts around one region of the G-set's flat landscapes; children of two good cuts start where
- * both agree and differ only on the rest.
+ * Max-cut search around a pool of good cuts: a first tabu run (tabu-maxcut.ts) that returns after
+ * `relinkStall`·n moves without a new best, then shorter ones from random starts (`startStall`),
+ * fill an elite pool (elite-pool.ts); then each round takes two members and improves a child of
+ * them with a tabu run (`childStall`), in the manner of the memetic / path-relinking searches of
+ * Wu & Hao 2012 and Ma & Hao 2017. The child is the members' partition crossover
+ * (partition-crossover.ts) when that beats both — on sparse networks two good cuts differ in
+ * separate pieces, and the best of each piece adds up — and otherwise the best cut of the middle
+ * of the greedy path from one to the other (path-relink.ts). A single tabu run drifts around one
+ * region of the G-set's flat landscapes; children of two good cuts start where both agree and
+ * differ only on the rest.
  * With `poolSize` below 2 this is one tabu run to the time limit.
  */
 export interface RelinkOptions {
   /** Elite cuts kept (below 2 = no relinking, one tabu run). */
   poolSize: number;
-  /** Moves without a new best (× free depots) before an improvement run returns. */
+  /** Moves without a new best (× free depots) before the first tabu run returns. */
   relinkStall: number;
   /** Members closer than this share of the depots count as one region (elite-pool.ts, minDistance). */
   relinkDistance: number;
+  /** Stall (× free depots) of the runs that fill the pool after the first (0 = relinkStall). */
+  startStall: number;
+  /** Stall (× free depots) of the runs that improve relinked children (0 = relinkStall). */
+  childStall: number;
+  /**
+   * Each round first crosses the two members by partition crossover (partition-crossover.ts)
+   * and improves that child when it beats both; path relinking only when it does not.
+   */
+  crossover: boolean;
 }
 
 export const relinkDefaults: RelinkOptions = {
@@ -30,7 +44,21 @@ export const relinkDefaults: RelinkOptions = {
   poolSize: 8,
   relinkStall: 5000,
   relinkDistance: 0.05,
+  // Measured on the 11 G-set instances tabu missed most often (G14, G16, G17, G19, G21, G32, G33,
+  // G51–G54), 3 seeds at 20 CPU s (docs/benchmarks.md): pool runs of 1000·n after the first
+  // (more rounds in the budget) 8 → 11 of 33 matched; with partition crossover 16 of 33, G32
+  // and G33 in every seed (0 of 3 on G33 before). 500·n was worse (12 of 33).
+  startStall: 1000,
+  childStall: 1000,
+  crossover: true,
 };
+
+export interface RelinkRun extends TabuRun {
+  /** Tabu runs made (the pool's starting runs, then one per round). */
+  runs: number;
+  /** Rounds whose child came from partition crossover (the others walked a relinking path). */
+  crossed: number;
+}
 
 export async function relinkMaxcut(
   problem: Problem,
@@ -39,40 +67,52 @@ export async function relinkMaxcut(
   rng: Rng,
   control: RunControl,
   target = Infinity,
-): Promise<TabuRun> {
-  if (opts.poolSize < 2) return tabuMaxcut(problem, start, opts, rng, control, target);
+): Promise<RelinkRun> {
+  if (opts.poolSize < 2) return { ...(await tabuMaxcut(problem, start, opts, rng, control, target)), runs: 1, crossed: 0 };
   const n = problem.network.n;
   const freeList: number[] = [];
   for (let i = 0; i < n; i++) if (problem.pins[i] < 0) freeList.push(i);
   const free = Int32Array.from(freeList);
   const mirrorable = free.length === n;
-  const inner = { ...opts, stallMoves: opts.relinkStall };
+  const first = { ...opts, stallMoves: opts.relinkStall };
+  const starting = { ...opts, stallMoves: opts.startStall || opts.relinkStall };
+  const children = { ...opts, stallMoves: opts.childStall || opts.relinkStall };
   const pool = createElitePool(opts.poolSize, n, Math.round(opts.relinkDistance * free.length));
   let best: TabuRun | null = null;
-  let moves = 0;
-  const improve = async (from: Int8Array): Promise<void> => {
+  let moves = 0, runs = 0, crossed = 0;
+  const improve = async (from: Int8Array, inner: TabuMaxcutOptions): Promise<void> => {
     const run = await tabuMaxcut(problem, from, inner, rng, control, target);
     moves += run.moves;
+    runs++;
     if (best === null || run.cut > best.cut) best = run;
     pool.admit(run.side, run.cut);
   };
   const done = (): boolean => control.shouldStop() || (best !== null && best.cut >= target - 1e-9);
-  await improve(start);
-  for (let k = 1; k < opts.poolSize && !done(); k++) await improve(randomSides(problem, rng));
+  await improve(start, first);
+  for (let k = 1; k < opts.poolSize && !done(); k++) await improve(randomSides(problem, rng), starting);
   const child = new Int8Array(n);
+  const px = opts.crossover ? createPartitionCrossover(problem.network, free, mirrorable) : null;
   while (!done()) {
     if (pool.size < 2) {
-      await improve(randomSides(problem, rng));
+      await improve(randomSides(problem, rng), starting);
       continue;
     }
     const a = rng.int(pool.size);
     let b = rng.int(pool.size - 1);
     if (b >= a) b++;
+    if (px) {
+      const mix = px.cross(pool.member(a), pool.member(b), child, rng);
+      if (pool.cutOf(a) + mix.gain > Math.max(pool.cutOf(a), pool.cutOf(b)) + 1e-9) {
+        crossed++;
+        await improve(child.slice(), children);
+        continue;
+      }
+    }
     child.set(pool.member(a));
     const step = relinkPath(problem.network, pool.member(a), pool.member(b), free, mirrorable, rng, child);
     // Parents within two flips of each other: nothing between them, start afresh instead.
-    await improve(step.cut === -Infinity ? randomSides(problem, rng) : child.slice());
+    await improve(step.cut === -Infinity ? randomSides(problem, rng) : child.slice(), children);
   }
   const found = best as unknown as TabuRun; // the first improvement run always sets it
-  return { side: found.side, cut: found.cut, moves, bestAt: found.bestAt };
+  return { side: found.side, cut: found.cut, moves, bestAt: found.bestAt, runs, crossed };
 }

@@ -2,7 +2,8 @@
  * Path relinking for max-cut and the pool search built on it: the greedy path against a copy
  * recomputed from the edge list, the distance rule of the elite pool, a tabu run that returns
  * once it stalls, and the relinking search against brute-force optima (helpers.ts) on small
- * networks with ±1, real and unit lanes, with and without pins.
+ * networks with ±1, real and unit lanes, with and without pins and partition crossover (whose
+ * own brute-force check is partition-crossover.test.ts); on a ±1 grid its rounds do cross.
  */
 import { createElitePool } from '../../../shared/engine/classical/elite-pool';
 import { relinkPath } from '../../../shared/engine/classical/path-relink';
@@ -12,7 +13,7 @@ import type { RunControl } from '../../../shared/engine/classical/run-control';
 import { randomSides } from '../../../shared/engine/classical/balance';
 import { createRng } from '../../../shared/engine/random';
 import { crossingWeight, respectsPins } from '../../../shared/engine/problem/evaluate';
-import { bruteForce, pinsOf, problemOf, randomGraph, type Edge } from './helpers';
+import { bruteForce, grid, pinsOf, problemOf, randomGraph, type Edge } from './helpers';
 
 const allFree = (n: number) => Int32Array.from({ length: n }, (_, i) => i);
 const sides = (bits: string) => Int8Array.from(bits, (c) => Number(c));
@@ -124,8 +125,9 @@ describe('tabu run with a stall limit', () => {
 
 describe('relinking search', () => {
   test.each([
-    [16, 0.4, 'pm1', 41], [15, 0.5, 'real', 42], [16, 0.3, 'unit', 43], [14, 0.6, 'pm1', 44],
-  ] as const)('n=%i p=%f %s seed %i: reaches the brute-force optimum, reports the cut of its sides', async (n, p, w, seed) => {
+    [16, 0.4, 'pm1', 41, false], [15, 0.5, 'real', 42, false], [16, 0.3, 'unit', 43, false], [14, 0.6, 'pm1', 44, false],
+    [16, 0.2, 'pm1', 45, true], [15, 0.25, 'real', 46, true], [16, 0.2, 'unit', 47, true],
+  ] as const)('n=%i p=%f %s seed %i, partition crossover %s: reaches the brute-force optimum, reports the cut of its sides', async (n, p, w, seed, crossing) => {
     const edges = randomGraph(n, p, seed, w);
     for (const pins of [{}, { 2: 1, 9: 0 }] as Array<Record<number, number>>) {
       const problem = problemOf(n, edges, Object.keys(pins).length ? { pins: pinsOf(pins) } : {});
@@ -133,12 +135,28 @@ describe('relinking search', () => {
       const rng = createRng(seed);
       const start = randomSides(problem, rng);
       // Short improvement runs, so the budget covers many relinking rounds.
-      const opts = { ...tabuMaxcutDefaults, ...relinkDefaults, poolSize: 4, relinkStall: 5 };
+      const opts = { ...tabuMaxcutDefaults, ...relinkDefaults, poolSize: 4, relinkStall: 5, startStall: 0, childStall: 0, crossover: crossing };
       const r = await relinkMaxcut(problem, start, opts, rng, ticks(60));
       expect(r.cut).toBeCloseTo(crossingWeight(problem, r.side), 9);
       expect(r.cut).toBeGreaterThanOrEqual(crossingWeight(problem, start) - 1e-9);
       expect(r.cut).toBeCloseTo(optimum, 9);
       expect(respectsPins(problem, r.side)).toBe(true);
     }
+  });
+
+  test('on a ±1 grid the pool rounds cross members whose best mix beats both, and the cut stays true', async () => {
+    // A 16×16 grid with random ±1 lanes (a 2D spin glass, where the depots two good cuts differ
+    // on fall into many separate pieces): short runs leave pool members that partition crossover
+    // can improve on. Without crossover no round is counted as crossed.
+    const rngW = createRng(77);
+    const edges = grid(16).map(([i, j]) => [i, j, rngW.int(2) === 1 ? 1 : -1] as Edge);
+    const problem = problemOf(256, edges);
+    const opts = { ...tabuMaxcutDefaults, ...relinkDefaults, poolSize: 6, relinkStall: 3, startStall: 0, childStall: 0 };
+    const on = await relinkMaxcut(problem, randomSides(problem, createRng(3)), { ...opts, crossover: true }, createRng(3), ticks(80));
+    expect(on.crossed).toBeGreaterThan(0);
+    expect(on.cut).toBeCloseTo(crossingWeight(problem, on.side), 9);
+    const off = await relinkMaxcut(problem, randomSides(problem, createRng(3)), { ...opts, crossover: false }, createRng(3), ticks(80));
+    expect(off.crossed).toBe(0);
+    expect(off.cut).toBeCloseTo(crossingWeight(problem, off.side), 9);
   });
 });
