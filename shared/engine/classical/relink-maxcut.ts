@@ -80,20 +80,43 @@ export async function relinkMaxcut(
   const pool = createElitePool(opts.poolSize, n, Math.round(opts.relinkDistance * free.length));
   let best: TabuRun | null = null;
   let moves = 0, runs = 0, crossed = 0;
+  const px = opts.crossover ? createPartitionCrossover(problem.network, free, mirrorable) : null;
+  const child = new Int8Array(n), trial = new Int8Array(n);
+  /** A crossover child that beats both its parents, to improve next. */
+  let pending: Int8Array | null = null;
+  /** The best partition-crossover child of a new cut and a member that beats both (null when none does). */
+  const crossOnArrival = (side: Int8Array, cut: number): Int8Array | null => {
+    let found: Int8Array | null = null, foundCut = -Infinity;
+    for (let k = 0; px && k < pool.size; k++) {
+      const c = cut + px.cross(side, pool.member(k), trial, rng).gain;
+      if (c > Math.max(cut, pool.cutOf(k)) + 1e-9 && c > foundCut) {
+        foundCut = c;
+        found = trial.slice();
+      }
+    }
+    return found;
+  };
   const improve = async (from: Int8Array, inner: TabuMaxcutOptions): Promise<void> => {
     const run = await tabuMaxcut(problem, from, inner, rng, control, target);
     moves += run.moves;
     runs++;
     if (best === null || run.cut > best.cut) best = run;
+    // Crossed with the pool as it arrives, so crossing starts while the pool is still filling.
+    pending = crossOnArrival(run.side, run.cut);
     pool.admit(run.side, run.cut);
   };
   const done = (): boolean => control.shouldStop() || (best !== null && best.cut >= target - 1e-9);
   await improve(start, first);
-  for (let k = 1; k < opts.poolSize && !done(); k++) await improve(randomSides(problem, rng), starting);
-  const child = new Int8Array(n);
-  const px = opts.crossover ? createPartitionCrossover(problem.network, free, mirrorable) : null;
+  let startingRuns = 1;
   while (!done()) {
-    if (pool.size < 2) {
+    if (pending) {
+      const from: Int8Array = pending;
+      crossed++;
+      await improve(from, children);
+      continue;
+    }
+    if (startingRuns < opts.poolSize || pool.size < 2) {
+      startingRuns++;
       await improve(randomSides(problem, rng), starting);
       continue;
     }
