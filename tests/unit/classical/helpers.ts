@@ -6,7 +6,8 @@ import { compactFromEdges } from '../../../shared/engine/network/build';
 import { bindProblem } from '../../../shared/engine/problem/bind';
 import type { Problem, ProblemSpec } from '../../../shared/engine/problem/types';
 import type { CompactNetwork } from '../../../shared/engine/network/types';
-import { createRng } from '../../../shared/engine/random';
+import { createRng, type Rng } from '../../../shared/engine/random';
+import { randomSides } from '../../../shared/engine/classical/balance';
 
 import type { Edge } from '../../data/load';
 
@@ -95,3 +96,15 @@ export const pinsOf = (pins: Record<number, number>): Record<string, number> =>
   Object.fromEntries(Object.entries(pins).map(([i, p]) => [String(Number(i) + 1), p]));
 
 export const ctx = (timeLimitSeconds: number, seed = 7) => ({ seed, timeLimitSeconds });
+
+/**
+ * A random ±1 network, a random assignment `a` on it and a's mirror image (every side swapped),
+ * for tests of the rule that a cut and its mirror are the same cut.
+ */
+export function mirrorCase(n: number, p: number, seed: number): { edges: Edge[]; problem: Problem; rng: Rng; a: Int8Array; mirror: Int8Array } {
+  const edges = randomGraph(n, p, seed, 'pm1');
+  const problem = problemOf(n, edges);
+  const rng = createRng(seed);
+  const a = randomSides(problem, rng);
+  return { edges, problem, rng, a, mirror: a.map((x) => 1 - x) as Int8Array };
+}

@@ -10,7 +10,7 @@ import { createPartitionCrossover } from '../../../shared/engine/classical/parti
 import { randomSides } from '../../../shared/engine/classical/balance';
 import { createRng } from '../../../shared/engine/random';
 import { crossingWeight } from '../../../shared/engine/problem/evaluate';
-import { problemOf, randomGraph, type Edge } from './helpers';
+import { mirrorCase, problemOf, randomGraph, type Edge } from './helpers';
 
 const cutOf = (edges: Edge[], s: ArrayLike<number>) => edges.reduce((a, [i, j, w]) => a + (s[i] !== s[j] ? w : 0), 0);
 
@@ -69,11 +69,7 @@ describe('partition crossover', () => {
 
   test('mirrors b when that makes the parents closer, and leaves pinned depots alone', () => {
     const n = 14;
-    const edges = randomGraph(n, 0.2, 9, 'pm1');
-    const problem = problemOf(n, edges);
-    const rng = createRng(9);
-    const a = randomSides(problem, rng);
-    const b = a.map((x) => 1 - x) as Int8Array;
+    const { edges, problem, rng, a, mirror: b } = mirrorCase(n, 0.2, 9);
     b[3] = a[3]; // the mirror of a, except one depot
     const out = new Int8Array(n);
     const free = Int32Array.from({ length: n }, (_, i) => i);

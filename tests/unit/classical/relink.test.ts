@@ -13,7 +13,7 @@ import type { RunControl } from '../../../shared/engine/classical/run-control';
 import { randomSides } from '../../../shared/engine/classical/balance';
 import { createRng } from '../../../shared/engine/random';
 import { crossingWeight, respectsPins } from '../../../shared/engine/problem/evaluate';
-import { bruteForce, grid, pinsOf, problemOf, randomGraph, type Edge } from './helpers';
+import { bruteForce, grid, mirrorCase, pinsOf, problemOf, randomGraph, type Edge } from './helpers';
 
 const allFree = (n: number) => Int32Array.from({ length: n }, (_, i) => i);
 const sides = (bits: string) => Int8Array.from(bits, (c) => Number(c));
@@ -65,12 +65,8 @@ describe('path relinking', () => {
 
   test('mirrors the guide when that is closer, keeps pinned depots, and gives no child for parents two flips apart', () => {
     const n = 30;
-    const edges = randomGraph(n, 0.3, 9, 'pm1');
-    const problem = problemOf(n, edges);
-    const rng = createRng(9);
-    const a = randomSides(problem, rng);
+    const { problem, rng, a, mirror: b } = mirrorCase(n, 0.3, 9);
     // b: the mirror image of a with 6 depots changed, so 6 apart after mirroring (24 without).
-    const b = a.map((x) => 1 - x) as Int8Array;
     for (const v of [0, 3, 7, 11, 20, 29]) b[v] = 1 - b[v];
     const out = new Int8Array(n);
     const mirrored = relinkPath(problem.network, a, b, allFree(n), true, rng, out);
