@@ -88,27 +88,26 @@ export class BucketMoves implements MaxcutMoves {
   flip(v: number): void {
     const { adjStart, adjIndex } = this.net;
     const side = this.side, w2 = this.weight2, b = this.buckets;
-    // The hot loop: GainBuckets.setKey written out over local arrays (same steps).
-    const key = b.key, cls = b.cls, next = b.next, prev = b.prev, head = b.head, tail = b.tail, bound = b.bound;
-    const g = b.maxGain, span = b.span;
+    // The hot loop: GainBuckets.setKey written out over local arrays (same steps; bucket lists
+    // are circular through a sentinel per bucket, so no end-of-list branches).
+    const key = b.key, cls = b.cls, next = b.next, prev = b.prev, bound = b.bound;
+    const g = b.maxGain, span = b.span, n = b.n;
     const sv = side[v];
     this.cutValue += key[v];
     for (let p = adjStart[v], e = adjStart[v + 1]; p < e; p++) {
       const j = adjIndex[p];
-      const k = side[j] === sv ? key[j] - w2[p] : key[j] + w2[p];
+      // +w2 when j is on the other side, −w2 on the same side (no branch: the sides are random).
+      const k = key[j] + (((side[j] ^ sv) << 1) - 1) * w2[p];
       const c = cls[j];
       if (c >= 0) {
-        const pj = prev[j], qj = next[j], base = c * span;
-        if (pj >= 0) next[pj] = qj;
-        else head[base + key[j] + g] = qj;
-        if (qj >= 0) prev[qj] = pj;
-        else tail[base + key[j] + g] = pj;
-        const at = k + g, h = head[base + at];
+        const pj = prev[j], qj = next[j];
+        next[pj] = qj;
+        prev[qj] = pj;
+        const at = k + g, s = n + c * span + at, h = next[s];
         next[j] = h;
-        prev[j] = -1;
-        if (h >= 0) prev[h] = j;
-        else tail[base + at] = j;
-        head[base + at] = j;
+        prev[j] = s;
+        prev[h] = j;
+        next[s] = j;
         if (at > bound[c]) bound[c] = at;
       }
       key[j] = k;

@@ -37,7 +37,7 @@ describe('gain buckets', () => {
     for (let step = 0; step < 5000; step++) {
       const v = rng.int(n), r = rng.next();
       const last = rng.next() < 0.5;
-      const placed = (u: number) => (last ? b.tail : b.head)[b.cls[u] * (2 * maxGain + 1) + b.key[u] + maxGain];
+      const placed = (u: number) => { const at = b.cls[u] * (2 * maxGain + 1) + b.key[u] + maxGain; return last ? b.last(at) : b.first(at); };
       if (b.cls[v] < 0) {
         b.insert(v, rng.int(2), last);
         expect(placed(v)).toBe(v);
@@ -48,13 +48,13 @@ describe('gain buckets', () => {
       } else b.remove(v);
       // Every bucket's list runs from its head to its tail through exactly its depots.
       const wrong: number[] = [];
-      for (let at = 0; at < b.head.length; at++) {
+      for (let at = 0; at < b.buckets; at++) {
         let lastListed = -1;
-        for (let u = b.head[at]; u >= 0; u = b.next[u]) {
+        for (let u = b.first(at); u >= 0; u = b.after(u)) {
           if (b.cls[u] * (2 * maxGain + 1) + b.key[u] + maxGain !== at) wrong.push(u);
           lastListed = u;
         }
-        if (b.tail[at] !== lastListed) wrong.push(at);
+        if (b.last(at) !== lastListed) wrong.push(at);
       }
       expect(wrong).toEqual([]);
       for (const c of [0, 1]) {
