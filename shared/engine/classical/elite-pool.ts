@@ -1,4 +1,5 @@
 import type { Rng } from '../random';
+import { mirrorToward } from './mirror';
 
 /**
  * A small pool of good, distinct two-sided assignments and their recombination, for restarting
@@ -83,9 +84,7 @@ export function createElitePool(capacity: number, n: number, minDistance = 0): E
       let ib = rng.int(sides.length - 1);
       if (ib >= ia) ib++;
       const a = sides[ia], b = sides[ib];
-      let differ = 0;
-      for (let t = 0; t < free.length; t++) if (a[free[t]] !== b[free[t]]) differ++;
-      const flipB = mirrorable && 2 * differ > free.length ? 1 : 0;
+      const flipB = mirrorToward(a, b, free, mirrorable);
       for (let t = 0; t < free.length; t++) {
         const v = free[t], bv = b[v] ^ flipB;
         out[v] = a[v] === bv ? a[v] : rng.int(2);

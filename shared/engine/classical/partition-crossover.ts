@@ -1,12 +1,13 @@
 import type { CompactNetwork } from '../network/types';
 import type { Rng } from '../random';
+import { mirrorToward } from './mirror';
 
 /**
  * Partition crossover for max-cut (after the partition crossover of Whitley, Hains & Howe 2009
  * for the travelling salesman, and Tinós, Whitley & Chicano 2015, "Partition crossover for
- * pseudo-Boolean optimization", FOGA XIII [details from memory]; on 2D spin glasses the same cut-and-paste of regions where two states differ is the
- * cluster move of Houdayer 2001, "A cluster Monte Carlo algorithm for 2-dimensional spin
- * glasses").
+ * pseudo-Boolean optimization", FOGA XIII [details from memory]; on 2D spin glasses the same
+ * cut-and-paste of regions where two states differ is the cluster move of Houdayer 2001, "A
+ * cluster Monte Carlo algorithm for 2-dimensional spin glasses").
  * Two assignments a and b differ on a set D of depots. D falls apart into components (connected
  * through lanes with both ends in D). A lane from a component C leaves D, where a and b agree, so
  * copying b's sides onto a within C changes the cut by a gain that depends on C alone, and the
@@ -15,8 +16,7 @@ import type { Rng } from '../random';
  * never worse than a and never worse than b. Useful where D breaks into many pieces (sparse
  * networks, parents close to each other); on a dense network D is one piece and the child is
  * simply the better parent.
- * Without pinned depots a cut and its mirror are the same cut: b is mirrored when that makes D
- * smaller.
+ * b is mirrored first when that makes D smaller (mirror.ts).
  * a, b, out: Int8Array // 0/1 per depot; depots outside `free` keep a's value
  */
 export interface CrossoverResult {
@@ -38,12 +38,12 @@ export function createPartitionCrossover(net: CompactNetwork, free: Int32Array, 
   const { adjStart, adjIndex, adjWeight } = net;
   const component = new Int32Array(n); // −1 = not in D, else the component's index
   const queue = new Int32Array(n);
+  // Per component: its gain, and whether the child takes b's sides there (grown together).
   let gains = new Float64Array(64);
+  let take = new Uint8Array(64);
   return {
     cross(a, b, out, rng) {
-      let differ = 0;
-      for (let t = 0; t < free.length; t++) if (a[free[t]] !== b[free[t]]) differ++;
-      const mirror = mirrorable && 2 * differ > free.length ? 1 : 0;
+      const mirror = mirrorToward(a, b, free, mirrorable);
       out.set(a);
       component.fill(-1);
       const inD = 1 << 30; // marks "in D, not yet visited"
@@ -60,9 +60,10 @@ export function createPartitionCrossover(net: CompactNetwork, free: Int32Array, 
         const root = free[t];
         if (component[root] !== inD) continue;
         if (components === gains.length) {
-          const grown = new Float64Array(2 * gains.length);
-          grown.set(gains);
-          gains = grown;
+          const grownGains = new Float64Array(2 * gains.length);
+          grownGains.set(gains);
+          gains = grownGains;
+          take = new Uint8Array(2 * take.length);
         }
         const c = components++;
         let gain = 0, head = 0, tail = 0;
@@ -85,13 +86,10 @@ export function createPartitionCrossover(net: CompactNetwork, free: Int32Array, 
         gains[c] = gain;
       }
       let total = 0;
-      const take = new Uint8Array(components);
       for (let c = 0; c < components; c++) {
         const g = gains[c];
-        if (g > 1e-9 || (g > -1e-9 && rng.int(2) === 1)) {
-          take[c] = 1;
-          if (g > 0) total += g;
-        }
+        take[c] = g > 1e-9 || (g > -1e-9 && rng.int(2) === 1) ? 1 : 0;
+        if (take[c] === 1 && g > 0) total += g;
       }
       for (let t = 0; t < free.length; t++) {
         const v = free[t];

@@ -1,6 +1,7 @@
 import type { CompactNetwork } from '../network/types';
 import type { Rng } from '../random';
 import { createFlipState, flipDepot } from './flip-state';
+import { mirrorToward } from './mirror';
 
 /**
  * Greedy path relinking for max-cut (the path-relinking step as used for max-cut by Wu & Hao,
@@ -30,9 +31,7 @@ export function relinkPath(
   rng: Rng,
   out: Int8Array,
 ): RelinkStep {
-  let differ = 0;
-  for (let t = 0; t < free.length; t++) if (initiating[free[t]] !== guide[free[t]]) differ++;
-  const mirror = mirrorable && 2 * differ > free.length ? 1 : 0;
+  const mirror = mirrorToward(initiating, guide, free, mirrorable);
   // Depots still to flip; swap-removal keeps the list dense.
   const todo = new Int32Array(free.length);
   let d = 0;

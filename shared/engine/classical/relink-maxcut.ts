@@ -84,12 +84,21 @@ export async function relinkMaxcut(
   const child = new Int8Array(n), trial = new Int8Array(n);
   /** A crossover child that beats both its parents, to improve next. */
   let pending: Int8Array | null = null;
-  /** The best partition-crossover child of a new cut and a member that beats both (null when none does). */
+  /**
+   * The cut of the partition-crossover child of `side` and pool member k, written to `out`, when
+   * it beats both parents (the only children worth a run); −Infinity otherwise.
+   */
+  const crossBeatingBoth = (side: Int8Array, cut: number, k: number, out: Int8Array): number => {
+    if (!px) return -Infinity;
+    const c = cut + px.cross(side, pool.member(k), out, rng).gain;
+    return c > Math.max(cut, pool.cutOf(k)) + 1e-9 ? c : -Infinity;
+  };
+  /** The best child of a new cut and any member that beats both (null when none does). */
   const crossOnArrival = (side: Int8Array, cut: number): Int8Array | null => {
     let found: Int8Array | null = null, foundCut = -Infinity;
     for (let k = 0; px && k < pool.size; k++) {
-      const c = cut + px.cross(side, pool.member(k), trial, rng).gain;
-      if (c > Math.max(cut, pool.cutOf(k)) + 1e-9 && c > foundCut) {
+      const c = crossBeatingBoth(side, cut, k, trial);
+      if (c > foundCut) {
         foundCut = c;
         found = trial.slice();
       }
@@ -123,13 +132,10 @@ export async function relinkMaxcut(
     const a = rng.int(pool.size);
     let b = rng.int(pool.size - 1);
     if (b >= a) b++;
-    if (px) {
-      const mix = px.cross(pool.member(a), pool.member(b), child, rng);
-      if (pool.cutOf(a) + mix.gain > Math.max(pool.cutOf(a), pool.cutOf(b)) + 1e-9) {
-        crossed++;
-        await improve(child.slice(), children);
-        continue;
-      }
+    if (crossBeatingBoth(pool.member(a), pool.cutOf(a), b, child) > -Infinity) {
+      crossed++;
+      await improve(child.slice(), children);
+      continue;
     }
     child.set(pool.member(a));
     const step = relinkPath(problem.network, pool.member(a), pool.member(b), free, mirrorable, rng, child);
